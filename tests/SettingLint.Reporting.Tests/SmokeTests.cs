@@ -1,0 +1,2 @@
+namespace SettingLint.Reporting.Tests;
+public sealed class SmokeTests { [Fact] public void Builds() => Assert.True(true); }
