@@ -1,1 +1,1 @@
-return 0;
+return SettingLint.Cli.CliApp.Run(args, Console.Out, Console.Error);

@@ -1,0 +1,51 @@
+using System.CommandLine;
+using System.CommandLine.Parsing;
+using SettingLint.Core.Findings;
+
+namespace SettingLint.Cli;
+
+/// <summary>The command tree. Each command parses its options into an immutable record and calls one handler.</summary>
+public static class CliApp
+{
+    /// <summary>The caution every report and the help of `report` carry.</summary>
+    public const string Caution =
+        "Caution: these rules screen protection settings for review; they do not replace a protection study by a qualified engineer. Local codes and licensed practice prevail.";
+
+    /// <summary>Runs the command line and returns the exit code (0 clean, 1 findings, 2 usage or configuration, 3 internal error).</summary>
+    public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
+    {
+        var root = Build(stdout, stderr);
+        ParseResult parse;
+        try
+        {
+            parse = root.Parse(args);
+        }
+        catch (Exception ex)
+        {
+            stderr.WriteLine("settinglint: " + ex.Message);
+            return ExitCodes.Usage;
+        }
+        if (parse.Errors.Count > 0)
+        {
+            foreach (var e in parse.Errors) stderr.WriteLine("settinglint: " + e.Message);
+            stderr.WriteLine("Try 'settinglint --help'.");
+            return ExitCodes.Usage;
+        }
+        try
+        {
+            return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+        }
+        catch (Exception ex)
+        {
+            stderr.WriteLine("settinglint: internal error: " + ex);
+            return ExitCodes.Internal;
+        }
+    }
+
+    private static RootCommand Build(TextWriter stdout, TextWriter stderr)
+    {
+        var root = new RootCommand("SettingLint: checks induction-motor protection settings against nameplate, datasheet, transformers, starter and bus.\n\n" + Caution);
+        root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
+        return root;
+    }
+}

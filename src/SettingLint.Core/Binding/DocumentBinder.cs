@@ -1,0 +1,250 @@
+using System.Collections.Frozen;
+using NJsonSchema;
+using SettingLint.Core.Documents;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Model;
+using SettingLint.Core.Quantities;
+using SettingLint.Core.Validation;
+
+namespace SettingLint.Core.Binding;
+
+/// <summary>
+/// Binds a validated YAML tree into key-path values in SI units, reading each key's type and dimension off its schema.
+/// Relative units (A sec, xFLC, xCT, % of rated voltage) are converted through the element's own transformer.
+/// </summary>
+public sealed class DocumentBinder
+{
+    private readonly FindingBuilder _findings;
+    private readonly SchemaSet _schemas;
+    private readonly Dictionary<string, BoundValue> _values = new(StringComparer.Ordinal);
+    private readonly List<(string Path, YScalar Node, Quantity Quantity)> _relative = [];
+    private readonly HashSet<string> _failed = new(StringComparer.Ordinal);
+
+    private DocumentBinder(FindingBuilder findings, SchemaSet schemas)
+    {
+        _findings = findings;
+        _schemas = schemas;
+    }
+
+    /// <summary>Validates and binds a document of a known kind.</summary>
+    public static BoundDocument Bind(string kind, string path, string relativePath, YMapping root, FindingBuilder findings, SchemaSet schemas)
+    {
+        var schema = schemas.Get(kind);
+        SchemaValidator.Validate(root, schema, findings);
+        var binder = new DocumentBinder(findings, schemas);
+        binder.Walk(root, schema, "", kind);
+        binder.ResolveRelative();
+        return new BoundDocument(kind, path, relativePath, root, binder._values.ToFrozenDictionary(StringComparer.Ordinal));
+    }
+
+    /// <summary>Validates and binds a bus written inline in a motor file.</summary>
+    public static BoundDocument BindInlineBus(string path, string relativePath, YMapping busNode, FindingBuilder findings, SchemaSet schemas)
+    {
+        var schema = schemas.Get(SchemaSet.Bus);
+        SchemaValidator.Validate(busNode, schema, findings, "bus", new Dictionary<string, object> { ["kind"] = "bus", ["format"] = 1 });
+        var binder = new DocumentBinder(findings, schemas);
+        binder.Walk(busNode, schema, "", SchemaSet.Bus);
+        return new BoundDocument(SchemaSet.Bus, path, relativePath, busNode, binder._values.ToFrozenDictionary(StringComparer.Ordinal));
+    }
+
+    private void Walk(YMapping mapping, JsonSchema schema, string prefix, string kind)
+    {
+        foreach (var entry in mapping.Entries)
+        {
+            var path = prefix.Length == 0 ? entry.Key.Value : prefix + "." + entry.Key.Value;
+            if (SchemaFacts.Child(schema, entry.Key.Value) is not { } child) continue; // SL003 already
+            if (_findings.HasAt(entry.Value.Span))
+            {
+                _failed.Add(path);
+                continue;
+            }
+            switch (entry.Value)
+            {
+                case YMapping m when kind == SchemaSet.RelayModel && prefix == "ranges":
+                    BindRange(entry.Key, m, path);
+                    break;
+                case YMapping m:
+                    Walk(m, child, path, kind);
+                    break;
+                case YScalar s:
+                    BindLeaf(s, child, path);
+                    break;
+            }
+        }
+    }
+
+    private void BindLeaf(YScalar node, JsonSchema schema, string path)
+    {
+        if (SchemaFacts.DimensionOf(schema) is { } dimension)
+        {
+            var context = UnitContexts.Of(path);
+            var parse = QuantityParser.Parse(node.Value, dimension, context);
+            if (!parse.Ok)
+            {
+                _findings.Add(EngineRules.Unit, node.Span, path, "{problem}", ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
+                _failed.Add(path);
+                return;
+            }
+            var q = parse.Value!.Value;
+            if (q.Number < 0)
+            {
+                _failed.Add(path);
+                _findings.Add(EngineRules.WrongType, node.Span, path, "'{value}' is negative; a {dimension} here cannot be.",
+                    ("value", node.Value), ("dimension", dimension.Token()));
+                return;
+            }
+            if (q.Unit.Basis is UnitBasis.Absolute or UnitBasis.Primary)
+            {
+                _values[path] = new MeasureValue(path, node.Span, q.Number * q.Unit.Factor, dimension, q, null);
+            }
+            else
+            {
+                _relative.Add((path, node, q));
+            }
+            return;
+        }
+        switch (node.Type)
+        {
+            case ScalarType.Bool:
+                _values[path] = new FlagValue(path, node.Span, node.Value is "true" or "True" or "TRUE");
+                break;
+            case ScalarType.Int or ScalarType.Float:
+                var n = CoreSchema.Number(node.Value) ?? double.NaN;
+                if (!double.IsFinite(n))
+                {
+                    _findings.Add(EngineRules.WrongType, node.Span, path, "'{value}' is not a finite number.", ("value", node.Value));
+                    return;
+                }
+                _values[path] = new MeasureValue(path, node.Span, n, Dimension.None, null, null);
+                break;
+            case ScalarType.Null:
+                break;
+            default:
+                _values[path] = new TextValue(path, node.Span, node.Value);
+                break;
+        }
+    }
+
+    private void BindRange(YScalar key, YMapping range, string path)
+    {
+        var setting = key.Value;
+        var motorSchema = _schemas.Get(SchemaSet.MotorProtection);
+        var settingSchema = ResolvePath(motorSchema, "protection." + setting);
+        if (settingSchema is null || SchemaFacts.DimensionOf(settingSchema) is not { } dimension)
+        {
+            var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith("protection.", StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
+                .Select(l => l.Path["protection.".Length..]);
+            var near = Suggestions.Nearest(setting, known);
+            _findings.Add(EngineRules.UnknownKey, key.Span, path,
+                "'{key}' is not a protection setting with a unit{hint}.", ("key", setting), ("hint", near is null ? "" : "; did you mean '" + near + "'?"));
+            return;
+        }
+        foreach (var entry in range.Entries)
+        {
+            if (entry.Value is not YScalar s || _findings.HasAt(s.Span)) continue;
+            var p = path + "." + entry.Key.Value;
+            var parse = QuantityParser.Parse(s.Value, dimension, UnitContext.Setting);
+            if (!parse.Ok)
+            {
+                _findings.Add(EngineRules.Unit, s.Span, p, "{problem}", ("problem", QuantityParser.Explain(parse, s.Value, dimension, UnitContext.Setting)));
+                continue;
+            }
+            _values[p] = new WrittenValue(p, s.Span, parse.Value!.Value);
+        }
+    }
+
+    /// <summary>The schema of a dotted key path below a schema.</summary>
+    public static JsonSchema? ResolvePath(JsonSchema root, string path)
+    {
+        JsonSchema? s = root;
+        foreach (var part in path.Split('.'))
+        {
+            s = s is null ? null : SchemaFacts.Child(s, part);
+        }
+        return s;
+    }
+
+    private void ResolveRelative()
+    {
+        foreach (var (path, node, q) in _relative)
+        {
+            var voltage = q.Unit.Dimension == Dimension.Voltage;
+            var refs = References(path, voltage);
+            var si = q.ToSi(refs);
+            if (si is null)
+            {
+                // A reference that is present but wrong has its own finding; a second one here would be noise.
+                if (_failed.Count > 0 && ReferencePaths(path, q.Unit.Basis, voltage).Any(_failed.Contains)) continue;
+                _findings.Add(EngineRules.Unit, node.Span, path, "'{value}' cannot be converted: {missing}.",
+                    ("value", node.Value), ("missing", MissingReference(path, q.Unit.Basis, voltage)));
+                continue;
+            }
+            var dimension = q.Unit.Dimension;
+            _values[path] = new MeasureValue(path, node.Span, si.Value, dimension, q, refs.SideRatio);
+        }
+        // Absolute settings through a transformer still get its ratio, so reports can show the secondary value.
+        foreach (var (path, v) in _values.ToArray())
+        {
+            if (v is MeasureValue { SideRatio: null, Dimension: Dimension.Current or Dimension.Voltage } m && path.StartsWith("protection.", StringComparison.Ordinal))
+            {
+                var refs = References(path, m.Dimension == Dimension.Voltage);
+                if (refs.SideRatio is not null) _values[path] = m with { SideRatio = refs.SideRatio };
+            }
+        }
+    }
+
+    /// <summary>The element a setting path belongs to (protection.ground_fault.pickup gives ground_fault).</summary>
+    public static string ElementOf(string path)
+    {
+        var parts = path.Split('.');
+        return parts.Length >= 2 && parts[0] == "protection" ? parts[1] : "";
+    }
+
+    /// <summary>Which CT an element measures through: the ground CT for ground fault unless residually connected.</summary>
+    public static string CtOf(string element, string? groundConnection) =>
+        element == "ground_fault" && groundConnection != "residual" ? "transformers.ground_ct" : "transformers.phase_ct";
+
+    private ConversionReferences References(string path, bool voltage)
+    {
+        double? Get(string p) => (_values.GetValueOrDefault(p) as MeasureValue)?.Value;
+        var flc = Get("motor.full_load_current");
+        var vr = Get("motor.rated_voltage");
+        if (voltage)
+        {
+            var vp = Get("transformers.vt.primary");
+            var vs = Get("transformers.vt.secondary");
+            return new ConversionReferences(vp is > 0 && vs is > 0 ? vp / vs : null, flc, null, vr);
+        }
+        var ct = CtOf(ElementOf(path), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var cp = Get(ct + ".primary");
+        var cs = Get(ct + ".secondary");
+        return new ConversionReferences(cp is > 0 && cs is > 0 ? cp / cs : null, flc, cp is > 0 ? cp : null, vr);
+    }
+
+    private IEnumerable<string> ReferencePaths(string path, UnitBasis basis, bool voltage)
+    {
+        var ct = CtOf(ElementOf(path), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        return basis switch
+        {
+            UnitBasis.FullLoadCurrent => ["motor.full_load_current"],
+            UnitBasis.CtRating => [ct + ".primary"],
+            UnitBasis.RatedVoltage => ["motor.rated_voltage"],
+            UnitBasis.Secondary when voltage => ["transformers.vt.primary", "transformers.vt.secondary"],
+            _ => [ct + ".primary", ct + ".secondary"],
+        };
+    }
+
+    private string MissingReference(string path, UnitBasis basis, bool voltage)
+    {
+        var ct = CtOf(ElementOf(path), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        return basis switch
+        {
+            UnitBasis.FullLoadCurrent => "xFLC needs motor.full_load_current in amperes",
+            UnitBasis.CtRating => "xCT needs " + ct + ".primary",
+            UnitBasis.RatedVoltage => "% needs motor.rated_voltage",
+            UnitBasis.Secondary when voltage => "a secondary voltage needs transformers.vt with primary and secondary",
+            UnitBasis.Secondary => "a secondary current needs " + ct + " with primary and secondary",
+            _ => "its reference is missing",
+        };
+    }
+}

@@ -1,0 +1,27 @@
+using System.Collections.Immutable;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Model;
+
+namespace SettingLint.Core.Engine;
+
+/// <summary>A compiled set of rules that the engine applies to every motor after binding.</summary>
+public interface IRuleSet
+{
+    /// <summary>The rules that can fire, for the outputs' metadata.</summary>
+    ImmutableArray<RuleDescriptor> Descriptors { get; }
+
+    /// <summary>Evaluates every rule on one motor; findings go to the motor's builder.</summary>
+    void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings);
+}
+
+/// <summary>No rules beyond the engine's own file checks.</summary>
+public sealed class EmptyRuleSet : IRuleSet
+{
+    public static EmptyRuleSet Instance { get; } = new();
+
+    public ImmutableArray<RuleDescriptor> Descriptors => [];
+
+    public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings)
+    {
+    }
+}

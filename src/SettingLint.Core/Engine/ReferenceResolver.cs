@@ -1,0 +1,69 @@
+using System.Collections.Concurrent;
+using SettingLint.Core.Discovery;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Model;
+
+namespace SettingLint.Core.Engine;
+
+/// <summary>Resolves `bus` and `relay_model` references inside the repository root only; a path outside is refused before anything is read.</summary>
+internal sealed class ReferenceResolver<TState>(
+    string root,
+    ConcurrentDictionary<string, Lazy<TState>> states,
+    Func<TState, BoundDocument?> bound,
+    Func<string, string, TState> load)
+{
+    /// <summary>The bound document a reference names, or null with an SL007 finding on the reference.</summary>
+    public BoundDocument? Resolve(BoundDocument from, TextValue reference, string expectedKind, FindingBuilder findings)
+    {
+        var text = reference.Value;
+        if (Path.IsPathRooted(text) || text.Contains('\0', StringComparison.Ordinal))
+        {
+            Add(findings, reference, "'{path}' is an absolute path; a reference is relative to the file that makes it, inside the repository.", text);
+            return null;
+        }
+        var dir = Path.GetDirectoryName(from.Path) ?? root;
+        var full = Path.GetFullPath(Path.Combine(dir, text));
+        if (!RepositoryRoot.Contains(root, full))
+        {
+            Add(findings, reference, "'{path}' lies outside the repository root; it is not read.", text);
+            return null;
+        }
+        if (!File.Exists(full))
+        {
+            Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(root, full));
+            return null;
+        }
+        var info = new FileInfo(full);
+        if (info.LinkTarget is not null)
+        {
+            var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
+            if (target is null || !RepositoryRoot.Contains(root, target))
+            {
+                Add(findings, reference, "'{path}' is a symbolic link out of the repository root; it is not followed.", text);
+                return null;
+            }
+        }
+        var state = states.GetOrAdd(full, f => new Lazy<TState>(() => load(f, RepositoryRoot.Relative(root, f)))).Value;
+        var doc = bound(state);
+        if (doc is null)
+        {
+            Add(findings, reference, "'{path}' is not a setting file that loads (see its own findings); the {kind} cannot be used.", text, null, expectedKind);
+            return null;
+        }
+        if (doc.Kind != expectedKind)
+        {
+            Add(findings, reference, "'{path}' is a {actual} file, not a {kind} file.", text, null, expectedKind, doc.Kind);
+            return null;
+        }
+        return doc;
+    }
+
+    private static void Add(FindingBuilder findings, TextValue reference, string template, string path, string? full = null, string? kind = null, string? actual = null)
+    {
+        var values = new List<(string, FindingValue)> { ("path", path) };
+        if (full is not null) values.Add(("full", full));
+        if (kind is not null) values.Add(("kind", kind));
+        if (actual is not null) values.Add(("actual", actual));
+        findings.Add(EngineRules.Reference, reference.Span, reference.Path, template, [.. values]);
+    }
+}

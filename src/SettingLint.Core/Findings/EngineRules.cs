@@ -1,0 +1,61 @@
+using System.Collections.Immutable;
+
+namespace SettingLint.Core.Findings;
+
+/// <summary>The SL0xx rules: checks of the file itself, built into the engine rather than written as expressions.</summary>
+public static class EngineRules
+{
+    public const string Syntax = "SL001";
+    public const string DuplicateKey = "SL002";
+    public const string UnknownKey = "SL003";
+    public const string MissingKey = "SL004";
+    public const string WrongType = "SL005";
+    public const string Unit = "SL006";
+    public const string Reference = "SL007";
+    public const string Limit = "SL008";
+    public const string KindOrFormat = "SL009";
+    public const string Suppression = "SL010";
+
+    private static readonly ImmutableArray<string> FileTags = ["file"];
+
+    /// <summary>All engine rules, sorted by id.</summary>
+    public static ImmutableArray<RuleDescriptor> All { get; } =
+    [
+        Make(Syntax, "YamlSyntaxError", "The file is not valid YAML.",
+            "A .yaml or .yml file that cannot be parsed, or that is not valid UTF-8, is reported at the parser's line and column rather than skipped.",
+            "A setting file that does not parse cannot be checked, and other tools may read it differently. Fix the syntax at the position given."),
+        Make(DuplicateKey, "DuplicateKey", "A key appears twice in one mapping.",
+            "Both positions are given; most YAML tools keep the second value silently, so the setting that is reviewed may not be the one applied.",
+            "Remove one of the two entries. Which one applies depends on the tool that reads the file, so the reviewer cannot know what the relay gets."),
+        Make(UnknownKey, "UnknownKey", "A key is not part of the setting-file format.",
+            "Unknown keys are usually misspellings of a known key; the nearest known key is suggested.",
+            "A misspelt key is silently ignored by every check, so a setting that was meant to be checked is not. Correct the spelling or remove the key."),
+        Make(MissingKey, "MissingKey", "A required key is missing.",
+            "The format makes some keys mandatory because the checks cannot be made without them.",
+            "Add the key with the value from the nameplate, datasheet or relay settings."),
+        Make(WrongType, "WrongValue", "A value has the wrong type or lies outside its domain.",
+            "A value must be of the type the format gives it (number, text, true/false, one of a list) and within its domain (no negative times, no zero ratios).",
+            "Correct the value; the message says what is accepted."),
+        Make(Unit, "UnitProblem", "A unit is missing, unknown, of the wrong dimension, or does not say primary or secondary.",
+            "Every dimensioned value is a number, a space and a unit. In the protection settings a current or voltage must say which side of its transformer it is on (`A pri`, `A sec`) or be a multiple (`xFLC`, `xCT`, `%`).",
+            "A secondary value read as primary (or the reverse) is one of the commonest setting errors: the number is off by the CT or VT ratio. Write the unit the relay setting actually uses."),
+        Make(Reference, "BadReference", "A referenced file is missing, of the wrong kind, or outside the repository.",
+            "`bus` and `relay_model` name files relative to the setting file; they must exist inside the repository and be of the expected kind.",
+            "Without its bus or relay model a motor cannot be checked against its supply or its relay. Correct the path."),
+        Make(Limit, "InputLimit", "The input exceeds a safety limit of the loader.",
+            "Limits: file size 4 MiB, 100,000 nodes, alias expansion 10,000 nodes, nesting depth 64. They keep a hostile or broken file from stopping the run.",
+            "A real setting file is far below these limits; the file is probably generated wrongly or not a setting file."),
+        Make(KindOrFormat, "UnknownKindOrFormat", "The file's kind or format version is not known.",
+            "`kind` must be motor-protection, bus or relay-model; `format` must be 1.",
+            "A file of an unknown kind or a newer format cannot be checked by this version; correct it or upgrade the tool."),
+        Make(Suppression, "BadSuppression", "A suppression has no reason, names an unknown rule, or matches no finding.",
+            "Accepting a finding in the source needs a reason a reviewer can judge; a suppression that no longer matches anything is stale and should be removed.",
+            "Give the reason after the rule ids, correct the rule id, or remove the stale suppression."),
+    ];
+
+    /// <summary>The engine rule of an id; throws for a non-engine id (a programming error).</summary>
+    public static RuleDescriptor Get(string id) => All.First(r => r.Id == id);
+
+    private static RuleDescriptor Make(string id, string name, string title, string summary, string help) =>
+        new(id, name, title, summary, "**" + title + "**\n\n" + summary + "\n\n" + help + "\n\nBasis: the setting-file format (contract version 1).", Level.Error, FileTags);
+}

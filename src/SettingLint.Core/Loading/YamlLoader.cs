@@ -1,0 +1,363 @@
+using System.Collections.Immutable;
+using System.Text;
+using SettingLint.Core.Documents;
+using SettingLint.Core.Findings;
+using YamlDotNet.Core;
+using YamlDotNet.Core.Events;
+using YScalarStyle = YamlDotNet.Core.ScalarStyle;
+
+namespace SettingLint.Core.Loading;
+
+/// <summary>
+/// Turns bytes into a tree of <see cref="YNode"/> with exact spans, from the parser's events, so that
+/// every duplicate key is found with both positions and every limit is enforced before it can hurt.
+/// </summary>
+public static class YamlLoader
+{
+    private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
+
+    /// <summary>Loads a file from disk; the size limit is checked before anything is read.</summary>
+    public static LoadedFile LoadFile(string path, string relativePath, LoadLimits limits)
+    {
+        var findings = new FindingBuilder(relativePath);
+        var length = new FileInfo(path).Length;
+        if (length > limits.MaxFileBytes)
+        {
+            findings.Add(EngineRules.Limit, SourceSpan.FileStart, "", "The file is {size} bytes, over the limit of {limit} bytes; it is not read.",
+                ("size", new FindingValue(length.ToString(System.Globalization.CultureInfo.InvariantCulture), length, "B")),
+                ("limit", new FindingValue(limits.MaxFileBytes.ToString(System.Globalization.CultureInfo.InvariantCulture), limits.MaxFileBytes, "B")));
+            return new LoadedFile(path, relativePath, null, findings.Findings, []);
+        }
+        return Load(File.ReadAllBytes(path), path, relativePath, limits);
+    }
+
+    /// <summary>Loads a file's bytes.</summary>
+    public static LoadedFile Load(byte[] bytes, string path, string relativePath, LoadLimits limits)
+    {
+        var findings = new FindingBuilder(relativePath);
+        if (bytes.LongLength > limits.MaxFileBytes)
+        {
+            findings.Add(EngineRules.Limit, SourceSpan.FileStart, "", "The file is {size} bytes, over the limit of {limit} bytes; it is not read.",
+                ("size", Num(bytes.LongLength, "B")), ("limit", Num(limits.MaxFileBytes, "B")));
+            return new LoadedFile(path, relativePath, null, findings.Findings, []);
+        }
+        var text = Decode(bytes, findings);
+        if (text is null) return new LoadedFile(path, relativePath, null, findings.Findings, []);
+        var lines = SplitLines(text);
+        var root = new TreeBuilder(findings, limits).Build(text);
+        return new LoadedFile(path, relativePath, root, findings.Findings, lines);
+    }
+
+    private static FindingValue Num(long value, string unit) =>
+        new(value.ToString(System.Globalization.CultureInfo.InvariantCulture), value, unit);
+
+    private static string? Decode(byte[] bytes, FindingBuilder findings)
+    {
+        var offset = 0;
+        if (bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF) offset = 3;
+        else if (bytes.Length >= 2 && ((bytes[0] == 0xFE && bytes[1] == 0xFF) || (bytes[0] == 0xFF && bytes[1] == 0xFE)))
+        {
+            findings.Add(EngineRules.Syntax, SourceSpan.FileStart, "", "The file is UTF-16; setting files must be UTF-8.");
+            return null;
+        }
+        try
+        {
+            return StrictUtf8.GetString(bytes, offset, bytes.Length - offset);
+        }
+        catch (DecoderFallbackException ex)
+        {
+            var bad = offset + Math.Max(0, ex.Index);
+            var bytePos = FirstInvalidByte(bytes, offset);
+            if (bytePos >= 0) bad = bytePos;
+            var (line, column) = PositionOfByte(bytes, offset, bad);
+            findings.Add(EngineRules.Syntax, SourceSpan.At(line, column), "",
+                "The file is not valid UTF-8: byte {offset} (0x{value}) at line {line}, column {column} cannot be decoded.",
+                ("offset", Num(bad, "B")), ("value", bytes[bad].ToString("X2", System.Globalization.CultureInfo.InvariantCulture)),
+                ("line", Num(line, "")), ("column", Num(column, "")));
+            return null;
+        }
+    }
+
+    // The decoder's index is not always the first bad byte; find it by walking the UTF-8 structure.
+    private static int FirstInvalidByte(byte[] b, int start)
+    {
+        var i = start;
+        while (i < b.Length)
+        {
+            var c = b[i];
+            int n;
+            if (c < 0x80) { i++; continue; }
+            if (c is >= 0xC2 and <= 0xDF) n = 1;
+            else if (c is >= 0xE0 and <= 0xEF) n = 2;
+            else if (c is >= 0xF0 and <= 0xF4) n = 3;
+            else return i;
+            for (var k = 1; k <= n; k++)
+            {
+                if (i + k >= b.Length || (b[i + k] & 0xC0) != 0x80) return i;
+            }
+            // Overlong, surrogate and out-of-range forms.
+            if (c == 0xE0 && b[i + 1] < 0xA0) return i;
+            if (c == 0xED && b[i + 1] > 0x9F) return i;
+            if (c == 0xF0 && b[i + 1] < 0x90) return i;
+            if (c == 0xF4 && b[i + 1] > 0x8F) return i;
+            i += n + 1;
+        }
+        return -1;
+    }
+
+    private static (int Line, int Column) PositionOfByte(byte[] bytes, int start, int target)
+    {
+        var line = 1;
+        var lineStart = start;
+        for (var i = start; i < target && i < bytes.Length; i++)
+        {
+            if (bytes[i] == (byte)'\n') { line++; lineStart = i + 1; }
+        }
+        // Columns count UTF-16 code units of the valid text before the bad byte.
+        var prefix = Encoding.UTF8.GetString(bytes, lineStart, Math.Max(0, target - lineStart));
+        return (line, prefix.Length + 1);
+    }
+
+    private static ImmutableArray<string> SplitLines(string text)
+    {
+        var lines = ImmutableArray.CreateBuilder<string>();
+        var start = 0;
+        for (var i = 0; i < text.Length; i++)
+        {
+            if (text[i] == '\n')
+            {
+                var end = i > start && text[i - 1] == '\r' ? i - 1 : i;
+                lines.Add(text[start..end]);
+                start = i + 1;
+            }
+        }
+        lines.Add(text[start..]);
+        return lines.ToImmutable();
+    }
+
+    /// <summary>Builds the tree from parser events with an explicit stack, enforcing every limit as it goes.</summary>
+    private sealed class TreeBuilder(FindingBuilder findings, LoadLimits limits)
+    {
+        private sealed class Frame
+        {
+            public required bool IsMapping;
+            public required Mark Start;
+            public string? Anchor;
+            public readonly ImmutableArray<YEntry>.Builder Entries = ImmutableArray.CreateBuilder<YEntry>();
+            public readonly ImmutableArray<YNode>.Builder Items = ImmutableArray.CreateBuilder<YNode>();
+            public readonly Dictionary<string, YScalar> Keys = new(StringComparer.Ordinal);
+            public YScalar? PendingKey;
+            public bool SkipNextValue;
+            public bool ExpectKey = true;
+            public long Size = 1;
+            public int Height;
+            public SourceSpan LastEnd;
+        }
+
+        private readonly Stack<Frame> _stack = new();
+        private readonly Dictionary<string, (YNode Node, long Size, int Height)> _anchors = new(StringComparer.Ordinal);
+        private readonly HashSet<string> _openAnchors = new(StringComparer.Ordinal);
+        private long _nodes;
+        private long _expanded;
+        private Mark _lastMark = Mark.Empty;
+
+        public YNode? Build(string text)
+        {
+            YNode? root = null;
+            var documents = 0;
+            try
+            {
+                var parser = new Parser(new Scanner(new StringReader(text), skipComments: true));
+                while (parser.MoveNext())
+                {
+                    var ev = parser.Current!;
+                    _lastMark = ev.Start;
+                    switch (ev)
+                    {
+                        case DocumentStart:
+                            documents++;
+                            if (documents == 2)
+                            {
+                                findings.Add(EngineRules.WrongType, Span(ev.Start, ev.End), "",
+                                    "A setting file holds one YAML document; a second one starts here and would be ignored.");
+                                return root;
+                            }
+                            break;
+                        case MappingStart ms:
+                            if (!Open(true, ms.Start, ms.Anchor.IsEmpty ? null : ms.Anchor.Value)) return null;
+                            break;
+                        case SequenceStart ss:
+                            if (!Open(false, ss.Start, ss.Anchor.IsEmpty ? null : ss.Anchor.Value)) return null;
+                            break;
+                        case MappingEnd or SequenceEnd:
+                        {
+                            var f = _stack.Pop();
+                            var end = f.LastEnd == default ? Span(f.Start, ev.End) : f.LastEnd;
+                            var span = new SourceSpan((int)f.Start.Line, (int)f.Start.Column, end.EndLine, end.EndColumn);
+                            YNode node = f.IsMapping ? new YMapping(f.Entries.ToImmutable(), span) : new YSequence(f.Items.ToImmutable(), span);
+                            if (f.Anchor is not null)
+                            {
+                                _openAnchors.Remove(f.Anchor);
+                                _anchors[f.Anchor] = (node, f.Size, f.Height);
+                            }
+                            if (!Add(node, f.Size, f.Height + 1, ev)) return null;
+                            if (_stack.Count == 0) root = node;
+                            break;
+                        }
+                        case Scalar sc:
+                        {
+                            _nodes++;
+                            if (!CheckNodes(ev)) return null;
+                            var style = sc.Style switch
+                            {
+                                YScalarStyle.Plain or YScalarStyle.Any => Documents.ScalarStyle.Plain,
+                                YScalarStyle.Literal or YScalarStyle.Folded => Documents.ScalarStyle.Block,
+                                _ => Documents.ScalarStyle.Quoted,
+                            };
+                            var stringTag = !sc.Tag.IsEmpty && sc.Tag.Value is "tag:yaml.org,2002:str" or "!";
+                            var node = new YScalar(sc.Value, style, Span(sc.Start, sc.End), stringTag);
+                            if (!sc.Anchor.IsEmpty) _anchors[sc.Anchor.Value] = (node, 1, 0);
+                            if (!Add(node, 1, 1, ev)) return null;
+                            if (_stack.Count == 0) root = node;
+                            break;
+                        }
+                        case AnchorAlias al:
+                        {
+                            var name = al.Value.Value;
+                            if (_openAnchors.Contains(name))
+                            {
+                                findings.Add(EngineRules.Limit, Span(al.Start, al.End), "",
+                                    "The alias *{alias} refers to the node that contains it; a recursive structure is not accepted.", ("alias", name));
+                                return null;
+                            }
+                            if (!_anchors.TryGetValue(name, out var target))
+                            {
+                                findings.Add(EngineRules.Syntax, Span(al.Start, al.End), "",
+                                    "The alias *{alias} names no anchor defined before it.", ("alias", name));
+                                return null;
+                            }
+                            _expanded = Sat(_expanded + target.Size);
+                            if (_expanded > limits.MaxAliasExpansion)
+                            {
+                                findings.Add(EngineRules.Limit, Span(al.Start, al.End), "",
+                                    "Aliases expand to more than {limit} nodes (an alias bomb?); the file is not read further.",
+                                    ("limit", Num(limits.MaxAliasExpansion, "")));
+                                return null;
+                            }
+                            if (!Add(target.Node, target.Size, target.Height + 1, ev)) return null;
+                            if (_stack.Count == 0) root = target.Node;
+                            break;
+                        }
+                    }
+                }
+            }
+            catch (YamlException ex)
+            {
+                var mark = ex.Start.Line > 0 ? ex.Start : _lastMark;
+                findings.Add(EngineRules.Syntax, SourceSpan.At(Math.Max(1, (int)mark.Line), Math.Max(1, (int)mark.Column)), "",
+                    "YAML syntax error: {detail}", ("detail", Detail(ex)));
+                return null;
+            }
+            catch (Exception ex) when (ex is InvalidOperationException or ArgumentException or FormatException)
+            {
+                // Some parser faults carry no mark; the last event's position is the best there is.
+                findings.Add(EngineRules.Syntax, SourceSpan.At(Math.Max(1, (int)_lastMark.Line), Math.Max(1, (int)_lastMark.Column)), "",
+                    "YAML syntax error: {detail}", ("detail", ex.Message));
+                return null;
+            }
+            return root;
+        }
+
+        private static string Detail(YamlException ex)
+        {
+            var m = ex.Message;
+            // YamlDotNet prefixes its marks: "(Line: 3, Col: 1, Idx: 20) - (Line: ...): message".
+            var idx = m.LastIndexOf("): ", StringComparison.Ordinal);
+            return idx >= 0 ? m[(idx + 3)..] : m;
+        }
+
+        private static long Sat(long v) => v < 0 ? long.MaxValue / 2 : Math.Min(v, long.MaxValue / 2);
+
+        private bool CheckNodes(ParsingEvent ev)
+        {
+            if (_nodes <= limits.MaxNodes) return true;
+            findings.Add(EngineRules.Limit, Span(ev.Start, ev.End), "",
+                "The file has more than {limit} nodes; it is not read further.", ("limit", Num(limits.MaxNodes, "")));
+            return false;
+        }
+
+        private bool Open(bool mapping, Mark start, string? anchor)
+        {
+            _nodes++;
+            if (_nodes > limits.MaxNodes)
+            {
+                findings.Add(EngineRules.Limit, SourceSpan.At((int)start.Line, (int)start.Column), "",
+                    "The file has more than {limit} nodes; it is not read further.", ("limit", Num(limits.MaxNodes, "")));
+                return false;
+            }
+            if (_stack.Count + 1 > limits.MaxDepth)
+            {
+                findings.Add(EngineRules.Limit, SourceSpan.At((int)start.Line, (int)start.Column), "",
+                    "Nesting is deeper than {limit} levels; the file is not read further.", ("limit", Num(limits.MaxDepth, "")));
+                return false;
+            }
+            if (anchor is not null) _openAnchors.Add(anchor);
+            _stack.Push(new Frame { IsMapping = mapping, Start = start, Anchor = anchor });
+            return true;
+        }
+
+        private bool Add(YNode node, long size, int height, ParsingEvent ev)
+        {
+            if (_stack.Count == 0) return true;
+            var parent = _stack.Peek();
+            if (_stack.Count + height - 1 > limits.MaxDepth)
+            {
+                findings.Add(EngineRules.Limit, Span(ev.Start, ev.End), "",
+                    "Nesting is deeper than {limit} levels; the file is not read further.", ("limit", Num(limits.MaxDepth, "")));
+                return false;
+            }
+            parent.Size = Sat(parent.Size + size);
+            parent.Height = Math.Max(parent.Height, height);
+            parent.LastEnd = new SourceSpan(node.Span.StartLine, node.Span.StartColumn, node.Span.EndLine, node.Span.EndColumn);
+            if (!parent.IsMapping)
+            {
+                parent.Items.Add(node);
+                return true;
+            }
+            if (parent.ExpectKey)
+            {
+                parent.ExpectKey = false;
+                if (node is not YScalar key)
+                {
+                    findings.Add(EngineRules.WrongType, node.Span, "", "A key must be a plain word, not {what}.", ("what", node.Describe()));
+                    parent.SkipNextValue = true;
+                    return true;
+                }
+                if (parent.Keys.TryGetValue(key.Value, out var first))
+                {
+                    findings.Add(EngineRules.DuplicateKey, key.Span, key.Value,
+                        "The key '{key}' appears twice in this mapping: first at line {firstLine}, column {firstColumn}, again at line {line}, column {column}; a second value would silently win in most tools.",
+                        ("key", key.Value), ("firstLine", Num(first.Span.StartLine, "")), ("firstColumn", Num(first.Span.StartColumn, "")),
+                        ("line", Num(key.Span.StartLine, "")), ("column", Num(key.Span.StartColumn, "")));
+                    parent.SkipNextValue = true;
+                    return true;
+                }
+                parent.Keys[key.Value] = key;
+                parent.PendingKey = key;
+                return true;
+            }
+            parent.ExpectKey = true;
+            if (parent.SkipNextValue)
+            {
+                parent.SkipNextValue = false;
+                return true;
+            }
+            parent.Entries.Add(new YEntry(parent.PendingKey!, node));
+            parent.PendingKey = null;
+            return true;
+        }
+
+        private static SourceSpan Span(Mark start, Mark end) =>
+            new((int)start.Line, (int)start.Column, (int)end.Line, (int)end.Column);
+    }
+}

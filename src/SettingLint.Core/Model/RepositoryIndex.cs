@@ -1,0 +1,45 @@
+using System.Collections.Frozen;
+using System.Collections.Immutable;
+
+namespace SettingLint.Core.Model;
+
+/// <summary>The relations between setting files: a motor's bus, the motors on a bus, the users of a relay model.</summary>
+public sealed class RepositoryIndex
+{
+    private readonly FrozenDictionary<string, ImmutableArray<MotorProtection>> _byBus;
+    private readonly FrozenDictionary<string, ImmutableArray<MotorProtection>> _byRelayModel;
+
+    public RepositoryIndex(IEnumerable<MotorProtection> motors)
+    {
+        Motors = [.. motors.OrderBy(m => m.Document.RelativePath, StringComparer.Ordinal)];
+        _byBus = Motors.Where(m => m.Bus is not null)
+            .GroupBy(m => m.Bus!.Document.RelativePath + "#" + (m.Bus.Document.Path == m.Document.Path ? m.Document.RelativePath : ""), StringComparer.Ordinal)
+            .ToFrozenDictionary(g => g.Key, g => g.ToImmutableArray(), StringComparer.Ordinal);
+        _byRelayModel = Motors.Where(m => m.RelayModel is not null)
+            .GroupBy(m => m.RelayModel!.Document.RelativePath, StringComparer.Ordinal)
+            .ToFrozenDictionary(g => g.Key, g => g.ToImmutableArray(), StringComparer.Ordinal);
+    }
+
+    /// <summary>Every motor, by file path.</summary>
+    public ImmutableArray<MotorProtection> Motors { get; }
+
+    /// <summary>The motors fed from the same bus as this one, this one included.</summary>
+    public ImmutableArray<MotorProtection> MotorsOnBusOf(MotorProtection motor) =>
+        motor.Bus is null ? [motor] : _byBus.GetValueOrDefault(BusKey(motor), [motor]);
+
+    /// <summary>The other motors on this motor's bus.</summary>
+    public IEnumerable<MotorProtection> OthersOnBus(MotorProtection motor) =>
+        MotorsOnBusOf(motor).Where(m => !ReferenceEquals(m, motor));
+
+    /// <summary>The motors fed from a bus file (relative path).</summary>
+    public ImmutableArray<MotorProtection> MotorsOnBus(string busRelativePath) =>
+        _byBus.GetValueOrDefault(busRelativePath + "#", []);
+
+    /// <summary>The motors that use a relay model file (relative path).</summary>
+    public ImmutableArray<MotorProtection> UsersOf(string relayModelRelativePath) =>
+        _byRelayModel.GetValueOrDefault(relayModelRelativePath, []);
+
+    // An inline bus is its motor's own: it is keyed by the motor file so it is shared with no other motor.
+    private static string BusKey(MotorProtection m) =>
+        m.Bus!.Document.RelativePath + "#" + (m.Bus.Document.Path == m.Document.Path ? m.Document.RelativePath : "");
+}

@@ -1,0 +1,67 @@
+using System.Collections.Immutable;
+using SettingLint.Core.Quantities;
+
+namespace SettingLint.Core.Model;
+
+/// <summary>A bus: the supply several motors share.</summary>
+public sealed record Bus(BoundDocument Document)
+{
+    public string Tag => Document.Tag;
+
+    public MeasureValue? NominalVoltage => Document.Measure("nominal_voltage");
+
+    public MeasureValue? MaxVoltage => Document.Measure("max_voltage");
+
+    public MeasureValue? FaultCurrentMax => Document.Measure("fault_current_max");
+
+    public MeasureValue? FaultCurrentMin => Document.Measure("fault_current_min");
+
+    public MeasureValue? XOverR => Document.Measure("x_over_r");
+
+    public string? Grounding => Document.Text("grounding");
+
+    public MeasureValue? GroundFaultCurrent => Document.Measure("ground_fault_current");
+}
+
+/// <summary>One settable range of a relay model, kept as written because xFLC and xCT depend on the motor.</summary>
+/// <param name="Setting">The protection key path it bounds, such as short_circuit.pickup.</param>
+public sealed record RelayRange(string Setting, WrittenValue Min, WrittenValue Max, WrittenValue? Step);
+
+/// <summary>What a relay can be set to.</summary>
+public sealed record RelayModel(BoundDocument Document, ImmutableArray<RelayRange> Ranges)
+{
+    public string Tag => Document.Tag;
+
+    /// <summary>The range of a setting, when the model has one.</summary>
+    public RelayRange? RangeOf(string setting) => Ranges.FirstOrDefault(r => r.Setting == setting);
+}
+
+/// <summary>One protected motor: its own file bound, with its bus and relay model resolved.</summary>
+/// <param name="Document">The motor's own values: motor, starter, transformers, protection.</param>
+/// <param name="Bus">The bus it is fed from, when the reference resolved.</param>
+/// <param name="RelayModel">The relay model, when given and resolved.</param>
+public sealed record MotorProtection(BoundDocument Document, Bus? Bus, RelayModel? RelayModel)
+{
+    public string Tag => Document.Tag;
+
+    public MeasureValue? FullLoadCurrent => Document.Measure("motor.full_load_current");
+
+    public MeasureValue? RatedVoltage => Document.Measure("motor.rated_voltage");
+
+    public MeasureValue? LockedRotorCurrent => Document.Measure("motor.locked_rotor_current");
+
+    public MeasureValue? AccelerationTime => Document.Measure("motor.acceleration_time");
+
+    /// <summary>The longest expected acceleration time: acceleration_time_max when given, else acceleration_time.</summary>
+    public MeasureValue? LongestAccelerationTime => Document.Measure("motor.acceleration_time_max") ?? AccelerationTime;
+
+    /// <summary>Whether a protection element is present and enabled.</summary>
+    public bool IsEnabled(string element) => Document.Flag("protection." + element + ".enabled") == true;
+
+    /// <summary>A protection setting in SI units, when present.</summary>
+    public MeasureValue? Setting(string element, string key) => Document.Measure("protection." + element + "." + key);
+
+    /// <summary>Current of a protection setting in primary amperes.</summary>
+    public double? PrimaryAmperes(string element, string key) =>
+        Setting(element, key) is { Dimension: Dimension.Current } m ? m.Value : null;
+}

@@ -1,0 +1,25 @@
+namespace SettingLint.Protection;
+
+/// <summary>
+/// First-cycle RMS multipliers of an asymmetrical (DC-offset) starting or fault current over its
+/// symmetrical RMS value.
+/// </summary>
+public static class AsymmetricalCurrent
+{
+    /// <summary>sqrt(3): RMS of a symmetrical wave plus an undecayed full DC offset (sqrt2 x RMS), sqrt(1 + 2); common practice.</summary>
+    public const double FullyOffsetRmsFactor = 1.7320508075688772;
+
+    /// <summary>sqrt(1 + 2 exp(-2 pi / (X/R))): full offset with the DC term taken after a half cycle of decay; common practice.</summary>
+    /// <param name="xOverR">Circuit X/R ratio, 0 (no offset, factor 1) up to positive infinity (no decay, factor sqrt(3)).</param>
+    public static double DecayingRmsFactor(double xOverR)
+    {
+        if (double.IsNaN(xOverR) || xOverR < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(xOverR), xOverR, "X/R must be zero or greater.");
+        }
+
+        // DC = sqrt2 I exp(-t R/L); at a half cycle (omega t = pi) that is sqrt2 I exp(-pi / (X/R)),
+        // and the RMS of AC plus DC is I sqrt(1 + 2 exp(-2 pi / (X/R))). X/R = 0 gives exp(-inf) = 0.
+        return Math.Sqrt(1 + (2 * Math.Exp(-2 * Math.PI / xOverR)));
+    }
+}

@@ -1,0 +1,143 @@
+using System.Buffers;
+using System.Text;
+using System.Text.Encodings.Web;
+using System.Text.Json;
+using SettingLint.Core.Findings;
+
+namespace SettingLint.Reporting;
+
+/// <summary>The findings as plain JSON for scripts: stable key order, indented, no absolute paths.</summary>
+public sealed class JsonReporter : IReporter
+{
+    private static readonly JsonWriterOptions Options = new()
+    {
+        Indented = true,
+        NewLine = "\n",
+        // The report is a file, not HTML: keep non-ASCII text and symbols such as '<' and '+' readable.
+        Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+    };
+
+    /// <inheritdoc />
+    public void Write(CheckResult result, ReportContext context, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(context);
+        ArgumentNullException.ThrowIfNull(output);
+
+        var buffer = new ArrayBufferWriter<byte>(4096);
+        using (var json = new Utf8JsonWriter(buffer, Options))
+        {
+            WriteReport(json, result, context);
+        }
+        output.Write(Encoding.UTF8.GetString(buffer.WrittenSpan));
+        output.Write('\n');
+    }
+
+    private static void WriteReport(Utf8JsonWriter json, CheckResult result, ReportContext context)
+    {
+        json.WriteStartObject();
+
+        json.WriteStartObject("tool");
+        json.WriteString("name", context.Tool.Name);
+        json.WriteString("version", context.Tool.Version);
+        json.WriteEndObject();
+
+        json.WriteString("root", ReportPaths.RootFromCurrentDirectory(result.RepositoryRoot, context.CurrentDirectory));
+        if (context.Timestamps)
+        {
+            if (context.StartTimeUtc is { } start) json.WriteString("startTimeUtc", start.ToUniversalTime());
+            if (context.EndTimeUtc is { } end) json.WriteString("endTimeUtc", end.ToUniversalTime());
+        }
+
+        var summary = ReportSummary.Of(result);
+        json.WriteStartObject("summary");
+        json.WriteNumber("errors", summary.Errors);
+        json.WriteNumber("warnings", summary.Warnings);
+        json.WriteNumber("notes", summary.Notes);
+        json.WriteNumber("suppressed", summary.Suppressed);
+        json.WriteNumber("files", summary.Files);
+        json.WriteNumber("motors", summary.Motors);
+        json.WriteNumber("configurationErrors", summary.ConfigurationErrors);
+        json.WriteNumber("internalErrors", summary.InternalErrors);
+        json.WriteString("failOn", result.FailOn.Token());
+        json.WriteNumber("exitCode", result.ExitCode);
+        json.WriteEndObject();
+
+        json.WriteStartArray("findings");
+        foreach (var finding in result.Findings)
+        {
+            if (finding.Suppression is not null && context.OmitSuppressed) continue;
+            WriteFinding(json, finding);
+        }
+        json.WriteEndArray();
+
+        json.WriteStartArray("notifications");
+        foreach (var notification in result.Notifications)
+        {
+            WriteNotification(json, notification);
+        }
+        json.WriteEndArray();
+
+        json.WriteStartArray("motors");
+        foreach (var motor in result.Motors)
+        {
+            json.WriteStringValue(motor);
+        }
+        json.WriteEndArray();
+
+        json.WriteEndObject();
+    }
+
+    private static void WriteFinding(Utf8JsonWriter json, Finding finding)
+    {
+        json.WriteStartObject();
+        json.WriteString("ruleId", finding.RuleId);
+        json.WriteString("level", finding.Level.Token());
+        json.WriteString("file", finding.File);
+        json.WriteNumber("line", finding.Span.StartLine);
+        json.WriteNumber("column", finding.Span.StartColumn);
+        json.WriteNumber("endLine", finding.Span.EndLine);
+        json.WriteNumber("endColumn", finding.Span.EndColumn);
+        json.WriteString("keyPath", finding.KeyPath);
+        json.WriteString("message", finding.Message);
+        json.WriteString("fingerprint", finding.Fingerprint);
+        json.WriteStartObject("values");
+        // The values are an ordinal sorted dictionary, so their order is stable.
+        foreach (var (name, value) in finding.Values)
+        {
+            json.WriteStartObject(name);
+            json.WriteString("text", value.Text);
+            // JSON has no NaN or infinity: such a number is left to its text.
+            if (value.Number is { } number && double.IsFinite(number)) json.WriteNumber("number", number);
+            if (value.Unit is { } unit) json.WriteString("unit", unit);
+            json.WriteEndObject();
+        }
+        json.WriteEndObject();
+        if (finding.Suppression is { } suppression)
+        {
+            json.WriteStartObject("suppressed");
+            json.WriteString("justification", suppression.Justification);
+            json.WriteString("file", suppression.File);
+            json.WriteNumber("line", suppression.Span.StartLine);
+            json.WriteEndObject();
+        }
+        json.WriteEndObject();
+    }
+
+    private static void WriteNotification(Utf8JsonWriter json, Notification notification)
+    {
+        json.WriteStartObject();
+        json.WriteString("kind", notification.Kind == NotificationKind.Internal ? "internal" : "configuration");
+        json.WriteString("message", notification.Message);
+        if (notification.File is { } file) json.WriteString("file", file);
+        if (notification.Span is { } span)
+        {
+            json.WriteNumber("line", span.StartLine);
+            json.WriteNumber("column", span.StartColumn);
+            json.WriteNumber("endLine", span.EndLine);
+            json.WriteNumber("endColumn", span.EndColumn);
+        }
+        if (notification.Exception is { } exception) json.WriteString("exception", exception);
+        json.WriteEndObject();
+    }
+}

@@ -1,0 +1,15 @@
+namespace SettingLint.Reporting;
+
+/// <summary>What a reporter needs to know besides the result: where the user stands, what to leave out, who made it.</summary>
+/// <param name="CurrentDirectory">Absolute path of the current directory; text paths are relative to it.</param>
+/// <param name="Timestamps">Whether to write the start and end times (off by default so that output is reproducible).</param>
+/// <param name="OmitSuppressed">Whether to leave suppressed findings out of the report (they are still counted).</param>
+/// <param name="Tool">The tool's name, version and information URI.</param>
+public sealed record ReportContext(string CurrentDirectory, bool Timestamps, bool OmitSuppressed, ToolInfo Tool)
+{
+    /// <summary>When the run started; written only with <see cref="Timestamps"/>.</summary>
+    public DateTimeOffset? StartTimeUtc { get; init; }
+
+    /// <summary>When the run ended; written only with <see cref="Timestamps"/>.</summary>
+    public DateTimeOffset? EndTimeUtc { get; init; }
+}

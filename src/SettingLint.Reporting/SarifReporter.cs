@@ -1,0 +1,260 @@
+using System.Globalization;
+using Microsoft.CodeAnalysis.Sarif;
+using Newtonsoft.Json;
+using SettingLint.Core.Findings;
+using SarifNotification = Microsoft.CodeAnalysis.Sarif.Notification;
+using SarifSuppression = Microsoft.CodeAnalysis.Sarif.Suppression;
+
+namespace SettingLint.Reporting;
+
+/// <summary>A SARIF 2.1.0 log (one run) for code scanning services, built with the Sarif.Sdk object model.</summary>
+public sealed class SarifReporter : IReporter
+{
+    /// <summary>The schema URI written as <c>$schema</c>.</summary>
+    public const string SchemaUri = "https://json.schemastore.org/sarif-2.1.0.json";
+
+    /// <summary>The uriBaseId that result locations are relative to: the repository root.</summary>
+    public const string SourceRootBaseId = "%SRCROOT%";
+
+    private readonly JsonSerializer _serializer = JsonSerializer.Create(new JsonSerializerSettings
+    {
+        ContractResolver = new ExplicitDefaultsContractResolver(),
+        Formatting = Formatting.Indented,
+        Culture = CultureInfo.InvariantCulture,
+    });
+
+    /// <inheritdoc />
+    public void Write(CheckResult result, ReportContext context, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(context);
+        ArgumentNullException.ThrowIfNull(output);
+
+        var log = Build(result, context);
+        // Newtonsoft indents with the writer's NewLine: pin it so output is the same on every platform.
+        using var text = new StringWriter(CultureInfo.InvariantCulture) { NewLine = "\n" };
+        using (var json = new JsonTextWriter(text) { Formatting = Formatting.Indented, Indentation = 2 })
+        {
+            _serializer.Serialize(json, log);
+        }
+        output.Write(text.ToString());
+        output.Write('\n');
+    }
+
+    internal static SarifLog Build(CheckResult result, ReportContext context)
+    {
+        var ruleIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        var rules = new List<ReportingDescriptor>(result.Rules.Length);
+        foreach (var rule in result.Rules)
+        {
+            ruleIndex.TryAdd(rule.Id, rules.Count);
+            rules.Add(Rule(rule, context.Tool));
+        }
+
+        var results = new List<Result>(result.Findings.Length);
+        foreach (var finding in result.Findings)
+        {
+            if (finding.Suppression is not null && context.OmitSuppressed) continue;
+            results.Add(Result(finding, ruleIndex.TryGetValue(finding.RuleId, out var index) ? index : -1));
+        }
+
+        var run = new Run
+        {
+            Tool = new Tool
+            {
+                Driver = new ToolComponent
+                {
+                    Name = context.Tool.Name,
+                    Version = context.Tool.Version,
+                    SemanticVersion = context.Tool.Version,
+                    InformationUri = context.Tool.InformationUri,
+                    Rules = rules,
+                },
+            },
+            Invocations = [Invocation(result, context)],
+            OriginalUriBaseIds = new Dictionary<string, ArtifactLocation>(StringComparer.Ordinal)
+            {
+                [SourceRootBaseId] = new ArtifactLocation
+                {
+                    Uri = new Uri(ReportPaths.DirectoryFileUri(result.RepositoryRoot), UriKind.Absolute),
+                },
+            },
+            Results = results,
+            ColumnKind = ColumnKind.Utf16CodeUnits,
+        };
+
+        return new SarifLog
+        {
+            SchemaUri = new Uri(SchemaUri, UriKind.Absolute),
+            Version = SarifVersion.Current,
+            Runs = [run],
+        };
+    }
+
+    private static ReportingDescriptor Rule(RuleDescriptor rule, ToolInfo tool)
+    {
+        var descriptor = new ReportingDescriptor
+        {
+            Id = rule.Id,
+            Name = rule.Name,
+            ShortDescription = new MultiformatMessageString { Text = rule.Title },
+            FullDescription = new MultiformatMessageString { Text = rule.Summary },
+            Help = new MultiformatMessageString { Text = rule.HelpText, Markdown = rule.HelpMarkdown },
+            HelpUri = tool.HelpUri(rule),
+            DefaultConfiguration = new ReportingConfiguration { Level = FailureLevelOf(rule.DefaultLevel) },
+        };
+        if (!rule.Tags.IsDefaultOrEmpty) descriptor.SetProperty("tags", rule.Tags.ToArray());
+        return descriptor;
+    }
+
+    private static Result Result(Finding finding, int ruleIndex)
+    {
+        var sarif = new Result
+        {
+            RuleId = finding.RuleId,
+            RuleIndex = ruleIndex,
+            Level = FailureLevelOf(finding.Level),
+            Message = new Message { Text = finding.Message },
+            Locations = [Location(finding.File, finding.Span)],
+            PartialFingerprints = new Dictionary<string, string>(StringComparer.Ordinal)
+            {
+                [Fingerprints.Key] = finding.Fingerprint,
+            },
+        };
+        if (finding.Suppression is { } suppression)
+        {
+            sarif.Suppressions =
+            [
+                new SarifSuppression
+                {
+                    Kind = SuppressionKind.InSource,
+                    Justification = suppression.Justification,
+                    Location = Location(suppression.File, suppression.Span),
+                },
+            ];
+        }
+
+        // The property bag keeps insertion order: keyPath first, then the values in their (ordinal) order.
+        sarif.SetProperty("keyPath", finding.KeyPath);
+        foreach (var (name, value) in finding.Values)
+        {
+            var key = PropertyName(name);
+            if (value.Number is { } number && double.IsFinite(number)) sarif.SetProperty(key, number);
+            else sarif.SetProperty(key, value.Text);
+        }
+        var units = new SortedDictionary<string, string>(StringComparer.Ordinal);
+        foreach (var (name, value) in finding.Values)
+        {
+            if (value.Unit is { } unit && value.Number is { } number && double.IsFinite(number)) units[name] = unit;
+        }
+        if (units.Count > 0) sarif.SetProperty(UnitsProperty, units);
+        return sarif;
+    }
+
+    private const string UnitsProperty = "units";
+
+    // A value may not take the name of our own properties, nor "tags", which SARIF reserves for a string array.
+    private static string PropertyName(string valueName) =>
+        valueName is "keyPath" or UnitsProperty or "tags" ? "value." + valueName : valueName;
+
+    private static Location Location(string file, Core.Documents.SourceSpan span) => new()
+    {
+        PhysicalLocation = new PhysicalLocation
+        {
+            ArtifactLocation = ArtifactLocation(file),
+            Region = Region(span),
+        },
+    };
+
+    private static ArtifactLocation ArtifactLocation(string file) => new()
+    {
+        Uri = new Uri(ReportPaths.UriReference(file), UriKind.Relative),
+        UriBaseId = SourceRootBaseId,
+    };
+
+    // SARIF wants 1-based lines and columns and an end that is not before the start.
+    private static Region Region(Core.Documents.SourceSpan span)
+    {
+        var startLine = Math.Max(1, span.StartLine);
+        var startColumn = Math.Max(1, span.StartColumn);
+        var endLine = Math.Max(startLine, span.EndLine);
+        var endColumn = Math.Max(1, span.EndColumn);
+        if (endLine == startLine && endColumn < startColumn) endColumn = startColumn;
+        return new Region { StartLine = startLine, StartColumn = startColumn, EndLine = endLine, EndColumn = endColumn };
+    }
+
+    private static Invocation Invocation(CheckResult result, ReportContext context)
+    {
+        var execution = new List<SarifNotification>();
+        var configuration = new List<SarifNotification>();
+        foreach (var notification in result.Notifications)
+        {
+            var sarif = new SarifNotification
+            {
+                Level = FailureLevel.Error,
+                Message = new Message { Text = notification.Message },
+            };
+            if (notification.File is { } file)
+            {
+                sarif.Locations =
+                [
+                    new Location
+                    {
+                        PhysicalLocation = new PhysicalLocation
+                        {
+                            ArtifactLocation = ArtifactLocation(file),
+                            Region = notification.Span is { } span ? Region(span) : null,
+                        },
+                    },
+                ];
+            }
+            if (notification.Kind == NotificationKind.Internal)
+            {
+                if (notification.Exception is { } exception)
+                {
+                    sarif.Exception = new ExceptionData { Kind = ExceptionKind(exception), Message = exception };
+                }
+                execution.Add(sarif);
+            }
+            else
+            {
+                configuration.Add(sarif);
+            }
+        }
+
+        var invocation = new Invocation
+        {
+            ExecutionSuccessful = result.Notifications.All(static n => n.Kind != NotificationKind.Internal),
+            ExitCode = result.ExitCode,
+            ToolExecutionNotifications = execution.Count > 0 ? execution : null,
+            ToolConfigurationNotifications = configuration.Count > 0 ? configuration : null,
+        };
+        if (context.Timestamps)
+        {
+            if (context.StartTimeUtc is { } start) invocation.StartTimeUtc = start.UtcDateTime;
+            if (context.EndTimeUtc is { } end) invocation.EndTimeUtc = end.UtcDateTime;
+        }
+        return invocation;
+    }
+
+    // "System.IO.IOException: disk full\n   at ..." has its type before the first colon; anything else has no kind.
+    private static string? ExceptionKind(string exceptionText)
+    {
+        var colon = exceptionText.IndexOf(':', StringComparison.Ordinal);
+        if (colon <= 0) return null;
+        var head = exceptionText.AsSpan(0, colon);
+        foreach (var c in head)
+        {
+            if (!(char.IsAsciiLetterOrDigit(c) || c is '.' or '_' or '`' or '+')) return null;
+        }
+        return head.ToString();
+    }
+
+    private static FailureLevel FailureLevelOf(Level level) => level switch
+    {
+        Level.Error => FailureLevel.Error,
+        Level.Warning => FailureLevel.Warning,
+        Level.Note => FailureLevel.Note,
+        _ => FailureLevel.None,
+    };
+}

@@ -1,0 +1,73 @@
+using SettingLint.Core.Findings;
+using SettingLint.Tests.Shared;
+using Xunit.Abstractions;
+
+namespace SettingLint.Reporting.Tests;
+
+/// <summary>The SARIF output against the schema shipped in the Sarif.Sdk package and against the SDK's own validator.</summary>
+public sealed class SarifValidationTests(ITestOutputHelper output)
+{
+    public static TheoryData<string> Cases => ["findings", "clean", "notifications", "omit-suppressed"];
+
+    private static (CheckResult Result, ReportContext Context) Case(string name) => name switch
+    {
+        "findings" => (Samples.Result(), Samples.Context("/r/motors")),
+        "clean" => (Samples.Clean(), Samples.Context()),
+        "notifications" => (Samples.Result(Samples.BadConfig, Samples.Crash,
+            new Notification(NotificationKind.Configuration, "rule file is empty", "rules/SL900.yaml")),
+            Samples.Context() with { Timestamps = true, StartTimeUtc = DateTimeOffset.UnixEpoch, EndTimeUtc = DateTimeOffset.UnixEpoch.AddSeconds(1) }),
+        "omit-suppressed" => (Samples.Result(), Samples.Context(omitSuppressed: true)),
+        _ => throw new ArgumentOutOfRangeException(nameof(name)),
+    };
+
+    private static string Sarif(string name)
+    {
+        var (result, context) = Case(name);
+        return Samples.Render(new SarifReporter(), result, context);
+    }
+
+    [Theory]
+    [MemberData(nameof(Cases))]
+    public void Output_validates_against_the_schema_in_the_Sarif_Sdk_package(string name)
+    {
+        output.WriteLine("schema: " + SarifValidation.SchemaPath());
+        Assert.Empty(SarifValidation.SchemaErrors(Sarif(name)));
+    }
+
+    [Fact]
+    public void The_schema_check_does_catch_an_invalid_log()
+    {
+        var broken = Sarif("findings").Replace("\"startLine\": 4", "\"startLine\": 0", StringComparison.Ordinal)
+            .Replace("\"kind\": \"inSource\"", "\"kind\": \"hidden\"", StringComparison.Ordinal);
+        var errors = SarifValidation.SchemaErrors(broken);
+        output.WriteLine(string.Join("\n", errors));
+        Assert.NotEmpty(errors);
+    }
+
+    [Theory]
+    [MemberData(nameof(Cases))]
+    public void Output_passes_the_sarif_multitool_with_code_scanning_rules(string name)
+    {
+        if (SarifValidation.MultitoolPath() is null)
+        {
+            var message = "Sarif.Multitool not installed: set " + SarifValidation.MultitoolVariable +
+                " or run `npm install @microsoft/sarif-multitool` in .tools (see .ci/run). Not checked.";
+            Assert.False(string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase), message);
+            output.WriteLine(message);
+            return;
+        }
+
+        var path = Path.Combine(Path.GetTempPath(), "settinglint-" + name + "-" + Guid.NewGuid().ToString("N") + ".sarif");
+        File.WriteAllText(path, Sarif(name));
+        try
+        {
+            var (errors, text) = SarifValidation.RunMultitool(path);
+            output.WriteLine(text);
+            Assert.True(errors == 0, errors + " multitool error(s):\n" + text);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+}

@@ -1,0 +1,119 @@
+using System.Collections.Immutable;
+using SettingLint.Core.Findings;
+
+namespace SettingLint.Reporting.Tests;
+
+public sealed class TextReporterTests
+{
+    private static string[] Lines(CheckResult result, ReportContext context)
+    {
+        var text = Samples.Render(new TextReporter(), result, context);
+        Assert.EndsWith("\n", text, StringComparison.Ordinal);
+        Assert.DoesNotContain('\r', text);
+        return text[..^1].Split('\n');
+    }
+
+    [Fact]
+    public void Paths_are_relative_to_a_current_directory_inside_the_root()
+    {
+        Assert.Equal(
+        [
+            "P-101A.yaml:4:3: error SL201: pickup 2400 A is below 1.6 x locked-rotor current 1620 A",
+            "P-101A.yaml:9:5: warning SL112: thermal trip time 8.5 s is shorter than start time 9.2 s [suppressed: accepted for the 2024 outage, see MOC-17]",
+            "P-102 spare.yaml:12:7: note SL305: undervoltage delay 0.2 s is shorter than the transfer time bus B-1 transfer",
+            "1 error, 0 warnings, 1 note in 3 files (3 motors); 1 suppressed",
+        ], Lines(Samples.Result(), Samples.Context("/r/motors")));
+    }
+
+    [Fact]
+    public void Paths_are_relative_to_the_root_when_standing_in_it()
+    {
+        Assert.StartsWith("motors/P-101A.yaml:4:3: error SL201: ", Lines(Samples.Result(), Samples.Context("/r"))[0], StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("/elsewhere", "../r/motors/P-101A.yaml:4:3: error SL201: ")]
+    [InlineData("/r/buses/east", "../../motors/P-101A.yaml:4:3: error SL201: ")]
+    [InlineData("/r/motors/", "P-101A.yaml:4:3: error SL201: ")]
+    public void Paths_climb_out_of_a_current_directory_elsewhere(string cwd, string expectedStart)
+    {
+        Assert.StartsWith(expectedStart, Lines(Samples.Result(), Samples.Context(cwd))[0], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Suppressed_findings_can_be_omitted_but_are_still_counted()
+    {
+        var lines = Lines(Samples.Result(), Samples.Context("/r", omitSuppressed: true));
+        Assert.Equal(3, lines.Length);
+        Assert.DoesNotContain(lines, static l => l.Contains("SL112", StringComparison.Ordinal));
+        Assert.Equal("1 error, 0 warnings, 1 note in 3 files (3 motors); 1 suppressed", lines[^1]);
+    }
+
+    [Fact]
+    public void Notifications_come_first_located_when_they_have_a_file()
+    {
+        var unlocated = new Notification(NotificationKind.Configuration, "no setting files under 'plant/'");
+        var lines = Lines(Samples.Result(Samples.BadConfig, unlocated, Samples.Crash), Samples.Context("/r/motors"));
+        Assert.Equal("../.settinglint.yaml:3:5: error: unknown rule id SL999 in 'rules'", lines[0]);
+        Assert.Equal("settinglint: error: no setting files under 'plant/'", lines[1]);
+        Assert.Equal("settinglint: internal error: the evaluator failed on motor P-102", lines[2]);
+        Assert.Equal("1 error, 0 warnings, 1 note in 3 files (3 motors); 1 suppressed; 2 configuration errors; 1 internal error", lines[^1]);
+    }
+
+    [Fact]
+    public void A_notification_with_a_file_but_no_span_shows_the_file_alone()
+    {
+        var n = new Notification(NotificationKind.Configuration, "rule file is empty", "rules/SL900.yaml");
+        Assert.Equal("rules/SL900.yaml: error: rule file is empty", Lines(Samples.Result(n), Samples.Context())[0]);
+    }
+
+    [Fact]
+    public void Messages_that_span_lines_stay_on_one_line()
+    {
+        var n = new Notification(NotificationKind.Configuration, "bad YAML:\nmapping values are not allowed\r\nhere");
+        Assert.Equal("settinglint: error: bad YAML: mapping values are not allowed here", Lines(Samples.Result(n), Samples.Context())[0]);
+    }
+
+    [Fact]
+    public void A_clean_run_prints_only_the_summary()
+    {
+        Assert.Equal(["0 errors, 0 warnings, 0 notes in 1 file (1 motor)"], Lines(Samples.Clean(), Samples.Context()));
+    }
+
+    [Theory]
+    [InlineData(0, 0, 0, 0, 0, 0, 0, 0, "0 errors, 0 warnings, 0 notes in 0 files (0 motors)")]
+    [InlineData(1, 1, 1, 1, 1, 1, 1, 1, "1 error, 1 warning, 1 note in 1 file (1 motor); 1 suppressed; 1 configuration error; 1 internal error")]
+    [InlineData(3, 1, 0, 1, 12, 7, 0, 0, "3 errors, 1 warning, 0 notes in 12 files (7 motors); 1 suppressed")]
+    [InlineData(2, 5, 2, 0, 2, 2, 3, 2, "2 errors, 5 warnings, 2 notes in 2 files (2 motors); 3 configuration errors; 2 internal errors")]
+    public void Summary_wording_gets_singular_and_plural_right(
+        int errors, int warnings, int notes, int suppressed, int files, int motors, int configuration, int internalErrors, string expected)
+    {
+        Assert.Equal(expected, new ReportSummary(errors, warnings, notes, suppressed, files, motors, configuration, internalErrors).ToSentence());
+    }
+
+    [Fact]
+    public void Summary_counts_levels_of_unsuppressed_findings_only()
+    {
+        var suppressedError = Samples.Pickup with { Suppression = new Suppression("known", "motors/P-101A.yaml", default) };
+        var result = Samples.Result() with { Findings = [suppressedError, Samples.ThermalSuppressed with { Suppression = null }, Samples.Delay] };
+        Assert.Equal(new ReportSummary(0, 1, 1, 1, 3, 3, 0, 0), ReportSummary.Of(result));
+    }
+
+    [Fact]
+    public void Output_is_identical_twice()
+    {
+        var result = Samples.Result(Samples.BadConfig);
+        Assert.Equal(
+            Samples.Render(new TextReporter(), result, Samples.Context("/r/motors")),
+            Samples.Render(new TextReporter(), result, Samples.Context("/r/motors")));
+    }
+
+    [Fact]
+    public void Findings_keep_the_order_they_are_given()
+    {
+        var result = Samples.Result() with { Findings = ImmutableArray.Create(Samples.Delay, Samples.Pickup) };
+        var lines = Lines(result, Samples.Context());
+        Assert.Contains("SL305", lines[0], StringComparison.Ordinal);
+        Assert.Contains("SL201", lines[1], StringComparison.Ordinal);
+    }
+}
