@@ -11,7 +11,7 @@ namespace SettingLint.Cli;
 /// <param name="Output">A file to write to instead of standard output.</param>
 /// <param name="FailOn">The gate's threshold.</param>
 /// <param name="Timestamps">Write start and end times into SARIF.</param>
-public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Format, string? Output, Level FailOn, bool Timestamps, bool SarifOmitSuppressed);
+public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Format, string? Output, Level? FailOn, bool Timestamps, bool SarifOmitSuppressed);
 
 /// <summary>`settinglint check [PATH...]`.</summary>
 public static class CheckCommand
@@ -25,7 +25,7 @@ public static class CheckCommand
         var format = new Option<string>("--format", "-f") { Description = "Output format: " + string.Join(", ", Reporters.Formats) + ".", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong([.. Reporters.Formats]);
         var output = new Option<string?>("--output", "-o") { Description = "Write the report to this file instead of standard output." };
-        var failOn = new Option<string>("--fail-on") { Description = "Exit 1 when a finding is at or above this level: error (default), warning, note, never.", DefaultValueFactory = _ => "error" };
+        var failOn = new Option<string?>("--fail-on") { Description = "Exit 1 when a finding is at or above this level: error (default, or the configuration's fail_on), warning, note, never." };
         failOn.AcceptOnlyFromAmong(FailOnValues);
         var timestamps = new Option<bool>("--timestamps") { Description = "Write the run's start and end times into SARIF (off, so that output is reproducible)." };
         var omit = new Option<bool>("--sarif-omit-suppressed") { Description = "Leave suppressed findings out of the report (hosted code scanning ignores SARIF suppressions)." };
@@ -46,7 +46,7 @@ public static class CheckCommand
                 given,
                 parse.GetValue(format) ?? "text",
                 parse.GetValue(output),
-                ParseFailOn(parse.GetValue(failOn) ?? "error"),
+                parse.GetValue(failOn) is { } fo ? ParseFailOn(fo) : null,
                 parse.GetValue(timestamps),
                 parse.GetValue(omit));
             return Execute(options, stdout, stderr);
@@ -61,7 +61,8 @@ public static class CheckCommand
     public static int Execute(CheckOptionsRecord options, TextWriter stdout, TextWriter stderr)
     {
         var started = DateTimeOffset.UtcNow;
-        var result = new Checker(EmptyRuleSet.Instance).Run(new CheckOptions(options.Paths, options.FailOn));
+        var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
+        var result = Session.Open(paths).Check(paths, options.FailOn);
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
             StartTimeUtc = options.Timestamps ? started : null,

@@ -46,6 +46,7 @@ public static class CliApp
     {
         var root = new RootCommand("SettingLint: checks induction-motor protection settings against nameplate, datasheet, transformers, starter and bus.\n\n" + Caution);
         root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
+        root.Subcommands.Add(RulesCommand.Create(stdout, stderr));
         return root;
     }
 }

@@ -16,6 +16,9 @@ public sealed class SarifReporter : IReporter
     /// <summary>The uriBaseId that result locations are relative to: the repository root.</summary>
     public const string SourceRootBaseId = "%SRCROOT%";
 
+    // The result property that maps value names to their units.
+    private const string UnitsProperty = "units";
+
     private readonly JsonSerializer _serializer = JsonSerializer.Create(new JsonSerializerSettings
     {
         ContractResolver = new ExplicitDefaultsContractResolver(),
@@ -150,8 +153,6 @@ public sealed class SarifReporter : IReporter
         if (units.Count > 0) sarif.SetProperty(UnitsProperty, units);
         return sarif;
     }
-
-    private const string UnitsProperty = "units";
 
     // A value may not take the name of our own properties, nor "tags", which SARIF reserves for a string array.
     private static string PropertyName(string valueName) =>

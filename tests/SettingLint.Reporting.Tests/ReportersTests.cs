@@ -10,7 +10,7 @@ public sealed class ReportersTests
         Assert.IsType(type, Reporters.For(format));
 
     [Fact]
-    public void Formats_lists_text_first() => Assert.Equal(["text", "json", "sarif"], Reporters.Formats);
+    public void Formats_lists_text_first() => Assert.Equal(["text", "json", "sarif"], Reporters.Formats.ToArray());
 
     [Theory]
     [InlineData("SARIF")]

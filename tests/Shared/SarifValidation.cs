@@ -68,6 +68,7 @@ public static class SarifValidation
         ArgumentNullException.ThrowIfNull(sarifPath);
         var tool = MultitoolPath() ?? throw new InvalidOperationException(
             "Sarif.Multitool not found: set " + MultitoolVariable + " or run `npm install @microsoft/sarif-multitool` in .tools.");
+        if (!File.Exists(tool)) throw new InvalidOperationException("Sarif.Multitool not found at " + tool + " (from " + MultitoolVariable + ").");
         EnsureExecutable(tool);
 
         var outPath = Path.Combine(Path.GetTempPath(), "settinglint-multitool-" + Guid.NewGuid().ToString("N") + ".sarif");

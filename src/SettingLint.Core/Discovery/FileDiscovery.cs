@@ -81,12 +81,22 @@ public static class FileDiscovery
         if (info.LinkTarget is not null)
         {
             var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
-            if (target is null || !RepositoryRoot.Contains(root, target) || !File.Exists(target))
+            var outside = target is null || !RepositoryRoot.Contains(root, target);
+            if (outside || !File.Exists(target))
             {
                 var b = new FindingBuilder(rel);
-                b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
-                    "This file is a symbolic link to {target}, outside the repository root; it is not followed.",
-                    ("target", target is null ? "an unreadable target" : "a path outside the repository"));
+                if (outside)
+                {
+                    b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
+                        "This file is a symbolic link to {target}, outside the repository root; it is not followed.",
+                        ("target", target is null ? "an unreadable target" : "a path outside the repository"));
+                }
+                else
+                {
+                    b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
+                        "This file is a symbolic link to {target}, which does not exist; it is not followed.",
+                        ("target", RepositoryRoot.Relative(root, target!)));
+                }
                 findings.AddRange(b.Findings);
                 return;
             }

@@ -12,7 +12,9 @@ public sealed record CheckOptions(
     IReadOnlyList<string> Paths,
     Level FailOn = Level.Error,
     LoadLimits? Limits = null,
-    bool Parallel = true)
+    bool Parallel = true,
+    Func<string, bool>? Include = null,
+    string? Root = null)
 {
     public LoadLimits EffectiveLimits => Limits ?? LoadLimits.Default;
 }

@@ -42,9 +42,9 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     {
         _schemas.Warm();
         var paths = options.Paths.Count == 0 ? ["."] : options.Paths;
-        var root = RepositoryRoot.Find(paths[0]);
+        var root = options.Root is { } given ? Path.GetFullPath(given).TrimEnd(Path.DirectorySeparatorChar) : RepositoryRoot.Find(paths[0]);
         var notifications = new ConcurrentBag<Notification>();
-        var discovery = FileDiscovery.Find(root, paths);
+        var discovery = FileDiscovery.Find(root, paths, options.Include);
         foreach (var m in discovery.Missing)
         {
             notifications.Add(new Notification(NotificationKind.Configuration, "The path '" + m + "' does not exist."));
@@ -72,7 +72,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var motors = settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!).ToArray();
         var index = new RepositoryIndex(motors);
         var motorStates = settingFiles.Where(s => s.Motor is not null).ToArray();
-        ForEach(options.Parallel, motorStates, s => Guard(() => rules.Evaluate(s.Motor!, index, s.Findings), s.Loaded.RelativePath, notifications, "a rule failed on this motor"));
+        ForEach(options.Parallel, motorStates, s => Guard(() => rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add), s.Loaded.RelativePath, notifications, "a rule failed on this motor"));
 
         var findings = discovery.Findings
             .Concat(settingFiles.Where(s => s.Reported).SelectMany(s => s.Loaded.Findings.Concat(s.Findings.Findings)))

@@ -11,7 +11,7 @@ public interface IRuleSet
     ImmutableArray<RuleDescriptor> Descriptors { get; }
 
     /// <summary>Evaluates every rule on one motor; findings go to the motor's builder.</summary>
-    void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings);
+    void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify);
 }
 
 /// <summary>No rules beyond the engine's own file checks.</summary>
@@ -21,7 +21,7 @@ public sealed class EmptyRuleSet : IRuleSet
 
     public ImmutableArray<RuleDescriptor> Descriptors => [];
 
-    public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings)
+    public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
     {
     }
 }

@@ -95,10 +95,11 @@ public static class SchemaValidator
     private static void Report(ValidationError error, JObject root, FindingBuilder findings, string prefix)
     {
         var origin = error.Token?.Annotation<Origin>() ?? root.Annotation<Origin>()!;
-        var keySpan = origin.Key?.Span ?? SourceSpan.FileStart;
         var valueSpan = origin.Node.Span;
+        // A keyless object is the document itself, or a mapping validated on its own (an inline bus): the latter has a place.
+        var keySpan = origin.Key?.Span ?? (prefix.Length > 0 ? SourceSpan.At(valueSpan.StartLine, valueSpan.StartColumn) : SourceSpan.FileStart);
         var path = origin.Path;
-        var name = origin.Key?.Value ?? error.Property ?? "";
+        var name = origin.Key?.Value ?? (path.Length > 0 ? path : error.Property ?? "");
         var schema = error.Schema;
         switch (error.Kind)
         {
@@ -127,6 +128,8 @@ public static class SchemaValidator
                 // The token is the object that lacks the key; place the finding on that object's key.
                 var missing = error.Property ?? "";
                 var full = path.Length == 0 ? missing : path + "." + missing;
+                // The engine reports a missing `format` itself, before validation; once is enough.
+                if (findings.Findings.Any(f => f.RuleId == EngineRules.MissingKey && f.KeyPath == full)) return;
                 var title = schema is not null && SchemaFacts.Child(schema, missing) is { } ms && !string.IsNullOrEmpty(ms.Title) ? " (" + ms.Title + ")" : "";
                 findings.Add(EngineRules.MissingKey, keySpan, full,
                     "The required key '{key}'{title} is missing{where}.",
@@ -139,6 +142,8 @@ public static class SchemaValidator
         var shown = Shown(origin.Node);
         if (isQuantity && error.Kind is ValidationErrorKind.StringExpected)
         {
+            // A relay-model range ("setting") takes its setting's dimension, which the binder knows: it reports the scalar.
+            if (Quantities.Dimensions.Parse(SchemaFacts.DimensionToken(schema!)!) is null && origin.Node is YScalar) return;
             var dim = Quantities.Dimensions.Parse(SchemaFacts.DimensionToken(schema!)!) ?? Quantities.Dimension.None;
             var context = Quantities.UnitContexts.Of(path.StartsWith("ranges.", StringComparison.Ordinal) ? "protection." + path : path);
             var problem = origin.Node is YScalar { Type: ScalarType.Int or ScalarType.Float } number
@@ -174,7 +179,6 @@ public static class SchemaValidator
             _ => "is not valid here (" + error.Kind + ")",
         };
         findings.Add(EngineRules.WrongType, valueSpan, path, "'{key}' {detail}; it is {what}.", ("key", name), ("detail", detail), ("what", shown));
-        _ = prefix;
     }
 
     private static string Bound(decimal? value, bool exclusive) =>

@@ -1,0 +1,138 @@
+using System.CommandLine;
+using System.Text.Json;
+using SettingLint.Core.Engine;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Rules;
+
+namespace SettingLint.Cli;
+
+/// <summary>`settinglint rules list|show|test`.</summary>
+public static class RulesCommand
+{
+    public static Command Create(TextWriter stdout, TextWriter stderr)
+    {
+        var rules = new Command("rules", "List, explain and test the rules.");
+        var format = new Option<string>("--format", "-f") { Description = "text or json.", DefaultValueFactory = _ => "text" };
+        format.AcceptOnlyFromAmong("text", "json");
+        var list = new Command("list", "List the rules in effect here: id, severity, title.") { format };
+        list.SetAction(parse => List(parse.GetValue(format) == "json", stdout, stderr));
+        var id = new Argument<string>("id") { Description = "A rule id such as SL201." };
+        var show = new Command("show", "Explain a rule: rationale, basis, parameters with defaults and the values in effect here.") { id };
+        show.SetAction(parse => Show(parse.GetValue(id)!, stdout, stderr));
+        var dir = new Argument<string>("dir") { Description = "A rule pack folder or one rule's folder (default: rules).", Arity = ArgumentArity.ZeroOrOne, DefaultValueFactory = _ => "rules" };
+        var test = new Command("test", "Run rule fixtures: '# expect: SLnnn' on the line before each expected finding.") { dir };
+        test.SetAction(parse => Test(parse.GetValue(dir) ?? "rules", stdout, stderr));
+        rules.Subcommands.Add(list);
+        rules.Subcommands.Add(show);
+        rules.Subcommands.Add(test);
+        return rules;
+    }
+
+    private static Session? Open(TextWriter stderr)
+    {
+        var session = Session.Open(["."]);
+        if (session.Problems.IsEmpty) return session;
+        foreach (var p in session.Problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
+        return null;
+    }
+
+    private static string Where(Notification n) =>
+        n.File is null ? "settinglint: " : n.Span is { } s ? $"{n.File}:{s.StartLine}:{s.StartColumn}: " : n.File + ": ";
+
+    private static int List(bool json, TextWriter stdout, TextWriter stderr)
+    {
+        if (Open(stderr) is not { } session) return ExitCodes.Usage;
+        var all = EngineRules.All.Select(r => (r.Id, Level: r.DefaultLevel.Token(), r.Title, Tags: string.Join(" ", r.Tags)))
+            .Concat(session.Rules.Rules.Select(r => (r.Id, Level: r.Level.Token(), r.Descriptor.Title, Tags: string.Join(" ", r.Descriptor.Tags))))
+            .OrderBy(r => r.Id, StringComparer.Ordinal).ToList();
+        if (json)
+        {
+            var buffer = new MemoryStream();
+            using (var jw = new Utf8JsonWriter(buffer, new JsonWriterOptions { Indented = true }))
+            {
+                jw.WriteStartArray();
+                foreach (var r in all)
+                {
+                    jw.WriteStartObject();
+                    jw.WriteString("id", r.Id);
+                    jw.WriteString("severity", r.Level);
+                    jw.WriteString("title", r.Title);
+                    jw.WriteString("tags", r.Tags);
+                    jw.WriteEndObject();
+                }
+                jw.WriteEndArray();
+            }
+            stdout.WriteLine(System.Text.Encoding.UTF8.GetString(buffer.ToArray()));
+            return ExitCodes.Clean;
+        }
+        foreach (var r in all) stdout.WriteLine($"{r.Id}  {r.Level,-7}  {r.Title}");
+        return ExitCodes.Clean;
+    }
+
+    private static int Show(string id, TextWriter stdout, TextWriter stderr)
+    {
+        if (Open(stderr) is not { } session) return ExitCodes.Usage;
+        var rule = session.Rules.Rules.FirstOrDefault(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase));
+        if (rule is null)
+        {
+            var engine = EngineRules.All.FirstOrDefault(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase));
+            if (engine is null)
+            {
+                stderr.WriteLine($"settinglint: no rule {id}. Try 'settinglint rules list'.");
+                return ExitCodes.Usage;
+            }
+            stdout.WriteLine($"{engine.Id} ({engine.DefaultLevel.Token()}): {engine.Title}");
+            stdout.WriteLine();
+            stdout.WriteLine(engine.HelpText);
+            return ExitCodes.Clean;
+        }
+        var d = rule.Descriptor;
+        stdout.WriteLine($"{d.Id} ({rule.Level.Token()}; default {d.DefaultLevel.Token()}): {d.Title}");
+        stdout.WriteLine("Tags: " + string.Join(", ", d.Tags) + "    File: " + rule.SourceFile);
+        stdout.WriteLine();
+        stdout.WriteLine(d.Summary);
+        stdout.WriteLine();
+        stdout.WriteLine(d.HelpText);
+        if (!rule.Parameters.IsEmpty)
+        {
+            stdout.WriteLine();
+            stdout.WriteLine("Parameters (default -> in effect here):");
+            foreach (var p in rule.Parameters)
+            {
+                stdout.WriteLine($"  {p.Name}: {p.Format(p.Default)} -> {p.Format(rule.ParameterValues[p.Index])}   {p.Meaning}");
+            }
+        }
+        return ExitCodes.Clean;
+    }
+
+    private static int Test(string dir, TextWriter stdout, TextWriter stderr)
+    {
+        if (!Directory.Exists(dir))
+        {
+            stderr.WriteLine($"settinglint: '{dir}' is not a folder.");
+            return ExitCodes.Usage;
+        }
+        var (results, problems) = FixtureRunner.Run(dir);
+        if (!problems.IsEmpty)
+        {
+            foreach (var p in problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
+            return ExitCodes.Usage;
+        }
+        var failed = 0;
+        foreach (var r in results)
+        {
+            if (r.Passed)
+            {
+                stdout.WriteLine($"ok    {r.RuleId}  ({r.Expected} expected)");
+                continue;
+            }
+            failed++;
+            stdout.WriteLine($"FAIL  {r.RuleId}");
+            foreach (var m in r.Missed) stdout.WriteLine($"      missed:     {m}");
+            foreach (var u in r.Unexpected) stdout.WriteLine($"      unexpected: {u}");
+            foreach (var p in r.Problems) stdout.WriteLine($"      problem:    {p}");
+        }
+        stdout.WriteLine($"{results.Length - failed} rules passed, {failed} failed");
+        return failed == 0 ? ExitCodes.Clean : ExitCodes.Findings;
+    }
+}

@@ -1,0 +1,147 @@
+using System.Collections.Immutable;
+using System.Text.RegularExpressions;
+using SettingLint.Core.Documents;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Loading;
+using SettingLint.Core.Rules;
+using SettingLint.Core.Validation;
+
+namespace SettingLint.Core.Configuration;
+
+/// <summary>The repository's `.settinglint.yaml`: packs, rule overrides, include/exclude globs, fail threshold.</summary>
+/// <param name="File">The config file relative to the root; null when there is none.</param>
+/// <param name="Packs">"builtin" or absolute folders of a company's own rules.</param>
+public sealed record SettingsConfig(
+    string? File,
+    Level? FailOn,
+    ImmutableArray<string> Include,
+    ImmutableArray<string> Exclude,
+    ImmutableArray<string> Packs,
+    RuleOverrides Overrides)
+{
+    public const string FileName = ".settinglint.yaml";
+
+    public static SettingsConfig Default { get; } = new(null, null, [], [], ["builtin"], new RuleOverrides(new Dictionary<string, RuleOverride>()));
+
+    /// <summary>Whether a root-relative path passes the include and exclude globs.</summary>
+    public bool Includes(string relativePath)
+    {
+        if (Include.Length > 0 && !Include.Any(g => Glob.Matches(g, relativePath))) return false;
+        return !Exclude.Any(g => Glob.Matches(g, relativePath));
+    }
+
+    /// <summary>Finds the config from the checked path upward to the root, and reads it; problems carry the file's positions.</summary>
+    public static (SettingsConfig Config, ImmutableArray<Notification> Problems) Load(string root, string checkedPath, SchemaSet schemas)
+    {
+        var full = Path.GetFullPath(checkedPath);
+        var dir = Directory.Exists(full) ? full : Path.GetDirectoryName(full) ?? root;
+        for (var d = dir; d is not null && Discovery.RepositoryRoot.Contains(root, d); d = Path.GetDirectoryName(d))
+        {
+            foreach (var name in (string[])[FileName, ".settinglint.yml"])
+            {
+                var f = Path.Combine(d, name);
+                if (System.IO.File.Exists(f)) return Read(root, f, schemas);
+            }
+        }
+        return (Default, []);
+    }
+
+    private static (SettingsConfig, ImmutableArray<Notification>) Read(string root, string path, SchemaSet schemas)
+    {
+        var rel = Discovery.RepositoryRoot.Relative(root, path);
+        var loaded = YamlLoader.LoadFile(path, rel, LoadLimits.Default);
+        var findings = new FindingBuilder(rel);
+        foreach (var f in loaded.Findings) findings.Add(f);
+        YMapping? m = loaded.Root as YMapping;
+        if (m is null && loaded.Root is not null && !(loaded.Root is YScalar { Type: ScalarType.Null }))
+        {
+            findings.Add(EngineRules.WrongType, loaded.Root.Span, "", "The configuration is a mapping of keys.");
+        }
+        if (m is not null) SchemaValidator.Validate(m, schemas.Get(SchemaSet.Config), findings);
+        var problems = findings.Findings.Select(f => new Notification(NotificationKind.Configuration, "Configuration: " + f.Message, rel, f.Span)).ToList();
+        if (problems.Count > 0 || m is null) return (Default with { File = rel }, [.. problems]);
+
+        Level? failOn = m["fail_on"] is YScalar fo ? (fo.Value == "never" ? Level.None : Levels.Parse(fo.Value)) : null;
+        ImmutableArray<string> List(string key) => m[key] is YSequence s ? [.. s.Items.OfType<YScalar>().Select(x => x.Value)] : [];
+        var baseDir = Path.GetDirectoryName(path)!;
+        var packs = ImmutableArray.CreateBuilder<string>();
+        if (m["packs"] is YSequence ps)
+        {
+            foreach (var p in ps.Items.OfType<YScalar>())
+            {
+                if (p.Value == "builtin") { packs.Add("builtin"); continue; }
+                var folder = Path.GetFullPath(Path.Combine(baseDir, p.Value));
+                if (!Discovery.RepositoryRoot.Contains(root, folder) || !Directory.Exists(folder))
+                {
+                    problems.Add(new Notification(NotificationKind.Configuration, $"Configuration: the rule pack '{p.Value}' is not a folder inside the repository.", rel, p.Span));
+                    continue;
+                }
+                packs.Add(folder);
+            }
+        }
+        else
+        {
+            packs.Add("builtin");
+        }
+        var overrides = new Dictionary<string, RuleOverride>(StringComparer.Ordinal);
+        if (m["rules"] is YMapping rules)
+        {
+            foreach (var e in rules.Entries)
+            {
+                switch (e.Value)
+                {
+                    case YScalar s:
+                        overrides[e.Key.Value] = s.Value switch
+                        {
+                            "off" => new RuleOverride(false, Level.None, null),
+                            "on" => new RuleOverride(true, null, null),
+                            _ => new RuleOverride(true, Levels.Parse(s.Value), null),
+                        };
+                        break;
+                    case YMapping o:
+                    {
+                        bool? enabled = o["enabled"] is YScalar en ? en.Value is "true" or "True" or "TRUE" : null;
+                        Level? level = o["severity"] is YScalar sv ? Levels.Parse(sv.Value) : null;
+                        if (enabled == false) level = Level.None;
+                        Dictionary<string, (string, SourceSpan, string)>? prm = null;
+                        if (o["parameters"] is YMapping pm)
+                        {
+                            prm = pm.Entries.Where(p => p.Value is YScalar).ToDictionary(p => p.Key.Value, p => (((YScalar)p.Value).Value, p.Value.Span, rel), StringComparer.Ordinal);
+                        }
+                        overrides[e.Key.Value] = new RuleOverride(enabled, level, prm);
+                        break;
+                    }
+                }
+            }
+        }
+        return (new SettingsConfig(rel, failOn, List("include"), List("exclude"), packs.ToImmutable(), new RuleOverrides(overrides)), [.. problems]);
+    }
+}
+
+/// <summary>Glob patterns on root-relative paths: `**` any folders, `*` within a name, `?` one character.</summary>
+public static class Glob
+{
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Regex> Cache = new(StringComparer.Ordinal);
+
+    public static bool Matches(string pattern, string path) =>
+        Cache.GetOrAdd(pattern, static p => new Regex("^" + ToRegex(p) + "$", RegexOptions.CultureInvariant, TimeSpan.FromSeconds(1))).IsMatch(path);
+
+    private static string ToRegex(string glob)
+    {
+        var sb = new System.Text.StringBuilder();
+        for (var i = 0; i < glob.Length; i++)
+        {
+            var c = glob[i];
+            if (c == '*' && i + 1 < glob.Length && glob[i + 1] == '*')
+            {
+                var slash = i + 2 < glob.Length && glob[i + 2] == '/';
+                sb.Append(slash ? "(.*/)?" : ".*");
+                i += slash ? 2 : 1;
+            }
+            else if (c == '*') sb.Append("[^/]*");
+            else if (c == '?') sb.Append("[^/]");
+            else sb.Append(Regex.Escape(c.ToString()));
+        }
+        return sb.ToString();
+    }
+}

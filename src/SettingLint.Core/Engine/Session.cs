@@ -1,0 +1,42 @@
+using System.Collections.Immutable;
+using SettingLint.Core.Configuration;
+using SettingLint.Core.Discovery;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Rules;
+using SettingLint.Core.Validation;
+
+namespace SettingLint.Core.Engine;
+
+/// <summary>Everything a run is set up with: root, configuration and compiled rules, or the problems that stop it (exit 2).</summary>
+public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, ImmutableArray<Notification> Problems)
+{
+    /// <summary>Finds the root and the configuration for the checked paths and loads the rule packs it names.</summary>
+    public static Session Open(IReadOnlyList<string> paths, SchemaSet? schemas = null)
+    {
+        var s = schemas ?? SchemaSet.Shared;
+        s.Warm();
+        var first = paths.Count == 0 ? "." : paths[0];
+        var root = RepositoryRoot.Find(first);
+        var (config, problems) = SettingsConfig.Load(root, first, s);
+        var sources = new List<RuleSource>();
+        foreach (var pack in config.Packs)
+        {
+            sources.AddRange(pack == "builtin" ? RuleLoader.BuiltIn() : RuleLoader.FromFolder(pack, root));
+        }
+        var loaded = new RuleLoader(s).Load(sources, config.Overrides);
+        var unknown = config.Overrides.ById.Keys.Where(id => !loaded.Rules.Any(r => r.Id == id) && !EngineRules.All.Any(r => r.Id == id))
+            .Select(id => new Notification(NotificationKind.Configuration, $"Configuration: the rule {id} is not in any loaded pack.", config.File));
+        return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown]);
+    }
+
+    /// <summary>Runs the check; configuration problems give a result with no findings and exit 2.</summary>
+    public CheckResult Check(IReadOnlyList<string> paths, Level? failOn, bool parallel = true)
+    {
+        var threshold = failOn ?? Config.FailOn ?? Level.Error;
+        if (Problems.Length > 0)
+        {
+            return new CheckResult(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], Problems, 0, [], threshold);
+        }
+        return new Checker(Rules).Run(new CheckOptions(paths, threshold, Parallel: parallel, Include: Config.Includes));
+    }
+}

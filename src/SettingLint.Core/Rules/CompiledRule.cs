@@ -1,0 +1,61 @@
+using System.Collections.Immutable;
+using SettingLint.Core.Documents;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Quantities;
+
+namespace SettingLint.Core.Rules;
+
+/// <summary>A parameter of a rule: its default and meaning, with the span of its default for messages.</summary>
+public sealed record RuleParameter(string Name, double Default, Dim Dim, bool Percent, string DefaultText, string Meaning, int Index)
+{
+    /// <summary>The value as a person reads it.</summary>
+    public string Format(double value) => CheckNode.Format(value, Dim, Percent);
+}
+
+/// <summary>The top of a check: comparisons report their numbers, and/or pick the comparison that decided.</summary>
+public abstract record CheckNode
+{
+    /// <summary>How a number of a dimension is shown: engineering units, percent for fractions, "never" for an infinite time.</summary>
+    public static string Format(double value, Dim dim, bool percent)
+    {
+        if (double.IsPositiveInfinity(value) && dim == Dim.Time) return "never";
+        if (percent && dim == Dim.None) return Formats.Si(value, Dimension.Fraction);
+        return dim.Plain is { } p ? Formats.Si(value, p) : Formats.Number(value);
+    }
+}
+
+/// <summary>A comparison: left is the actual value, right the limit.</summary>
+public sealed record ComparisonNode(string Op, Compiled Left, Compiled Right) : CheckNode;
+
+public sealed record AndNode(CheckNode Left, CheckNode Right) : CheckNode;
+
+public sealed record OrNode(CheckNode Left, CheckNode Right) : CheckNode;
+
+/// <summary>A true/false expression with no numbers to report.</summary>
+public sealed record PlainNode(Compiled Expression) : CheckNode;
+
+/// <summary>The evaluated numbers of the comparison that decided a check.</summary>
+/// <param name="Margin">How far inside the limit, in the compared unit: positive passes.</param>
+public sealed record CheckNumbers(string Op, double Actual, double Limit, double? Margin, Dim Dim, bool Percent)
+{
+    /// <summary>Margin over the size of the limit; null when the limit is zero or infinite.</summary>
+    public double? MarginRatio => Margin is { } m && Limit != 0 && double.IsFinite(Limit) && double.IsFinite(m) ? m / Math.Abs(Limit) : null;
+}
+
+/// <summary>A rule compiled once per run: its descriptor, effective level and parameters, and its compiled expressions.</summary>
+public sealed record CompiledRule(
+    RuleDescriptor Descriptor,
+    string SourceFile,
+    Level Level,
+    ImmutableArray<RuleParameter> Parameters,
+    double[] ParameterValues,
+    ImmutableArray<(string Name, Compiled Value)> Lets,
+    Compiled? When,
+    CheckNode Check,
+    string Subject,
+    string Message,
+    bool ForEachRange,
+    SourceSpan Span)
+{
+    public string Id => Descriptor.Id;
+}

@@ -1,0 +1,304 @@
+using System.Collections.Frozen;
+using NJsonSchema;
+using SettingLint.Core.Model;
+using SettingLint.Core.Quantities;
+using SettingLint.Core.Validation;
+
+namespace SettingLint.Core.Rules;
+
+/// <summary>A compiled expression: its static type and a closure over the evaluation context.</summary>
+public sealed record Compiled(ExprType Type, Func<EvalContext, Val> Eval, Expr Source)
+{
+    /// <summary>Display hint: the value is a fraction best shown in percent (not part of the type).</summary>
+    public bool Percent { get; init; }
+}
+
+/// <summary>What names a rule may use besides model paths: its parameters, its lets so far, and whether it runs per relay range.</summary>
+public sealed record Scope(FrozenDictionary<string, (int Index, ExprType Type, bool Percent)> Parameters, IReadOnlyDictionary<string, (int Index, ExprType Type, bool Percent)> Lets, bool HasItem);
+
+/// <summary>Type-checks expressions against the schemas and compiles them into closures; every error carries its offset.</summary>
+public sealed class Compiler(SchemaSet schemas)
+{
+    private readonly FrozenDictionary<string, ExprType> _motorPaths = PathTypes(schemas.Get(SchemaSet.MotorProtection));
+    private readonly FrozenDictionary<string, ExprType> _busPaths = PathTypes(schemas.Get(SchemaSet.Bus));
+    private readonly FrozenSet<string> _percentPaths = PercentPaths(schemas);
+
+    private static FrozenSet<string> PercentPaths(SchemaSet schemas) =>
+        SchemaFacts.Leaves(schemas.Get(SchemaSet.MotorProtection)).Where(l => SchemaFacts.DimensionToken(l.Schema) == "percent").Select(l => l.Path)
+            .Concat(SchemaFacts.Leaves(schemas.Get(SchemaSet.Bus)).Where(l => SchemaFacts.DimensionToken(l.Schema) == "percent").Select(l => "bus." + l.Path))
+            .ToFrozenSet(StringComparer.Ordinal);
+
+    /// <summary>Every path of the motor schema with its type (for docs and suggestions).</summary>
+    public IEnumerable<string> MotorPaths => _motorPaths.Keys;
+
+    private static FrozenDictionary<string, ExprType> PathTypes(JsonSchema schema)
+    {
+        var d = new Dictionary<string, ExprType>(StringComparer.Ordinal);
+        foreach (var (path, s) in SchemaFacts.Leaves(schema))
+        {
+            if (SchemaFacts.DimensionOf(s) is { } dim) d[path] = ExprType.Num(Dim.Of(dim));
+            else if (s.Type.HasFlag(JsonObjectType.Boolean)) d[path] = ExprType.Bool;
+            else if (s.Type.HasFlag(JsonObjectType.Number) || s.Type.HasFlag(JsonObjectType.Integer)) d[path] = ExprType.Num(Dim.None);
+            else d[path] = ExprType.Text;
+        }
+        return d.ToFrozenDictionary(StringComparer.Ordinal);
+    }
+
+    /// <summary>Compiles an expression in a scope.</summary>
+    public Compiled Compile(Expr e, Scope scope) => e switch
+    {
+        NumberLit n => new(ExprType.Num(n.Dim), _ => Val.Of(n.Value), e) { Percent = n.Percent },
+        TextLit t => new(ExprType.Text, _ => Val.Of(t.Value), e),
+        BoolLit b => new(ExprType.Bool, _ => Val.Of(b.Value), e),
+        PathRef p => CompilePath(p, scope),
+        Unary u => CompileUnary(u, scope),
+        Binary b => CompileBinary(b, scope),
+        Call c => CompileCall(c, scope),
+        _ => throw new RuleSyntaxException("Unknown expression.", e.Offset),
+    };
+
+    private Compiled CompilePath(PathRef p, Scope scope)
+    {
+        var path = p.Path;
+        if (path.StartsWith("param.", StringComparison.Ordinal))
+        {
+            var name = path["param.".Length..];
+            if (!scope.Parameters.TryGetValue(name, out var prm))
+            {
+                throw new RuleSyntaxException($"Unknown parameter '{name}'; the rule declares {List(scope.Parameters.Keys)}.", p.Offset);
+            }
+            var i = prm.Index;
+            return new(prm.Type, ctx => Val.Of(ctx.Parameters[i]), p) { Percent = prm.Percent };
+        }
+        if (path.StartsWith("item.", StringComparison.Ordinal))
+        {
+            if (!scope.HasItem) throw new RuleSyntaxException("'item' is only known in a rule with for_each.", p.Offset);
+            return path switch
+            {
+                "item.value" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Value, p),
+                "item.min" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Min, p),
+                "item.max" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Max, p),
+                "item.step" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Step, p),
+                "item.setting" => new(ExprType.Text, ctx => Val.Of(ctx.Item!.Setting), p),
+                _ => throw new RuleSyntaxException($"Unknown '{path}'; a relay range has item.value, item.min, item.max, item.step and item.setting.", p.Offset),
+            };
+        }
+        if (!path.Contains('.', StringComparison.Ordinal) && path != "tag")
+        {
+            if (!scope.Lets.TryGetValue(path, out var let))
+            {
+                throw new RuleSyntaxException($"Unknown name '{path}'; a path has dots (motor.full_load_current), and the lets defined before this are {List(scope.Lets.Keys)}.", p.Offset);
+            }
+            var i = let.Index;
+            return new(let.Type, ctx => ctx.Lets[i], p) { Percent = let.Percent };
+        }
+        if (path.StartsWith("bus.", StringComparison.Ordinal))
+        {
+            var busPath = path["bus.".Length..];
+            if (!_busPaths.TryGetValue(busPath, out var bt)) throw Unknown(p, busPath, _busPaths.Keys, "bus.");
+            return new(bt, ctx => Read(ctx.Motor.Bus?.Document, busPath), p) { Percent = _percentPaths.Contains(path) };
+        }
+        if (!_motorPaths.TryGetValue(path, out var mt)) throw Unknown(p, path, _motorPaths.Keys, "");
+        return new(mt, ctx => Read(ctx.Motor.Document, path), p) { Percent = _percentPaths.Contains(path) };
+    }
+
+    private static RuleSyntaxException Unknown(PathRef p, string path, IEnumerable<string> known, string prefix)
+    {
+        var near = Suggestions.Nearest(path, known);
+        return new RuleSyntaxException($"Unknown path '{prefix}{path}'" + (near is null ? "." : $"; did you mean '{prefix}{near}'?"), p.Offset);
+    }
+
+    private static string List(IEnumerable<string> names)
+    {
+        var l = names.OrderBy(n => n, StringComparer.Ordinal).ToList();
+        return l.Count == 0 ? "none" : string.Join(", ", l);
+    }
+
+    /// <summary>Reads a bound value as a rule sees it: SI number, flag or text; absent when missing.</summary>
+    public static Val Read(BoundDocument? doc, string path) => doc?[path] switch
+    {
+        MeasureValue m => Val.Of(m.Value),
+        FlagValue f => Val.Of(f.Value),
+        TextValue t => Val.Of(t.Value),
+        _ => Val.Absent,
+    };
+
+    private Compiled CompileUnary(Unary u, Scope scope)
+    {
+        var x = Compile(u.Operand, scope);
+        if (u.Op == "not")
+        {
+            if (x.Type.Kind != ValKind.Bool) throw new RuleSyntaxException($"'not' needs true/false, not {x.Type}.", u.Offset);
+            var f = x.Eval;
+            return new(ExprType.Bool, ctx => f(ctx) is { IsAbsent: false } v ? Val.Of(!v.Flag) : Val.Absent, u);
+        }
+        if (x.Type.Kind != ValKind.Number) throw new RuleSyntaxException($"'-' needs a number, not {x.Type}.", u.Offset);
+        var g = x.Eval;
+        return new(x.Type, ctx => g(ctx) is { IsAbsent: false } v ? Val.Of(-v.Number) : Val.Absent, u) { Percent = x.Percent };
+    }
+
+    private Compiled CompileBinary(Binary b, Scope scope)
+    {
+        var l = Compile(b.Left, scope);
+        var r = Compile(b.Right, scope);
+        var lf = l.Eval;
+        var rf = r.Eval;
+        switch (b.Op)
+        {
+            case "and" or "or":
+                if (l.Type.Kind != ValKind.Bool || r.Type.Kind != ValKind.Bool)
+                {
+                    throw new RuleSyntaxException($"'{b.Op}' joins true/false values, not {l.Type} and {r.Type}.", b.Offset);
+                }
+                return b.Op == "and"
+                    ? new(ExprType.Bool, ctx => And(lf(ctx), rf, ctx), b)
+                    : new(ExprType.Bool, ctx => Or(lf(ctx), rf, ctx), b);
+            case "+" or "-":
+                Numbers(l, r, b);
+                if (l.Type.Dim != r.Type.Dim) throw new RuleSyntaxException($"'{b.Op}' needs values of one dimension, not {l.Type} and {r.Type}.", b.Offset);
+                return b.Op == "+"
+                    ? new(l.Type, ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x + y), b) { Percent = l.Percent || r.Percent }
+                    : new(l.Type, ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x - y), b) { Percent = l.Percent || r.Percent };
+            case "*":
+                Numbers(l, r, b);
+                return new(ExprType.Num(l.Type.Dim * r.Type.Dim), ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x * y), b) { Percent = l.Percent ^ r.Percent && l.Type.Dim == Dim.None && r.Type.Dim == Dim.None };
+            case "/":
+                Numbers(l, r, b);
+                return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x / y), b);
+            default:
+                if (l.Type != r.Type) throw new RuleSyntaxException($"'{b.Op}' compares {l.Type} with {r.Type}.", b.Offset);
+                if (l.Type.Kind != ValKind.Number && b.Op is not ("==" or "!=")) throw new RuleSyntaxException($"'{b.Op}' compares numbers, not {l.Type}.", b.Offset);
+                var op = b.Op;
+                return new(ExprType.Bool, ctx => Compare(op, lf(ctx), rf(ctx)), b);
+        }
+    }
+
+    private static void Numbers(Compiled l, Compiled r, Binary b)
+    {
+        if (l.Type.Kind != ValKind.Number || r.Type.Kind != ValKind.Number)
+        {
+            throw new RuleSyntaxException($"'{b.Op}' needs numbers, not {l.Type} and {r.Type}.", b.Offset);
+        }
+    }
+
+    private static Val And(Val l, Func<EvalContext, Val> r, EvalContext ctx)
+    {
+        if (l is { IsAbsent: false, Flag: false }) return Val.Of(false);
+        var rv = r(ctx);
+        if (rv is { IsAbsent: false, Flag: false }) return Val.Of(false);
+        return l.IsAbsent || rv.IsAbsent ? Val.Absent : Val.Of(true);
+    }
+
+    private static Val Or(Val l, Func<EvalContext, Val> r, EvalContext ctx)
+    {
+        if (l is { IsAbsent: false, Flag: true }) return Val.Of(true);
+        var rv = r(ctx);
+        if (rv is { IsAbsent: false, Flag: true }) return Val.Of(true);
+        return l.IsAbsent || rv.IsAbsent ? Val.Absent : Val.Of(false);
+    }
+
+    private static Val Arith(Val l, Val r, Func<double, double, double> f) =>
+        l.IsAbsent || r.IsAbsent ? Val.Absent : Val.Of(f(l.Number, r.Number));
+
+    /// <summary>Compares two values; absent when either is.</summary>
+    public static Val Compare(string op, Val l, Val r)
+    {
+        if (l.IsAbsent || r.IsAbsent) return Val.Absent;
+        if (l.Kind != ValKind.Number)
+        {
+            var eq = l.Kind == ValKind.Bool ? l.Flag == r.Flag : string.Equals(l.Text, r.Text, StringComparison.Ordinal);
+            return Val.Of(op == "==" ? eq : !eq);
+        }
+        // Settings are compared to the precision they are written and converted with, so 1.7 x 400 A equals 680 A.
+        const double relative = 1e-9;
+        var x = l.Number;
+        var y = r.Number;
+        var close = Math.Abs(x - y) <= relative * Math.Max(Math.Abs(x), Math.Abs(y));
+        return Val.Of(op switch
+        {
+            "<" => x < y && !close,
+            "<=" => x <= y || close,
+            ">" => x > y && !close,
+            ">=" => x >= y || close,
+            "==" => close,
+            _ => !close,
+        });
+    }
+
+    private Compiled CompileCall(Call c, Scope scope)
+    {
+        if (c.Name is "others_max" or "others_min" or "others_count") return CompileAggregate(c, scope);
+        if (!Functions.All.TryGetValue(c.Name, out var fn))
+        {
+            var near = Suggestions.Nearest(c.Name, Functions.All.Keys.Concat(["others_max", "others_min", "others_count"]));
+            throw new RuleSyntaxException($"Unknown function '{c.Name}'" + (near is null ? "." : $"; did you mean '{near}'?"), c.Offset);
+        }
+        if (c.Args.Length < fn.MinArgs || c.Args.Length > fn.MaxArgs)
+        {
+            var want = fn.MinArgs == fn.MaxArgs ? fn.MinArgs.ToString(System.Globalization.CultureInfo.InvariantCulture)
+                : fn.MaxArgs == int.MaxValue ? "at least " + fn.MinArgs.ToString(System.Globalization.CultureInfo.InvariantCulture)
+                : fn.MinArgs.ToString(System.Globalization.CultureInfo.InvariantCulture) + " to " + fn.MaxArgs.ToString(System.Globalization.CultureInfo.InvariantCulture);
+            throw new RuleSyntaxException($"'{c.Name}' takes {want} arguments, not {c.Args.Length}.", c.Offset);
+        }
+        if (c.Name == "present" && c.Args[0] is not PathRef) throw new RuleSyntaxException("'present' takes a path.", c.Offset);
+        var args = c.Args.Select(a => Compile(a, scope)).ToArray();
+        ExprType type;
+        try
+        {
+            type = fn.Type(args.Select(a => a.Type).ToArray());
+        }
+        catch (ArgumentException ex)
+        {
+            throw new RuleSyntaxException($"'{c.Name}': {ex.Message}.", c.Offset);
+        }
+        var evals = args.Select(a => a.Eval).ToArray();
+        var percent = c.Name == "coverage" || (c.Name is "min" or "max" or "coalesce" or "abs" && args[0].Percent);
+        var body = fn.Body;
+        var takesAbsent = fn.TakesAbsent;
+        return new(type, ctx =>
+        {
+            var values = new Val[evals.Length];
+            for (var i = 0; i < evals.Length; i++)
+            {
+                values[i] = evals[i](ctx);
+                if (values[i].IsAbsent && !takesAbsent) return Val.Absent;
+            }
+            try
+            {
+                var v = body(values);
+                return v.Kind == ValKind.Number && double.IsNaN(v.Number) ? Val.Absent : v;
+            }
+            catch (ArgumentException)
+            {
+                // Data outside a method's domain (a zero time constant) is reported by the file checks, not by a crash here.
+                return Val.Absent;
+            }
+        }, c) { Percent = percent };
+    }
+
+    private Compiled CompileAggregate(Call c, Scope scope)
+    {
+        if (c.Name == "others_count")
+        {
+            if (c.Args.Length != 0) throw new RuleSyntaxException("'others_count' takes no arguments.", c.Offset);
+            return new(ExprType.Num(Dim.None), ctx => Val.Of(ctx.Index.OthersOnBus(ctx.Motor).Count()), c);
+        }
+        if (c.Args.Length != 1) throw new RuleSyntaxException($"'{c.Name}' takes one expression, evaluated for each other motor on the bus.", c.Offset);
+        // The inner expression sees another motor, so it may use paths and parameters but not this rule's lets.
+        var inner = Compile(c.Args[0], scope with { Lets = new Dictionary<string, (int, ExprType, bool)>() });
+        if (inner.Type.Kind != ValKind.Number) throw new RuleSyntaxException($"'{c.Name}' takes a number expression, not {inner.Type}.", c.Offset);
+        var f = inner.Eval;
+        var max = c.Name == "others_max";
+        return new(inner.Type, ctx =>
+        {
+            double? best = null;
+            foreach (var other in ctx.Index.OthersOnBus(ctx.Motor))
+            {
+                var v = f(ctx.For(other));
+                if (v.IsAbsent) continue;
+                best = best is null ? v.Number : max ? Math.Max(best.Value, v.Number) : Math.Min(best.Value, v.Number);
+            }
+            return best is null ? Val.Absent : Val.Of(best.Value);
+        }, c) { Percent = inner.Percent };
+    }
+}

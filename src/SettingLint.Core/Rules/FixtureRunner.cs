@@ -1,0 +1,108 @@
+using System.Collections.Immutable;
+using System.Text.RegularExpressions;
+using SettingLint.Core.Engine;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Validation;
+
+namespace SettingLint.Core.Rules;
+
+/// <summary>An expected or actual finding of a fixture: file, line, rule.</summary>
+public sealed record FixtureLine(string File, int Line, string RuleId)
+{
+    public override string ToString() => $"{File}:{Line}: {RuleId}";
+}
+
+/// <summary>The outcome of one rule's fixtures: what was expected and missed, what came unexpectedly, and what was wrong with the fixtures.</summary>
+public sealed record FixtureResult(string RuleId, string Folder, ImmutableArray<FixtureLine> Missed, ImmutableArray<FixtureLine> Unexpected, ImmutableArray<string> Problems, int Expected)
+{
+    public bool Passed => Missed.IsEmpty && Unexpected.IsEmpty && Problems.IsEmpty;
+}
+
+/// <summary>
+/// Runs rule fixtures. A `# expect: SL201 SL202` comment says those rules must fire on the next line;
+/// every other line of the folder's files must be clean for the folder's own rule.
+/// </summary>
+public static partial class FixtureRunner
+{
+    [GeneratedRegex(@"^\s*#\s*expect:\s*(?<ids>.*)$", RegexOptions.CultureInvariant)]
+    private static partial Regex Marker();
+
+    [GeneratedRegex(@"^SL[0-9]{3}$", RegexOptions.CultureInvariant)]
+    private static partial Regex RuleId();
+
+    /// <summary>Runs the fixtures of every rule folder under a folder (a pack, or one rule's folder).</summary>
+    public static (ImmutableArray<FixtureResult> Results, ImmutableArray<Notification> LoadProblems) Run(string folder, SchemaSet? schemas = null)
+    {
+        var s = schemas ?? SchemaSet.Shared;
+        var full = Path.GetFullPath(folder);
+        // The whole pack is loaded, so a marker may name any of its rules; a single rule folder loads the built-in pack beside it.
+        var packRoot = File.Exists(Path.Combine(full, "rule.yaml")) ? Path.GetDirectoryName(full)! : full;
+        var loaded = new RuleLoader(s).Load(RuleLoader.FromFolder(packRoot, packRoot));
+        if (!loaded.Problems.IsEmpty) return ([], loaded.Problems);
+        var known = loaded.Rules.Select(r => r.Id).Concat(EngineRules.All.Select(r => r.Id)).ToHashSet(StringComparer.Ordinal);
+        var ruleSet = new RuleSet(loaded.Rules);
+        var results = ImmutableArray.CreateBuilder<FixtureResult>();
+        var ruleFiles = Directory.EnumerateFiles(full, "rule.yaml", SearchOption.AllDirectories)
+            .Where(f => !f.Contains(Path.DirectorySeparatorChar + "fixtures" + Path.DirectorySeparatorChar, StringComparison.Ordinal))
+            .OrderBy(f => f, StringComparer.Ordinal);
+        foreach (var ruleFile in ruleFiles)
+        {
+            var dir = Path.GetDirectoryName(ruleFile)!;
+            var rule = loaded.Rules.FirstOrDefault(r => Path.GetFullPath(Path.Combine(packRoot, r.SourceFile)) == ruleFile);
+            if (rule is null) continue;
+            results.Add(RunOne(rule.Id, Path.Combine(dir, "fixtures"), ruleSet, known));
+        }
+        return (results.ToImmutable(), []);
+    }
+
+    private static FixtureResult RunOne(string ruleId, string fixtures, RuleSet rules, HashSet<string> known)
+    {
+        var problems = ImmutableArray.CreateBuilder<string>();
+        if (!Directory.Exists(fixtures))
+        {
+            problems.Add("The rule has no fixtures folder.");
+            return new FixtureResult(ruleId, fixtures, [], [], problems.ToImmutable(), 0);
+        }
+        var result = new Checker(rules).Run(new CheckOptions([fixtures], Level.Note, Root: fixtures, Parallel: false));
+        foreach (var n in result.Notifications) problems.Add((n.File is null ? "" : n.File + ": ") + n.Message);
+        var expected = new HashSet<FixtureLine>();
+        var files = Directory.EnumerateFiles(fixtures, "*.yaml", SearchOption.AllDirectories).OrderBy(f => f, StringComparer.Ordinal);
+        foreach (var file in files)
+        {
+            var rel = Discovery.RepositoryRoot.Relative(fixtures, file);
+            var lines = File.ReadAllLines(file);
+            for (var i = 0; i < lines.Length; i++)
+            {
+                var m = Marker().Match(lines[i]);
+                if (!m.Success) continue;
+                var target = i + 1;
+                while (target < lines.Length && Marker().IsMatch(lines[target])) target++;
+                foreach (var id in m.Groups["ids"].Value.Split([' ', ',', '\t'], StringSplitOptions.RemoveEmptyEntries))
+                {
+                    if (!RuleId().IsMatch(id) || !known.Contains(id))
+                    {
+                        problems.Add($"{rel}:{i + 1}: the marker names '{id}', which is not a known rule.");
+                        continue;
+                    }
+                    expected.Add(new FixtureLine(rel, target + 1, id));
+                }
+            }
+        }
+        var expectedIds = expected.Select(e => e.RuleId).Append(ruleId).ToHashSet(StringComparer.Ordinal);
+        var actual = result.Findings.Where(f => expectedIds.Contains(f.RuleId))
+            .Select(f => new FixtureLine(f.File, f.Span.StartLine, f.RuleId)).ToHashSet();
+        // Findings of other rules matter only where a marker names them.
+        actual.RemoveWhere(a => a.RuleId != ruleId && !expected.Contains(a));
+        if (!expected.Any(e => e.RuleId == ruleId)) problems.Add("No fixture expects the rule to fire (add a '# expect: " + ruleId + "' marker).");
+        var missed = expected.Except(actual).OrderBy(x => x.File, StringComparer.Ordinal).ThenBy(x => x.Line).ToImmutableArray();
+        var unexpected = actual.Except(expected).OrderBy(x => x.File, StringComparer.Ordinal).ThenBy(x => x.Line).ToImmutableArray();
+        if (result.Findings.Any(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal) && !expected.Any(e => e.RuleId == f.RuleId)))
+        {
+            foreach (var f in result.Findings.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)))
+            {
+                problems.Add($"{f.File}:{f.Span.StartLine}:{f.Span.StartColumn}: the fixture itself is not a valid setting file: {f.RuleId} {f.Message}");
+            }
+        }
+        return new FixtureResult(ruleId, fixtures, missed, unexpected, problems.ToImmutable(), expected.Count);
+    }
+}

@@ -1,0 +1,173 @@
+using System.Collections.Frozen;
+using SettingLint.Protection;
+
+namespace SettingLint.Core.Rules;
+
+/// <summary>One function of the closed table: its arity, how its result type follows from its arguments, and its body.</summary>
+/// <param name="Name">As written in rules.</param>
+/// <param name="MinArgs">Fewest arguments.</param>
+/// <param name="MaxArgs">Most arguments (int.MaxValue for variadic).</param>
+/// <param name="Type">Checks argument types and gives the result type, or throws with the problem.</param>
+/// <param name="Body">Computes the result from present arguments (absent arguments make the result absent, except for coalesce and present).</param>
+public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, Func<Val[], Val> Body, bool TakesAbsent = false);
+
+/// <summary>The closed, explicit table of functions a rule may call. Nothing else is reachable from a rule.</summary>
+public static class Functions
+{
+    public static FrozenDictionary<string, FunctionDef> All { get; } = Build().ToFrozenDictionary(f => f.Name, StringComparer.Ordinal);
+
+    private static IEnumerable<FunctionDef> Build()
+    {
+        yield return new("min", 1, int.MaxValue, SameNumbers, a => Val.Of(a.Min(v => v.Number)));
+        yield return new("max", 1, int.MaxValue, SameNumbers, a => Val.Of(a.Max(v => v.Number)));
+        yield return new("abs", 1, 1, t => Num(t[0], 0), a => Val.Of(Math.Abs(a[0].Number)));
+        yield return new("sqrt", 1, 1, t => Plain(t, "sqrt"), a => Val.Of(Math.Sqrt(a[0].Number)));
+        yield return new("ln", 1, 1, t => Plain(t, "ln"), a => Val.Of(Math.Log(a[0].Number)));
+        yield return new("exp", 1, 1, t => Plain(t, "exp"), a => Val.Of(Math.Exp(a[0].Number)));
+        yield return new("present", 1, 1, _ => ExprType.Bool, a => Val.Of(!a[0].IsAbsent), TakesAbsent: true);
+        yield return new("coalesce", 1, int.MaxValue, Same, a => a.FirstOrDefault(v => !v.IsAbsent), TakesAbsent: true);
+        yield return new("lrc_at", 3, 3, t => Expect(t, Dim.Current, Dim.Current, Dim.Voltage, Dim.Voltage),
+            a => Val.Of(LockedRotorCodes.ScaleToVoltage(a[0].Number, a[1].Number, a[2].Number)));
+        yield return new("code_letter_min", 3, 3, CodeLetterType, a => CodeLetter(a, upper: false));
+        yield return new("code_letter_max", 3, 3, CodeLetterType, a => CodeLetter(a, upper: true));
+        yield return new("nec_overload_limit", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].Number)));
+        yield return new("thermal_trip", 4, 4, t => Expect(t, Dim.Time, Dim.Current, Dim.Current, Dim.Time, Dim.None),
+            a => Val.Of(new ThermalModel(a[1].Number, a[2].Number, a[2].Number).TripTimeFrom(a[0].Number, a[3].Number).Seconds));
+        yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true);
+        yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
+            a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartProfile(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
+        yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
+        yield return new("ct_limit", 2, 2, CtLimitType, a => CClassRating.TryParse(a[0].Text, out var r) && r is not null ? Val.Of(r.MaximumSecondaryCurrent(a[1].Number)) : Val.Absent);
+        yield return new("ct_saturation", 5, 5, CtSaturationType, CtSaturationValue);
+        yield return new("coverage", 2, 2, t => Expect(t, Dim.None, Dim.Current, Dim.Current), a => Val.Of(GroundFaultCoverage.ProtectedPercent(a[0].Number, a[1].Number) / 100));
+        yield return new("asym_factor", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(AsymmetricalCurrent.DecayingRmsFactor(a[0].Number)));
+        yield return new("curve_time", 4, 4, CurveType, CurveTime);
+        yield return new("on_step", 3, 3, OnStepType, OnStep);
+    }
+
+    private static ExprType SameNumbers(ExprType[] t)
+    {
+        foreach (var x in t)
+        {
+            if (x.Kind != ValKind.Number) throw new ArgumentException("takes numbers, not " + x);
+            if (x.Dim != t[0].Dim) throw new ArgumentException($"takes values of one dimension, not {t[0]} and {x}");
+        }
+        return t[0];
+    }
+
+    private static ExprType Same(ExprType[] t)
+    {
+        foreach (var x in t)
+        {
+            if (x != t[0]) throw new ArgumentException($"takes values of one type, not {t[0]} and {x}");
+        }
+        return t[0];
+    }
+
+    private static ExprType Num(ExprType t, int index) =>
+        t.Kind == ValKind.Number ? t : throw new ArgumentException($"argument {index + 1} must be a number, not {t}");
+
+    private static ExprType Plain(ExprType[] t, string name) =>
+        t[0] is { Kind: ValKind.Number } x && x.Dim == Dim.None ? x : throw new ArgumentException($"{name} takes a plain number, not {t[0]}");
+
+    /// <summary>Checks numeric arguments against dimensions; the first dimension given is the result's.</summary>
+    private static ExprType Expect(ExprType[] t, Dim result, params Dim[] args)
+    {
+        for (var i = 0; i < t.Length && i < args.Length; i++)
+        {
+            if (t[i].Kind != ValKind.Number || t[i].Dim != args[i])
+            {
+                throw new ArgumentException($"argument {i + 1} must be {args[i]}, not {t[i]}");
+            }
+        }
+        return ExprType.Num(result);
+    }
+
+    private static ExprType CodeLetterType(ExprType[] t)
+    {
+        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a code letter (text), not " + t[0]);
+        if (t[1] != ExprType.Num(Dim.Of(Quantities.Dimension.Power))) throw new ArgumentException("argument 2 must be a power, not " + t[1]);
+        if (t[2] != ExprType.Num(Dim.Voltage)) throw new ArgumentException("argument 3 must be a voltage, not " + t[2]);
+        return ExprType.Num(Dim.Current);
+    }
+
+    private static Val CodeLetter(Val[] a, bool upper)
+    {
+        if (!LockedRotorCodes.TryParse(a[0].Text, out var letter)) return Val.Absent;
+        var range = LockedRotorCodes.LockedRotorCurrentRangeFromWatts(letter, a[1].Number, a[2].Number);
+        return Val.Of(upper ? range.Maximum : range.Minimum);
+    }
+
+    private static ExprType HotLevelType(ExprType[] t)
+    {
+        Expect(t.Take(2).ToArray(), Dim.None, Dim.Current, Dim.Current);
+        if (t.Length == 3 && t[2] != ExprType.Num(Dim.None)) throw new ArgumentException("argument 3 must be a fraction (full_load_level), not " + t[2]);
+        return ExprType.Num(Dim.None);
+    }
+
+    private static Val HotLevel(Val[] a)
+    {
+        if (a[0].IsAbsent || a[1].IsAbsent) return Val.Absent;
+        if (a.Length == 3 && !a[2].IsAbsent) return Val.Of(a[2].Number);
+        var r = a[0].Number / a[1].Number;
+        return Val.Of(r * r);
+    }
+
+    private static Val CoolingTime(Val[] a)
+    {
+        var t = new ThermalModel(1, 1, a[2].Number).CoolingTime(a[0].Number, a[1].Number);
+        return t is { } s ? Val.Of(s) : Val.Of(double.PositiveInfinity);
+    }
+
+    private static ExprType CtLimitType(ExprType[] t)
+    {
+        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a CT class such as C100, not " + t[0]);
+        if (t[1] != ExprType.Num(Dim.Of(Quantities.Dimension.Impedance))) throw new ArgumentException("argument 2 must be an impedance, not " + t[1]);
+        return ExprType.Num(Dim.Current);
+    }
+
+    private static ExprType CtSaturationType(ExprType[] t)
+    {
+        if (t[0] != ExprType.Num(Dim.None)) throw new ArgumentException("argument 1 must be X/R, a plain number, not " + t[0]);
+        if (t[1] != ExprType.Num(Dim.Current) || t[2] != ExprType.Num(Dim.Current)) throw new ArgumentException("arguments 2 and 3 must be currents (fault current, CT primary)");
+        if (t[3].Kind != ValKind.Text) throw new ArgumentException("argument 4 must be a CT class such as C100, not " + t[3]);
+        if (t[4] != ExprType.Num(Dim.Of(Quantities.Dimension.Impedance))) throw new ArgumentException("argument 5 must be an impedance, not " + t[4]);
+        return ExprType.Num(Dim.None);
+    }
+
+    private static Val CtSaturationValue(Val[] a)
+    {
+        if (!CClassRating.TryParse(a[3].Text, out var r) || r is null) return Val.Absent;
+        return Val.Of(r.CheckSaturation(a[0].Number, a[1].Number / a[2].Number, a[4].Number).Criterion);
+    }
+
+    private static ExprType CurveType(ExprType[] t)
+    {
+        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a curve token, not " + t[0]);
+        if (t[1] != ExprType.Num(Dim.Current)) throw new ArgumentException("argument 2 must be the pickup current, not " + t[1]);
+        if (t[2] != ExprType.Num(Dim.None)) throw new ArgumentException("argument 3 must be the time multiplier, a plain number, not " + t[2]);
+        if (t[3] != ExprType.Num(Dim.Current)) throw new ArgumentException("argument 4 must be a current, not " + t[3]);
+        return ExprType.Num(Dim.Time);
+    }
+
+    private static Val CurveTime(Val[] a)
+    {
+        if (!CurveTokens.TryParse(a[0].Text, out var kind)) return Val.Absent;
+        var t = InverseTimeCurves.OperateTime(kind, a[3].Number / a[1].Number, a[2].Number);
+        return Val.Of(t.Seconds);
+    }
+
+    private static ExprType OnStepType(ExprType[] t)
+    {
+        if (t[0].Kind != ValKind.Number || t[1] != t[0] || t[2] != t[0]) throw new ArgumentException("takes three numbers of one dimension");
+        return ExprType.Bool;
+    }
+
+    private static Val OnStep(Val[] a)
+    {
+        var step = a[2].Number;
+        if (step <= 0) return Val.Of(true);
+        var k = (a[0].Number - a[1].Number) / step;
+        return Val.Of(Math.Abs(k - Math.Round(k)) <= 1e-3);
+    }
+}

@@ -1,0 +1,163 @@
+using SettingLint.Core.Discovery;
+using SettingLint.Core.Engine;
+using SettingLint.Core.Findings;
+using SettingLint.Tests.Support;
+
+namespace SettingLint.Core.Tests;
+
+/// <summary>Finding the files to check: which are taken, in what order, and which links are refused.</summary>
+public sealed class DiscoveryTests
+{
+    private static string[] Relative(DiscoveryResult result) => [.. result.Files.Select(f => f.RelativePath)];
+
+    [Fact]
+    public void Hidden_and_build_folders_are_skipped_and_only_yaml_is_taken()
+    {
+        using var repo = new TempRepo();
+        repo.Write("motors/a.yaml", "kind: bus\n");
+        repo.Write("motors/b.yml", "kind: bus\n");
+        repo.Write("motors/c.YAML", "kind: bus\n");
+        repo.Write("motors/readme.md", "kind: bus\n");
+        repo.Write("motors/d.yaml.bak", "kind: bus\n");
+        repo.Write(".github/workflows/ci.yml", "on: push\n");
+        repo.Write(".git/config.yaml", "x: 1\n");
+        repo.Write("motors/.drafts/e.yaml", "kind: bus\n");
+        repo.Write("bin/f.yaml", "kind: bus\n");
+        repo.Write("obj/g.yaml", "kind: bus\n");
+        repo.Write("node_modules/pkg/h.yaml", "kind: bus\n");
+        repo.Write(".hidden-file.yaml", "x: 1\n"); // a hidden file (not folder) is still a YAML file
+        var result = FileDiscovery.Find(repo.Root, [repo.Root]);
+        Assert.Equal([".hidden-file.yaml", "motors/a.yaml", "motors/b.yml", "motors/c.YAML"], Relative(result));
+        Assert.Empty(result.Findings);
+        Assert.Empty(result.Missing);
+    }
+
+    // Common practice for CI tools: output order must not depend on the file system's enumeration order.
+    [Fact]
+    public void The_order_is_ordinal_by_relative_path_and_repeatable()
+    {
+        using var repo = new TempRepo();
+        string[] names = ["z.yaml", "a/z.yaml", "B.yaml", "a.yaml", "a-b/c.yaml", "a/b/c.yaml", "_x.yaml", "a0.yaml"];
+        foreach (var n in names) repo.Write(n, "kind: bus\n");
+        var first = Relative(FileDiscovery.Find(repo.Root, [repo.Root]));
+        Assert.Equal(names.Order(StringComparer.Ordinal), first);
+        Assert.Equal(first, Relative(FileDiscovery.Find(repo.Root, [repo.PathOf("a"), repo.Root, repo.PathOf("a/z.yaml")])));
+    }
+
+    [Fact]
+    public void An_explicit_file_and_a_missing_path()
+    {
+        using var repo = new TempRepo();
+        repo.Write("motors/a.yaml", "kind: bus\n");
+        repo.Write("motors/b.yaml", "kind: bus\n");
+        var missing = Path.Combine(repo.Root, "nope");
+        var result = FileDiscovery.Find(repo.Root, [repo.PathOf("motors/b.yaml"), missing]);
+        Assert.Equal(["motors/b.yaml"], Relative(result));
+        Assert.Equal([missing], result.Missing);
+    }
+
+    [Fact]
+    public void A_symlink_to_a_file_outside_the_root_is_SL007_and_not_taken()
+    {
+        using var repo = new TempRepo();
+        var outside = repo.WriteOutside("secret.yaml", "kind: bus\nformat: [\n");
+        Directory.CreateDirectory(repo.PathOf("buses"));
+        File.CreateSymbolicLink(repo.PathOf("buses/linked.yaml"), outside);
+        repo.Write("buses/own.yaml", Samples.Bus);
+        var result = FileDiscovery.Find(repo.Root, [repo.Root]);
+        Assert.Equal(["buses/own.yaml"], Relative(result));
+        var finding = Assert.Single(result.Findings);
+        Assert.Equal(EngineRules.Reference, finding.RuleId);
+        Assert.Equal("buses/linked.yaml", finding.File);
+        Assert.Equal(SettingLint.Core.Documents.SourceSpan.FileStart, finding.Span);
+        Assert.Contains("outside the repository", finding.Message, StringComparison.Ordinal);
+
+        // End to end: the target's syntax error would be SL001 if it were read.
+        var check = new Checker(EmptyRuleSet.Instance).Run(new CheckOptions([repo.Root]));
+        Assert.Equal([(EngineRules.Reference, "buses/linked.yaml")], check.Findings.Select(f => (f.RuleId, f.File)));
+    }
+
+    [Fact]
+    public void A_symlink_to_a_file_inside_the_root_is_taken()
+    {
+        using var repo = new TempRepo();
+        var target = repo.Write("buses/own.yaml", Samples.Bus);
+        File.CreateSymbolicLink(repo.PathOf("alias.yaml"), target);
+        var result = FileDiscovery.Find(repo.Root, [repo.Root]);
+        Assert.Equal(["alias.yaml", "buses/own.yaml"], Relative(result));
+        Assert.Empty(result.Findings);
+    }
+
+    [Fact]
+    public void A_dangling_symlink_is_SL007_and_says_so()
+    {
+        using var repo = new TempRepo();
+        File.CreateSymbolicLink(repo.PathOf("gone.yaml"), repo.PathOf("never-written.yaml"));
+        var result = FileDiscovery.Find(repo.Root, [repo.Root]);
+        Assert.Empty(result.Files);
+        var finding = Assert.Single(result.Findings);
+        Assert.Equal(EngineRules.Reference, finding.RuleId);
+        Assert.DoesNotContain("outside", finding.Message, StringComparison.Ordinal);
+        Assert.Contains("does not exist", finding.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_symlinked_folder_out_of_the_root_is_not_followed()
+    {
+        using var repo = new TempRepo();
+        repo.WriteOutside("elsewhere/motors/x.yaml", "kind: bus\n");
+        repo.Write("motors/own.yaml", "kind: bus\n");
+        Directory.CreateSymbolicLink(repo.PathOf("motors/external"), Path.Combine(repo.Outer, "elsewhere"));
+        var result = FileDiscovery.Find(repo.Root, [repo.Root]);
+        Assert.Equal(["motors/own.yaml"], Relative(result));
+        Assert.Empty(result.Findings);
+    }
+
+    [Fact]
+    public void A_symlinked_folder_that_loops_back_is_walked_once()
+    {
+        using var repo = new TempRepo();
+        repo.Write("a/x.yaml", "kind: bus\n");
+        Directory.CreateSymbolicLink(repo.PathOf("a/up"), repo.Root);
+        var result = FileDiscovery.Find(repo.Root, [repo.Root]);
+        Assert.Equal(["a/x.yaml"], Relative(result));
+    }
+
+    // setting-files contract: files whose YAML has no `kind` key are not setting files and are skipped;
+    // a .yaml file that cannot be parsed is never skipped silently.
+    [Fact]
+    public void Files_without_kind_are_skipped_but_unparsable_ones_are_not()
+    {
+        using var repo = new TempRepo();
+        Samples.WriteMinimal(repo);
+        repo.Write("notes/ci.yaml", "steps:\n  - run: build\n");
+        repo.Write("notes/list.yaml", "- a\n- b\n");
+        repo.Write("notes/empty.yaml", "");
+        repo.Write("notes/broken.yaml", "steps: [\n");
+        var result = new Checker(EmptyRuleSet.Instance).Run(new CheckOptions([repo.Root]));
+        Assert.Equal(3, result.FilesChecked); // bus, motor, and the broken file
+        var finding = Assert.Single(result.Findings);
+        Assert.Equal((EngineRules.Syntax, "notes/broken.yaml"), (finding.RuleId, finding.File));
+    }
+
+    [Fact]
+    public void The_root_is_the_nearest_folder_with_git()
+    {
+        using var repo = new TempRepo();
+        repo.Write("motors/deep/m.yaml", "kind: bus\n");
+        Assert.Equal(repo.Root, RepositoryRoot.Find(repo.PathOf("motors/deep/m.yaml")));
+        Assert.Equal(repo.Root, RepositoryRoot.Find(repo.PathOf("motors/deep")));
+        Assert.Equal(repo.Root, RepositoryRoot.Find(repo.Root + Path.DirectorySeparatorChar));
+        File.WriteAllText(Path.Combine(repo.PathOf("motors"), ".git"), "gitdir: elsewhere\n"); // a worktree's .git file
+        Assert.Equal(repo.PathOf("motors"), RepositoryRoot.Find(repo.PathOf("motors/deep/m.yaml")));
+    }
+
+    [Fact]
+    public void Containment_is_by_whole_path_segments()
+    {
+        Assert.True(RepositoryRoot.Contains("/r/repo", "/r/repo"));
+        Assert.True(RepositoryRoot.Contains("/r/repo/", "/r/repo/a.yaml"));
+        Assert.False(RepositoryRoot.Contains("/r/repo", "/r/repository/a.yaml"));
+        Assert.False(RepositoryRoot.Contains("/r/repo", "/r"));
+    }
+}
