@@ -22,7 +22,15 @@ public static class RulesCommand
         var dir = new Argument<string>("dir") { Description = "A rule pack folder or one rule's folder (default: rules).", Arity = ArgumentArity.ZeroOrOne, DefaultValueFactory = _ => "rules" };
         var test = new Command("test", "Run rule fixtures: '# expect: SLnnn' on the line before each expected finding.") { dir };
         test.SetAction(parse => Test(parse.GetValue(dir) ?? "rules", stdout, stderr));
+        var catalogue = new Command("catalogue", "Print the markdown catalogue of the rules in effect (rules/README.md).");
+        catalogue.SetAction(_ =>
+        {
+            if (Open(stderr) is not { } session) return ExitCodes.Usage;
+            stdout.Write(Catalogue.Render(session.Rules.Rules));
+            return ExitCodes.Clean;
+        });
         rules.Subcommands.Add(list);
+        rules.Subcommands.Add(catalogue);
         rules.Subcommands.Add(show);
         rules.Subcommands.Add(test);
         return rules;

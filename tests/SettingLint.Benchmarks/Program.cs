@@ -1,1 +1,190 @@
-Console.WriteLine("bench");
+// SettingLint benchmark harness: parse-only floor vs full check on generated repositories,
+// plus an optional one-file CLI start-up measurement. Plain Stopwatch, no BenchmarkDotNet.
+using System.Diagnostics;
+using System.Globalization;
+using SettingLint.Core.Engine;
+using YamlDotNet.RepresentationModel;
+using SettingLint.Benchmarks;
+
+CultureInfo.DefaultThreadCurrentCulture = CultureInfo.InvariantCulture;
+CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
+
+var sizes = new[] { 100, 1000, 10000 };
+string? cli = null;
+var rounds = 3;
+var keep = false;
+for (var i = 0; i < args.Length; i++)
+{
+    switch (args[i])
+    {
+        case "--sizes": sizes = args[++i].Split(',', StringSplitOptions.RemoveEmptyEntries).Select(int.Parse).ToArray(); break;
+        case "--cli": cli = args[++i]; break;
+        case "--rounds": rounds = int.Parse(args[++i]); break;
+        case "--keep": keep = true; break;
+        default: Console.Error.WriteLine($"unknown argument {args[i]}"); return 2;
+    }
+}
+
+Console.WriteLine($"SettingLint benchmarks  |  {Environment.ProcessorCount} logical CPUs, {RuntimeInformationText()}, Server GC={System.Runtime.GCSettings.IsServerGC}");
+Console.WriteLine($"rounds={rounds} (interleaved floor/check; median reported)");
+Console.WriteLine();
+
+// Warm-up on a tiny repository so JIT, schema compilation and rule loading are out of the first timed size.
+{
+    var warm = Generator.Write(20);
+    ParseFloor(warm);
+    _ = Session.Open([warm]).Check([warm], null);
+    Directory.Delete(warm, true);
+}
+
+var rows = new List<Row>();
+foreach (var n in sizes)
+{
+    var dir = Generator.Write(n);
+    var files = Directory.EnumerateFiles(dir, "*.yaml", SearchOption.AllDirectories).Count();
+    var floor = new List<double>();
+    var check = new List<double>();
+    long heapPeak = 0;
+    int findings = 0, checkedFiles = 0, exit = 0, notes = 0;
+    var gcBefore = GC.CollectionCount(0) + GC.CollectionCount(1) * 1000 + GC.CollectionCount(2) * 1000000;
+    for (var r = 0; r < rounds; r++)
+    {
+        GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
+        var sw = Stopwatch.StartNew();
+        ParseFloor(dir);
+        floor.Add(sw.Elapsed.TotalMilliseconds);
+
+        GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
+        using (var sampler = new HeapSampler())
+        {
+            sw.Restart();
+            var result = Session.Open([dir]).Check([dir], null);
+            check.Add(sw.Elapsed.TotalMilliseconds);
+            findings = result.Findings.Length;
+            checkedFiles = result.FilesChecked;
+            exit = result.ExitCode;
+            notes = result.Notifications.Length;
+            heapPeak = Math.Max(heapPeak, Math.Max(sampler.Peak, GC.GetGCMemoryInfo().HeapSizeBytes));
+            if (r == 0 && n == sizes[0]) PrintFindingSummary(result);
+        }
+    }
+    var row = new Row(n, files, checkedFiles, findings, notes, exit, Median(floor), Median(check), Process.GetCurrentProcess().PeakWorkingSet64, heapPeak, floor, check);
+    rows.Add(row);
+    Console.WriteLine($"N={n,6}: files={files} checked={checkedFiles} findings={findings} notifications={notes} exit={exit}  floor=[{string.Join(", ", floor.Select(x => x.ToString("F0")))}] ms  check=[{string.Join(", ", check.Select(x => x.ToString("F0")))}] ms");
+    if (!keep) Directory.Delete(dir, true); else Console.WriteLine($"   kept {dir}");
+}
+
+Console.WriteLine();
+Console.WriteLine("| motors | yaml files | floor ms (median) | check ms (median) | check/floor | check files/s | floor files/s | peak WS MB (process) | peak GC heap MB (check) | findings |");
+Console.WriteLine("|-------:|-----------:|------------------:|------------------:|------------:|--------------:|--------------:|---------------------:|------------------------:|---------:|");
+foreach (var r in rows)
+{
+    Console.WriteLine($"| {r.N,6} | {r.Files,10} | {r.Floor,17:F1} | {r.Check,17:F1} | {r.Check / r.Floor,11:F1}x | {r.Files / (r.Check / 1000),13:F0} | {r.Files / (r.Floor / 1000),13:F0} | {r.PeakWs / 1048576.0,20:F0} | {r.HeapPeak / 1048576.0,23:F0} | {r.Findings,8} |");
+}
+var k1 = rows.FirstOrDefault(r => r.N == 1000);
+var k10 = rows.FirstOrDefault(r => r.N == 10000);
+if (k1 is not null && k10 is not null)
+{
+    Console.WriteLine();
+    Console.WriteLine($"check 1k -> 10k time ratio: {k10.Check / k1.Check:F2}x (10x the motors; linear = 10x)   floor ratio: {k10.Floor / k1.Floor:F2}x");
+}
+Console.WriteLine("(peak WS is cumulative for the process: each row includes the sizes before it)");
+
+if (cli is not null) StartUp(cli);
+return 0;
+
+static void ParseFloor(string dir)
+{
+    var files = Directory.EnumerateFiles(dir, "*.yaml", SearchOption.AllDirectories).ToArray();
+    Parallel.ForEach(files, f =>
+    {
+        var text = File.ReadAllText(f);
+        new YamlStream().Load(new StringReader(text));
+    });
+}
+
+static double Median(List<double> xs)
+{
+    var s = xs.OrderBy(x => x).ToArray();
+    return s.Length % 2 == 1 ? s[s.Length / 2] : (s[s.Length / 2 - 1] + s[s.Length / 2]) / 2;
+}
+
+static string RuntimeInformationText() => System.Runtime.InteropServices.RuntimeInformation.FrameworkDescription;
+
+static void PrintFindingSummary(SettingLint.Core.Findings.CheckResult result)
+{
+    var byRule = result.Findings.GroupBy(f => (f.RuleId, f.Level)).OrderBy(g => g.Key.RuleId).Select(g => $"{g.Key.RuleId}/{g.Key.Level}:{g.Count()}");
+    Console.WriteLine("findings by rule on the smallest size (generated files are meant to be clean-ish): " + string.Join(" ", byRule));
+    foreach (var n in result.Notifications.Take(3)) Console.WriteLine("  notification: " + n.Message);
+}
+
+static void StartUp(string cli)
+{
+    Console.WriteLine();
+    var dir = Generator.Write(20);
+    var motor = Path.Combine(dir, "motors", "p-00001.yaml");
+    Console.WriteLine($"start-up, one motor file, 10 runs each ({cli}):");
+    Console.WriteLine("| command | median ms | min ms | max ms | exit |");
+    Console.WriteLine("|---|---:|---:|---:|---:|");
+    foreach (var (label, a) in new[] {
+        ("settinglint --version (lower bound, ~hello world)", new[] { "--version" }),
+        ("settinglint check <motor> (text)", new[] { "check", motor }),
+        ("settinglint check <motor> --format sarif", new[] { "check", motor, "--format", "sarif" }) })
+    {
+        var times = new List<double>();
+        var code = 0;
+        RunOnce(cli, a, dir); // warm the disk cache
+        for (var i = 0; i < 10; i++)
+        {
+            var sw = Stopwatch.StartNew();
+            code = RunOnce(cli, a, dir);
+            times.Add(sw.Elapsed.TotalMilliseconds);
+        }
+        Console.WriteLine($"| {label} | {Median(times):F0} | {times.Min():F0} | {times.Max():F0} | {code} |");
+    }
+    Directory.Delete(dir, true);
+}
+
+static int RunOnce(string exe, string[] a, string cwd)
+{
+    var psi = new ProcessStartInfo(exe) { RedirectStandardOutput = true, RedirectStandardError = true, WorkingDirectory = cwd, UseShellExecute = false };
+    foreach (var x in a) psi.ArgumentList.Add(x);
+    using var p = Process.Start(psi)!;
+    var o = p.StandardOutput.ReadToEndAsync();
+    var e = p.StandardError.ReadToEndAsync();
+    p.WaitForExit();
+    _ = o.Result; _ = e.Result;
+    return p.ExitCode;
+}
+
+sealed record Row(int N, int Files, int Checked, int Findings, int Notes, int Exit, double Floor, double Check, long PeakWs, long HeapPeak, List<double> Floors, List<double> Checks);
+
+/// <summary>Samples the GC heap every 5 ms while a check runs, to catch its peak.</summary>
+sealed class HeapSampler : IDisposable
+{
+    private readonly CancellationTokenSource _cts = new();
+    private readonly Thread _thread;
+    private long _peak;
+
+    public HeapSampler()
+    {
+        _thread = new Thread(() =>
+        {
+            while (!_cts.IsCancellationRequested)
+            {
+                var v = GC.GetTotalMemory(false);
+                if (v > Interlocked.Read(ref _peak)) Interlocked.Exchange(ref _peak, v);
+                Thread.Sleep(5);
+            }
+        }) { IsBackground = true, Priority = ThreadPriority.AboveNormal };
+        _thread.Start();
+    }
+
+    public long Peak => Math.Max(Interlocked.Read(ref _peak), GC.GetTotalMemory(false));
+
+    public void Dispose()
+    {
+        _cts.Cancel();
+        _thread.Join();
+    }
+}

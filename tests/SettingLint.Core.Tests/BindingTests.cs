@@ -42,7 +42,7 @@ public sealed class BindingTests
     private static (int Line, int Column) At(string text, string replacement, string value)
     {
         var (line, column) = Samples.Pos(text, replacement);
-        return (line, column + replacement.IndexOf(value, StringComparison.Ordinal));
+        return (line, column + replacement.LastIndexOf(value, StringComparison.Ordinal));
     }
 
     private static (string RuleId, int Line, int Column) Where(Finding f) => (f.RuleId, f.Span.StartLine, f.Span.StartColumn);
@@ -196,6 +196,18 @@ public sealed class BindingTests
         Assert.Equal("motor.full_load_current", missing.KeyPath);
         Assert.Contains("'full_load_current'", missing.Message, StringComparison.Ordinal);
         Assert.Contains("from motor", missing.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_missing_reference_is_reported_once_not_again_on_the_settings_that_need_it()
+    {
+        // FLC is the base of locked_rotor_current: 6.2 xFLC; without it only the SL004 is reported.
+        var (_, findings) = Bind(Samples.MotorWith("  full_load_current: 58 A\n", ""));
+        Assert.Equal([EngineRules.MissingKey], findings.Select(f => f.RuleId));
+        var noTransformers = Samples.MotorWith(
+            "transformers:\n  phase_ct: { primary: 75 A, secondary: 5 A, class: C50, burden: 0.3 ohm }\n  ground_ct: { connection: core-balance, primary: 50 A, secondary: 5 A }\n  vt: { primary: 4200 V, secondary: 120 V }\n", "");
+        var (_, second) = Bind(noTransformers);
+        Assert.Equal([("transformers", EngineRules.MissingKey)], second.Select(f => (f.KeyPath, f.RuleId)));
     }
 
     [Fact]
@@ -451,9 +463,79 @@ public sealed class BindingTests
     {
         using var repo = new TempRepo();
         var text = Samples.MotorWith("bus: ../buses/bus-1.yaml",
-            "bus:\n  tag: B-IN\n  nominal_voltage: 4160\n  fault_current_max: 28 kA\n  x_over_r: 15\n  grounding: solid");
+            "bus:\n  tag: B-IN\n  nominal_voltage: 4160 s\n  fault_current_max: 28 kA\n  x_over_r: 15\n  grounding: solid");
         repo.Write("motors/m-1.yaml", text);
         var finding = SingleFinding(Check(repo), EngineRules.Unit);
         Assert.Equal((EngineRules.Unit, 7, 20), Where(finding));
+        Assert.Equal("bus.nominal_voltage", finding.KeyPath); // the key path in the motor file, for fingerprints
+    }
+
+    [Fact]
+    public void An_inline_bus_with_a_bare_number_is_SL006_under_bus()
+    {
+        using var repo = new TempRepo();
+        repo.Write("motors/m-1.yaml", Samples.MotorWith("bus: ../buses/bus-1.yaml",
+            "bus:\n  tag: B-IN\n  nominal_voltage: 4160\n  fault_current_max: 28 kA\n  x_over_r: 15\n  grounding: solid"));
+        var finding = SingleFinding(Check(repo), EngineRules.Unit);
+        Assert.Equal((EngineRules.Unit, 7, 20), Where(finding));
+        Assert.Equal("bus.nominal_voltage", finding.KeyPath);
+    }
+
+    // Rule catalogue SL005: "value outside its domain (negative time, ratio 0, ...)".
+    [Theory]
+    [InlineData("secondary: 5 A, class", "secondary: 0 A, class", "0 A")]
+    [InlineData("primary: 75 A", "primary: 0 A", "0 A")]
+    [InlineData("vt: { primary: 4200 V, secondary: 120 V }", "vt: { primary: 4200 V, secondary: 0 V }", "0 V")]
+    public void A_zero_transformer_rating_is_SL005_at_the_value(string old, string replacement, string value)
+    {
+        var text = Samples.MotorWith(old, replacement);
+        var (_, findings) = Bind(text);
+        var (line, column) = At(text, replacement, value);
+        var finding = Assert.Single(findings); // and no second finding on the settings that convert through it
+        Assert.Equal((EngineRules.WrongType, line, column), Where(finding));
+        Assert.Contains("zero", finding.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("full_load_current: 58 A", "full_load_current: 0 A", "0 A")]
+    [InlineData("rated_voltage: 4000 V", "rated_voltage: 0 kV", "0 kV")]
+    public void A_zero_motor_base_is_SL005(string old, string replacement, string value)
+    {
+        var text = Samples.MotorWith(old, replacement);
+        var finding = Assert.Single(Bind(text).Findings);
+        var (line, column) = At(text, replacement, value);
+        Assert.Equal((EngineRules.WrongType, line, column), Where(finding));
+    }
+
+    [Fact]
+    public void A_zero_setting_is_allowed() =>
+        Assert.Equal(0, Si(BindClean(WithProtection("  short_circuit:\n    enabled: true\n    pickup: 7.2 A sec\n    delay: 0 s\n")), "protection.short_circuit.delay"));
+
+    [Theory]
+    [InlineData(".inf")]
+    [InlineData(".nan")]
+    [InlineData("1e400")]
+    public void A_plain_number_that_is_not_finite_is_SL005(string value)
+    {
+        var text = Samples.MotorWith("service_factor: 1.15", "service_factor: " + value);
+        var finding = Assert.Single(Bind(text).Findings);
+        Assert.Equal((EngineRules.WrongType, 10, 19), Where(finding));
+    }
+
+    [Fact]
+    public void An_empty_value_is_SL005()
+    {
+        var text = Samples.MotorWith("title: Test pump", "title:");
+        var finding = Assert.Single(Bind(text).Findings);
+        Assert.Equal(EngineRules.WrongType, finding.RuleId);
+        Assert.Equal(4, finding.Span.StartLine);
+    }
+
+    [Fact]
+    public void A_bus_that_is_a_number_is_SL005()
+    {
+        var text = Samples.MotorWith("bus: ../buses/bus-1.yaml", "bus: 42");
+        var finding = Assert.Single(Bind(text).Findings);
+        Assert.Equal((EngineRules.WrongType, 5, 6), Where(finding));
     }
 }

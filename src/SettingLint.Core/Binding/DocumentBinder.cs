@@ -20,10 +20,13 @@ public sealed class DocumentBinder
     private readonly List<(string Path, YScalar Node, Quantity Quantity)> _relative = [];
     private readonly HashSet<string> _failed = new(StringComparer.Ordinal);
 
-    private DocumentBinder(FindingBuilder findings, SchemaSet schemas)
+    private readonly string _reportPrefix;
+
+    private DocumentBinder(FindingBuilder findings, SchemaSet schemas, string reportPrefix = "")
     {
         _findings = findings;
         _schemas = schemas;
+        _reportPrefix = reportPrefix;
     }
 
     /// <summary>Validates and binds a document of a known kind.</summary>
@@ -42,7 +45,7 @@ public sealed class DocumentBinder
     {
         var schema = schemas.Get(SchemaSet.Bus);
         SchemaValidator.Validate(busNode, schema, findings, "bus", new Dictionary<string, object> { ["kind"] = "bus", ["format"] = 1 });
-        var binder = new DocumentBinder(findings, schemas);
+        var binder = new DocumentBinder(findings, schemas, "bus");
         binder.Walk(busNode, schema, "", SchemaSet.Bus);
         return new BoundDocument(SchemaSet.Bus, path, relativePath, busNode, binder._values.ToFrozenDictionary(StringComparer.Ordinal));
     }
@@ -81,7 +84,7 @@ public sealed class DocumentBinder
             var parse = QuantityParser.Parse(node.Value, dimension, context);
             if (!parse.Ok)
             {
-                _findings.Add(EngineRules.Unit, node.Span, path, "{problem}", ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
+                _findings.Add(EngineRules.Unit, node.Span, Reported(path), "{problem}", ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
                 _failed.Add(path);
                 return;
             }
@@ -89,8 +92,15 @@ public sealed class DocumentBinder
             if (q.Number < 0)
             {
                 _failed.Add(path);
-                _findings.Add(EngineRules.WrongType, node.Span, path, "'{value}' is negative; a {dimension} here cannot be.",
+                _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is negative; a {dimension} here cannot be.",
                     ("value", node.Value), ("dimension", dimension.Token()));
+                return;
+            }
+            if (q.Number == 0 && IsBase(path))
+            {
+                _failed.Add(path);
+                _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is zero; it is the base of a ratio or of relative settings and must be above zero.",
+                    ("value", node.Value));
                 return;
             }
             if (q.Unit.Basis is UnitBasis.Absolute or UnitBasis.Primary)
@@ -112,7 +122,7 @@ public sealed class DocumentBinder
                 var n = CoreSchema.Number(node.Value) ?? double.NaN;
                 if (!double.IsFinite(n))
                 {
-                    _findings.Add(EngineRules.WrongType, node.Span, path, "'{value}' is not a finite number.", ("value", node.Value));
+                    _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is not a finite number.", ("value", node.Value));
                     return;
                 }
                 _values[path] = new MeasureValue(path, node.Span, n, Dimension.None, null, null);
@@ -124,6 +134,14 @@ public sealed class DocumentBinder
                 break;
         }
     }
+
+    // Transformer ratings and the motor's FLC and rated voltage: the bases of A sec, V sec, xCT, xFLC and %.
+    private static bool IsBase(string path) =>
+        path is "motor.full_load_current" or "motor.rated_voltage"
+        || (path.StartsWith("transformers.", StringComparison.Ordinal) && (path.EndsWith(".primary", StringComparison.Ordinal) || path.EndsWith(".secondary", StringComparison.Ordinal)));
+
+    // Finding key paths are the paths in the file; an inline bus is bound on its own but lives under `bus`.
+    private string Reported(string path) => _reportPrefix.Length == 0 ? path : _reportPrefix + "." + path;
 
     private void BindRange(YScalar key, YMapping range, string path)
     {
@@ -174,7 +192,7 @@ public sealed class DocumentBinder
             if (si is null)
             {
                 // A reference that is present but wrong has its own finding; a second one here would be noise.
-                if (_failed.Count > 0 && ReferencePaths(path, q.Unit.Basis, voltage).Any(_failed.Contains)) continue;
+                if (ReferencePaths(path, q.Unit.Basis, voltage).Any(p => _failed.Contains(p) || IsReportedMissing(p))) continue;
                 _findings.Add(EngineRules.Unit, node.Span, path, "'{value}' cannot be converted: {missing}.",
                     ("value", node.Value), ("missing", MissingReference(path, q.Unit.Basis, voltage)));
                 continue;
@@ -192,6 +210,10 @@ public sealed class DocumentBinder
             }
         }
     }
+
+    // A required reference that is absent already has its SL004 (on the key itself or on a mapping that holds it).
+    private bool IsReportedMissing(string path) =>
+        _findings.Findings.Any(f => f.RuleId == EngineRules.MissingKey && (f.KeyPath == path || path.StartsWith(f.KeyPath + ".", StringComparison.Ordinal)));
 
     /// <summary>The element a setting path belongs to (protection.ground_fault.pickup gives ground_fault).</summary>
     public static string ElementOf(string path)

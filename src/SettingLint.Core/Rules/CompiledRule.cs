@@ -55,7 +55,8 @@ public sealed record CompiledRule(
     string Subject,
     string Message,
     bool ForEachRange,
-    SourceSpan Span)
+    SourceSpan Span,
+    ImmutableArray<string> Basis)
 {
     public string Id => Descriptor.Id;
 }

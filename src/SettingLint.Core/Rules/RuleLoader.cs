@@ -154,7 +154,7 @@ public sealed class RuleLoader(SchemaSet schemas)
                 Help(Text("title"), Text("rationale"), basis, parameters, values), severity, tags);
             var level = ruleOverrides?.Level ?? severity;
             var subject = Text("subject");
-            return new CompiledRule(descriptor, source.DisplayPath, level, parameters.ToImmutable(), values, lets.ToImmutable(), when, check, subject, message, forEach, r.Find("id")!.Value.Span);
+            return new CompiledRule(descriptor, source.DisplayPath, level, parameters.ToImmutable(), values, lets.ToImmutable(), when, check, subject, message, forEach, r.Find("id")!.Value.Span, [.. basis]);
         }
         catch (RuleLoadException ex)
         {

@@ -1,0 +1,85 @@
+using System.Text.Json;
+using SettingLint.Core.Engine;
+using SettingLint.Core.Findings;
+using SettingLint.Reporting;
+using SettingLint.Tests.Shared;
+
+namespace SettingLint.Cli.Tests;
+
+/// <summary>The demo plant: its planted mistakes are found, its clean motors stay clean, and its SARIF is accepted as is.</summary>
+public sealed class DemoTests
+{
+    private static string RepoRoot()
+    {
+        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
+        {
+            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
+        }
+        throw new InvalidOperationException("SettingLint.sln not found above the test assembly.");
+    }
+
+    private static CheckResult Check()
+    {
+        var examples = Path.Combine(RepoRoot(), "examples");
+        return Session.Open([examples]).Check([examples], null);
+    }
+
+    [Fact]
+    public void Planted_mistakes_are_found_on_their_lines()
+    {
+        // The demo is the whole repository here, so paths are relative to the project root.
+        var found = Check().Findings.Select(f => (f.File, f.Span.StartLine, f.RuleId)).ToHashSet();
+        Assert.Contains(("examples/motors/p-202.yaml", 20, "SL102"), found); // hot stall time typed for the cold one
+        Assert.Contains(("examples/motors/p-202.yaml", 46, "SL201"), found); // secondary pickup keyed in as primary
+        Assert.Contains(("examples/motors/p-202.yaml", 46, "SL108"), found); // and so outside the relay's range
+        Assert.Contains(("examples/motors/b-401.yaml", 45, "SL302"), found); // ground CT changed, pickup not recalculated
+        Assert.Contains(("examples/motors/p-503.yaml", 65, "SL701"), found); // acceleration timer shorter than the soft start
+    }
+
+    [Fact]
+    public void Clean_motors_have_no_errors_or_warnings()
+    {
+        var result = Check();
+        foreach (var clean in (string[])["p-201", "p-301", "p-302", "p-501", "p-502"])
+        {
+            var bad = result.Findings.Where(f => f.File == $"examples/motors/{clean}.yaml" && f.Level >= Level.Warning).Select(f => $"{f.RuleId} {f.Span}: {f.Message}");
+            Assert.Empty(bad);
+        }
+        Assert.Equal(8, result.Motors.Length);
+        Assert.Equal(ExitCodes.Findings, result.ExitCode);
+    }
+
+    [Fact]
+    public void Demo_sarif_validates_against_the_sdk_schema_and_validator()
+    {
+        var result = Check();
+        var writer = new StringWriter();
+        new SarifReporter().Write(result, new ReportContext(RepoRoot(), false, false, ToolInfo.ForVersion("0.1.0")), writer);
+        var sarif = writer.ToString();
+        // Schema: Schemata/sarif-2.1.0.json shipped in the Sarif.Sdk 5.8.0 package (OASIS SARIF 2.1.0).
+        Assert.Empty(SarifValidation.SchemaErrors(sarif));
+        using var doc = JsonDocument.Parse(sarif);
+        foreach (var r in doc.RootElement.GetProperty("runs")[0].GetProperty("results").EnumerateArray())
+        {
+            var uri = r.GetProperty("locations")[0].GetProperty("physicalLocation").GetProperty("artifactLocation").GetProperty("uri").GetString()!;
+            Assert.False(Path.IsPathRooted(uri) || uri.Contains(':', StringComparison.Ordinal), "uri must be relative: " + uri);
+        }
+        var file = Path.Combine(Path.GetTempPath(), "settinglint-demo-" + Guid.NewGuid().ToString("N") + ".sarif");
+        File.WriteAllText(file, sarif);
+        try
+        {
+            if (SarifValidation.MultitoolPath() is null)
+            {
+                Assert.False(Environment.GetEnvironmentVariable("CI") == "true", "The SARIF multitool is required in CI (.ci/run installs it).");
+                return;
+            }
+            // The SARIF SDK's own validator with hosted code scanning's rules (npm @microsoft/sarif-multitool).
+            var (errors, output) = SarifValidation.RunMultitool(file);
+            Assert.True(errors == 0, output);
+        }
+        finally
+        {
+            File.Delete(file);
+        }
+    }
+}
