@@ -44,6 +44,9 @@ foreach (var n in sizes)
     var files = Directory.EnumerateFiles(dir, "*.yaml", SearchOption.AllDirectories).Count();
     var floor = new List<double>();
     var check = new List<double>();
+    var loader = new List<double>();
+    var open = new List<double>();
+    var cpu = new List<double>();
     long heapPeak = 0;
     int findings = 0, checkedFiles = 0, exit = 0, notes = 0;
     var gcBefore = GC.CollectionCount(0) + GC.CollectionCount(1) * 1000 + GC.CollectionCount(2) * 1000000;
@@ -55,11 +58,20 @@ foreach (var n in sizes)
         floor.Add(sw.Elapsed.TotalMilliseconds);
 
         GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
+        sw.Restart();
+        LoaderOnly(dir);
+        loader.Add(sw.Elapsed.TotalMilliseconds);
+
+        GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
         using (var sampler = new HeapSampler())
         {
+            var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
             sw.Restart();
-            var result = Session.Open([dir]).Check([dir], null);
+            var session = Session.Open([dir]);
+            open.Add(sw.Elapsed.TotalMilliseconds);
+            var result = session.Check([dir], null);
             check.Add(sw.Elapsed.TotalMilliseconds);
+            cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalMilliseconds / sw.Elapsed.TotalMilliseconds);
             findings = result.Findings.Length;
             checkedFiles = result.FilesChecked;
             exit = result.ExitCode;
@@ -71,6 +83,7 @@ foreach (var n in sizes)
     var row = new Row(n, files, checkedFiles, findings, notes, exit, Median(floor), Median(check), Process.GetCurrentProcess().PeakWorkingSet64, heapPeak, floor, check);
     rows.Add(row);
     Console.WriteLine($"N={n,6}: files={files} checked={checkedFiles} findings={findings} notifications={notes} exit={exit}  floor=[{string.Join(", ", floor.Select(x => x.ToString("F0")))}] ms  check=[{string.Join(", ", check.Select(x => x.ToString("F0")))}] ms");
+    Console.WriteLine($"           diagnostic: SettingLint YamlLoader.LoadFile only=[{string.Join(", ", loader.Select(x => x.ToString("F0")))}] ms (median {Median(loader):F0})  Session.Open part of check=[{string.Join(", ", open.Select(x => x.ToString("F0")))}] ms  check CPU/wall=[{string.Join(", ", cpu.Select(x => x.ToString("F2")))}] (max {Environment.ProcessorCount})");
     if (!keep) Directory.Delete(dir, true); else Console.WriteLine($"   kept {dir}");
 }
 
@@ -101,6 +114,12 @@ static void ParseFloor(string dir)
         var text = File.ReadAllText(f);
         new YamlStream().Load(new StringReader(text));
     });
+}
+
+static void LoaderOnly(string dir)
+{
+    var files = Directory.EnumerateFiles(dir, "*.yaml", SearchOption.AllDirectories).ToArray();
+    Parallel.ForEach(files, f => SettingLint.Core.Loading.YamlLoader.LoadFile(f, Path.GetRelativePath(dir, f), SettingLint.Core.Loading.LoadLimits.Default));
 }
 
 static double Median(List<double> xs)

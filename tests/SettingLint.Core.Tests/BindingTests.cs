@@ -329,6 +329,19 @@ public sealed class BindingTests
         Assert.Contains("not read", finding.Message, StringComparison.Ordinal);
     }
 
+    // Known bug in Engine/ReferenceResolver.cs (not ours to edit): it checks the path textually and only asks whether the
+    // file itself is a link, so a linked folder out of the root is read. The fix is to test RepositoryRoot.IsInside.
+    [Fact(Skip = "Engine bug: ReferenceResolver follows a symlinked folder out of the root; see the test report.")]
+    public void A_bus_reached_through_a_symlinked_folder_out_of_the_root_is_SL007()
+    {
+        using var repo = new TempRepo();
+        repo.WriteOutside("elsewhere/bus.yaml", Samples.Bus);
+        Samples.WriteMinimal(repo, motor: Samples.MotorWith("bus: ../buses/bus-1.yaml", "bus: ../linked/bus.yaml"));
+        Directory.CreateSymbolicLink(repo.PathOf("linked"), Path.Combine(repo.Outer, "elsewhere"));
+        var finding = SingleFinding(Check(repo), EngineRules.Reference);
+        Assert.Equal((EngineRules.Reference, 5, 6), Where(finding));
+    }
+
     [Fact]
     public void An_absolute_bus_path_is_SL007()
     {

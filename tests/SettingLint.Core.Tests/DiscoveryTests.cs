@@ -114,6 +114,36 @@ public sealed class DiscoveryTests
     }
 
     [Fact]
+    public void A_file_named_through_a_symlinked_folder_out_of_the_root_is_not_taken()
+    {
+        using var repo = new TempRepo();
+        repo.WriteOutside("elsewhere/x.yaml", "kind: bus\n");
+        Directory.CreateSymbolicLink(repo.PathOf("external"), Path.Combine(repo.Outer, "elsewhere"));
+        var explicitFile = FileDiscovery.Find(repo.Root, [repo.PathOf("external/x.yaml")]);
+        Assert.Empty(explicitFile.Files);
+        Assert.Equal(EngineRules.Reference, Assert.Single(explicitFile.Findings).RuleId);
+        var explicitFolder = FileDiscovery.Find(repo.Root, [repo.PathOf("external")]);
+        Assert.Empty(explicitFolder.Files);
+        Assert.Equal(EngineRules.Reference, Assert.Single(explicitFolder.Findings).RuleId);
+    }
+
+    [Fact]
+    public void IsInside_follows_links_below_the_root()
+    {
+        using var repo = new TempRepo();
+        repo.Write("real/x.yaml", "kind: bus\n");
+        Directory.CreateDirectory(Path.Combine(repo.Outer, "elsewhere"));
+        Directory.CreateSymbolicLink(repo.PathOf("out"), Path.Combine(repo.Outer, "elsewhere"));
+        Directory.CreateSymbolicLink(repo.PathOf("in"), repo.PathOf("real"));
+        Assert.True(RepositoryRoot.IsInside(repo.Root, repo.PathOf("in/x.yaml")));
+        Assert.True(RepositoryRoot.IsInside(repo.Root, repo.PathOf("real/not-yet.yaml")));
+        Assert.True(RepositoryRoot.IsInside(repo.Root, repo.Root));
+        Assert.False(RepositoryRoot.IsInside(repo.Root, repo.PathOf("out/x.yaml")));
+        Assert.False(RepositoryRoot.IsInside(repo.Root, repo.PathOf("out")));
+        Assert.False(RepositoryRoot.IsInside(repo.Root, Path.Combine(repo.Outer, "elsewhere")));
+    }
+
+    [Fact]
     public void A_symlinked_folder_that_loops_back_is_walked_once()
     {
         using var repo = new TempRepo();

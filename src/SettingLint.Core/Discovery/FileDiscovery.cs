@@ -101,6 +101,16 @@ public static class FileDiscovery
                 return;
             }
         }
+        if (!RepositoryRoot.IsInside(root, Path.GetDirectoryName(full)!))
+        {
+            // Named through a linked folder that points out of the root.
+            var b = new FindingBuilder(rel);
+            b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
+                "This file lies in a folder that is a symbolic link to {target}, outside the repository root; it is not read.",
+                ("target", "a path outside the repository"));
+            findings.AddRange(b.Findings);
+            return;
+        }
         files.TryAdd(rel, new DiscoveredFile(full, rel));
     }
 }

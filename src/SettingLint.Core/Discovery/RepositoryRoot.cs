@@ -24,6 +24,43 @@ public static class RepositoryRoot
         return p == r || p.StartsWith(r + Path.DirectorySeparatorChar, StringComparison.Ordinal);
     }
 
+    /// <summary>
+    /// Whether a path lies inside the root and stays there when every symbolic link on the way below the root is
+    /// followed (a file named through a linked folder that points out of the root is outside). Components that do not
+    /// exist are taken as written.
+    /// </summary>
+    public static bool IsInside(string root, string fullPath)
+    {
+        if (!Contains(root, fullPath)) return false;
+        var r = Trim(root);
+        var current = r;
+        foreach (var part in Path.GetRelativePath(r, Trim(fullPath)).Split(Path.DirectorySeparatorChar, StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (part == ".") continue;
+            current = Path.Combine(current, part);
+            FileSystemInfo info = Directory.Exists(current) ? new DirectoryInfo(current) : new FileInfo(current);
+            if (info.LinkTarget is null) continue;
+            var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
+            if (target is null || !Contains(r, target)) return false;
+            current = Trim(target);
+        }
+        return true;
+    }
+
+    /// <summary>Whether a path inside the root reaches outside it through a symbolic link (of the file or of any folder on the way).</summary>
+    public static bool LeavesThroughLink(string root, string fullPath)
+    {
+        var r = Trim(root);
+        for (var p = Trim(fullPath); p.Length > r.Length && Contains(r, p); p = Path.GetDirectoryName(p) ?? r)
+        {
+            FileSystemInfo info = Directory.Exists(p) ? new DirectoryInfo(p) : new FileInfo(p);
+            if (info.LinkTarget is null) continue;
+            var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
+            if (target is null || !Contains(r, target)) return true;
+        }
+        return false;
+    }
+
     /// <summary>A path relative to the root with forward slashes.</summary>
     public static string Relative(string root, string fullPath) =>
         Path.GetRelativePath(root, fullPath).Replace('\\', '/');

@@ -33,15 +33,10 @@ internal sealed class ReferenceResolver<TState>(
             Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(root, full));
             return null;
         }
-        var info = new FileInfo(full);
-        if (info.LinkTarget is not null)
+        if (RepositoryRoot.LeavesThroughLink(root, full))
         {
-            var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
-            if (target is null || !RepositoryRoot.Contains(root, target))
-            {
-                Add(findings, reference, "'{path}' is a symbolic link out of the repository root; it is not followed.", text);
-                return null;
-            }
+            Add(findings, reference, "'{path}' leads out of the repository root through a symbolic link; it is not followed.", text);
+            return null;
         }
         var state = states.GetOrAdd(full, f => new Lazy<TState>(() => load(f, RepositoryRoot.Relative(root, f)))).Value;
         var doc = bound(state);
