@@ -329,9 +329,7 @@ public sealed class BindingTests
         Assert.Contains("not read", finding.Message, StringComparison.Ordinal);
     }
 
-    // Known bug in Engine/ReferenceResolver.cs (not ours to edit): it checks the path textually and only asks whether the
-    // file itself is a link, so a linked folder out of the root is read. The fix is to test RepositoryRoot.IsInside.
-    [Fact(Skip = "Engine bug: ReferenceResolver follows a symlinked folder out of the root; see the test report.")]
+    [Fact]
     public void A_bus_reached_through_a_symlinked_folder_out_of_the_root_is_SL007()
     {
         using var repo = new TempRepo();

@@ -1,0 +1,85 @@
+using System.Text;
+using CsCheck;
+using SettingLint.Core.Documents;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Loading;
+
+namespace SettingLint.Core.Tests;
+
+/// <summary>
+/// Random YAML-like text: the loader never throws (setting-files contract: "never a crash"), and every position it
+/// reports lies inside the file.
+/// </summary>
+public sealed class LoaderFuzzTests
+{
+    private const string Alphabet = "ab1.: -[]{},&*!|>'\"#?%@`\\~\n\n\n  \t\r\u00e9\u0000\u0085\u2028\uFEFF";
+
+    private static readonly Gen<string> Text =
+        Gen.Char[Alphabet].Array[0, 80].Select(chars => new string(chars));
+
+    private static readonly LoadLimits Tight = LoadLimits.Default with { MaxNodes = 50, MaxAliasExpansion = 20, MaxDepth = 6 };
+
+    private static void Within(LoadedFile file, string text, SourceSpan span)
+    {
+        var lines = text.Split('\n').Length + 1;
+        Assert.InRange(span.StartLine, 1, lines);
+        Assert.InRange(span.EndLine, span.StartLine, lines);
+        Assert.True(span.StartColumn >= 1, span.ToString());
+        _ = file;
+    }
+
+    [Fact]
+    public void The_loader_never_throws_and_positions_are_inside_the_file() =>
+        Text.Sample(text =>
+        {
+            foreach (var limits in (LoadLimits[])[LoadLimits.Default, Tight])
+            {
+                var file = YamlLoader.Load(Encoding.UTF8.GetBytes(text), "/r/f.yaml", "f.yaml", limits);
+                foreach (var f in file.Findings)
+                {
+                    Assert.StartsWith("SL00", f.RuleId, StringComparison.Ordinal);
+                    Within(file, text, f.Span);
+                    Assert.DoesNotContain("{", f.Message, StringComparison.Ordinal);
+                }
+                if (file.Root is { } root) Walk(root, n => Within(file, text, n.Span));
+                Assert.True(file.Root is not null || file.Findings.Count > 0 || IsBlank(text), "no tree and no finding");
+            }
+        }, iter: 3000);
+
+    [Fact]
+    public void Random_bytes_never_throw() =>
+        Gen.Byte.Array[0, 64].Sample(bytes =>
+        {
+            var file = YamlLoader.Load(bytes, "/r/f.yaml", "f.yaml", LoadLimits.Default);
+            Assert.All(file.Findings, f => Assert.True(f.RuleId is EngineRules.Syntax or EngineRules.DuplicateKey or EngineRules.WrongType or EngineRules.Limit, f.RuleId));
+        }, iter: 3000);
+
+    private static bool IsBlank(string text)
+    {
+        // Empty streams: only white space, comments and document markers.
+        foreach (var line in text.Replace("\r", "\n", StringComparison.Ordinal).Split('\n'))
+        {
+            var t = line.Trim(' ', '\t', '\uFEFF');
+            if (t.Length > 0 && !t.StartsWith('#')) return false;
+        }
+        return true;
+    }
+
+    private static void Walk(YNode node, Action<YNode> visit)
+    {
+        visit(node);
+        switch (node)
+        {
+            case YMapping m:
+                foreach (var e in m.Entries)
+                {
+                    visit(e.Key);
+                    Walk(e.Value, visit);
+                }
+                break;
+            case YSequence s:
+                foreach (var i in s.Items) Walk(i, visit);
+                break;
+        }
+    }
+}
