@@ -9,18 +9,9 @@ namespace SettingLint.Cli.Tests;
 /// <summary>The demo plant: its planted mistakes are found, its clean motors stay clean, and its SARIF is accepted as is.</summary>
 public sealed class DemoTests
 {
-    private static string RepoRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("SettingLint.sln not found above the test assembly.");
-    }
-
     private static CheckResult Check()
     {
-        var examples = Path.Combine(RepoRoot(), "examples");
+        var examples = Path.Combine(RepositoryPaths.Root(), "examples");
         return Session.Open([examples]).Check([examples], null);
     }
 
@@ -54,7 +45,7 @@ public sealed class DemoTests
     {
         var result = Check();
         var writer = new StringWriter();
-        new SarifReporter().Write(result, new ReportContext(RepoRoot(), false, false, ToolInfo.ForVersion("0.1.0")), writer);
+        new SarifReporter().Write(result, new ReportContext(RepositoryPaths.Root(), false, false, ToolInfo.ForVersion("0.1.0")), writer);
         var sarif = writer.ToString();
         // Schema: Schemata/sarif-2.1.0.json shipped in the Sarif.Sdk 5.8.0 package (OASIS SARIF 2.1.0).
         Assert.Empty(SarifValidation.SchemaErrors(sarif));

@@ -5,15 +5,6 @@ namespace SettingLint.Cli.Tests;
 /// <summary>The built-in pack: every rule loads, has basis, rationale and fixtures that pass, and the catalogue is current.</summary>
 public sealed class RulePackTests
 {
-    private static string RepoRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("SettingLint.sln not found above the test assembly.");
-    }
-
     [Fact]
     public void Built_in_pack_loads_without_problems()
     {
@@ -30,7 +21,7 @@ public sealed class RulePackTests
     [Fact]
     public void Every_rule_fixture_passes()
     {
-        var (results, problems) = FixtureRunner.Run(Path.Combine(RepoRoot(), "rules"));
+        var (results, problems) = FixtureRunner.Run(Path.Combine(RepositoryPaths.Root(), "rules"));
         Assert.Empty(problems.Select(p => $"{p.File}:{p.Span}: {p.Message}"));
         var failures = results.Where(r => !r.Passed)
             .Select(r => r.RuleId + ": " + string.Join("; ", r.Missed.Select(m => "missed " + m).Concat(r.Unexpected.Select(u => "unexpected " + u)).Concat(r.Problems)))
@@ -44,7 +35,7 @@ public sealed class RulePackTests
     {
         var rules = new RuleLoader(Core.Validation.SchemaSet.Shared).Load(RuleLoader.BuiltIn()).Rules;
         var expected = Catalogue.Render(rules);
-        var path = Path.Combine(RepoRoot(), "rules", "README.md");
+        var path = Path.Combine(RepositoryPaths.Root(), "rules", "README.md");
         Assert.True(File.Exists(path), "rules/README.md is missing: run `settinglint rules catalogue > rules/README.md`.");
         Assert.True(expected == File.ReadAllText(path), "rules/README.md is stale: run `dotnet run --project src/SettingLint.Cli -- rules catalogue > rules/README.md`.");
     }

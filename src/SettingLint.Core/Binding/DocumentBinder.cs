@@ -226,22 +226,9 @@ public sealed class DocumentBinder
     public static string CtOf(string element, string? groundConnection) =>
         element == "ground_fault" && groundConnection != "residual" ? "transformers.ground_ct" : "transformers.phase_ct";
 
-    private ConversionReferences References(string path, bool voltage)
-    {
-        double? Get(string p) => (_values.GetValueOrDefault(p) as MeasureValue)?.Value;
-        var flc = Get("motor.full_load_current");
-        var vr = Get("motor.rated_voltage");
-        if (voltage)
-        {
-            var vp = Get("transformers.vt.primary");
-            var vs = Get("transformers.vt.secondary");
-            return new ConversionReferences(vp is > 0 && vs is > 0 ? vp / vs : null, flc, null, vr);
-        }
-        var ct = CtOf(ElementOf(path), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
-        var cp = Get(ct + ".primary");
-        var cs = Get(ct + ".secondary");
-        return new ConversionReferences(cp is > 0 && cs is > 0 ? cp / cs : null, flc, cp is > 0 ? cp : null, vr);
-    }
+    private ConversionReferences References(string path, bool voltage) =>
+        SettingReferences.For(p => (_values.GetValueOrDefault(p) as MeasureValue)?.Value,
+            (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
 
     private IEnumerable<string> ReferencePaths(string path, UnitBasis basis, bool voltage)
     {

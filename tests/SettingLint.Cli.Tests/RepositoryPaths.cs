@@ -1,0 +1,14 @@
+namespace SettingLint.Cli.Tests;
+
+/// <summary>Where this source tree is, found from the test assembly upward.</summary>
+internal static class RepositoryPaths
+{
+    public static string Root()
+    {
+        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
+        {
+            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
+        }
+        throw new InvalidOperationException("SettingLint.sln not found above the test assembly.");
+    }
+}
