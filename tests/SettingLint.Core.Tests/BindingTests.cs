@@ -61,7 +61,7 @@ public sealed class BindingTests
         Assert.Equal(7.2, Assert.IsType<MeasureValue>(doc["protection.short_circuit.pickup"]).Secondary!.Value, 9);
         Assert.Equal(1.15, Si(doc, "motor.service_factor"));
         Assert.Equal("M-1", doc.Tag);
-        Assert.Equal("../buses/bus-1.yaml", doc.Text("transformers") ?? doc.Text("bus"));
+        Assert.Equal("../buses/bus-1.yaml", doc.Text("bus"));
         Assert.True(doc.Flag("protection.short_circuit.enabled"));
     }
 
@@ -548,5 +548,31 @@ public sealed class BindingTests
         var text = Samples.MotorWith("bus: ../buses/bus-1.yaml", "bus: 42");
         var finding = Assert.Single(Bind(text).Findings);
         Assert.Equal((EngineRules.WrongType, 5, 6), Where(finding));
+    }
+}
+
+/// <summary>The validator's messages for bounds, against small schemas written here (JSON Schema draft-07 §6.2).</summary>
+public sealed class SchemaBoundTests
+{
+    private static Finding Validate(string schemaJson, string yaml)
+    {
+        var schema = NJsonSchema.JsonSchema.FromJsonAsync(schemaJson).GetAwaiter().GetResult();
+        var loaded = YamlLoader.Load(Encoding.UTF8.GetBytes(yaml), "/r/x.yaml", "x.yaml", LoadLimits.Default);
+        var findings = new FindingBuilder("x.yaml");
+        SchemaValidator.Validate(Assert.IsType<YMapping>(loaded.Root), schema, findings);
+        return Assert.Single(findings.Findings);
+    }
+
+    [Theory]
+    [InlineData("\"minimum\": 1", "0", "(at least 1)")]
+    [InlineData("\"exclusiveMinimum\": 1", "1", "(must be above 1)")]
+    [InlineData("\"maximum\": 5", "6", "(at most 5)")]
+    [InlineData("\"exclusiveMaximum\": 5", "5", "(must be below 5)")]
+    public void A_bound_is_named_the_right_way_round(string bound, string value, string says)
+    {
+        var finding = Validate("{\"type\":\"object\",\"properties\":{\"n\":{\"type\":\"number\"," + bound + "}}}", "n: " + value + "\n");
+        Assert.Equal(EngineRules.WrongType, finding.RuleId);
+        Assert.Equal(new SourceSpan(1, 4, 1, 4 + value.Length), finding.Span);
+        Assert.Contains(says, finding.Message, StringComparison.Ordinal);
     }
 }

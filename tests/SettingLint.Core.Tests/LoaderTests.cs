@@ -62,10 +62,21 @@ public sealed class LoaderTests
         var list = Assert.IsType<YSequence>(Entry(file, "list").Value);
         Assert.Equal(new SourceSpan(6, 8, 6, 9), list.Items[0].Span);
         Assert.Equal(new SourceSpan(6, 11, 6, 13), list.Items[1].Span);
+        Assert.Equal(new SourceSpan(6, 7, 6, 14), list.Span); // a flow collection ends after its closing bracket
         var upstream = Assert.IsType<YMapping>(Entry(file, "upstream").Value);
         Assert.Equal(4, upstream.Span.StartLine);
         Assert.Equal(3, upstream.Span.StartColumn);
-        Assert.Equal(5, upstream.Span.EndLine);
+        Assert.Equal(new SourceSpan(4, 3, 5, 17), upstream.Span); // a block collection ends with its last child
+        Assert.Equal(new SourceSpan(1, 1, 6, 14), file.Root!.Span);
+    }
+
+    [Fact]
+    public void Flow_mappings_and_empty_collections_span_their_brackets()
+    {
+        var file = Load("a: { k: v }\nb: []\nc: {}\n");
+        Assert.Equal(new SourceSpan(1, 4, 1, 12), Entry(file, "a").Value.Span);
+        Assert.Equal(new SourceSpan(2, 4, 2, 6), Entry(file, "b").Value.Span);
+        Assert.Equal(new SourceSpan(3, 4, 3, 6), Entry(file, "c").Value.Span);
     }
 
     [Fact]
@@ -102,6 +113,19 @@ public sealed class LoaderTests
         Assert.DoesNotContain(crlf.Lines, l => l.Contains('\r', StringComparison.Ordinal));
     }
 
+    // YAML 1.2.2 spec 5.4: a lone CR (old Mac line ends) is a line break too; Lines must agree with the parser's lines.
+    [Fact]
+    public void A_CR_only_file_has_the_same_spans_and_lines_as_the_LF_file()
+    {
+        var lf = Load(Samples.Motor);
+        var cr = Load(Samples.Motor.Replace('\n', '\r'));
+        Assert.Empty(cr.Findings);
+        Assert.Equal(Spans(lf.Root!), Spans(cr.Root!));
+        Assert.Equal(lf.Lines, cr.Lines);
+        var bad = Load([.. "a: 1\rb: 2\rc: "u8, 0xFF]);
+        Assert.Equal(SourceSpan.At(3, 4), Single(bad, EngineRules.Syntax).Span);
+    }
+
     // YAML 1.2.2 spec 5.2: a byte order mark may start the stream; it is not content and takes no column.
     [Fact]
     public void A_UTF8_byte_order_mark_is_accepted_and_takes_no_column()
@@ -129,6 +153,40 @@ public sealed class LoaderTests
         Assert.Contains("not valid UTF-8", finding.Message, StringComparison.Ordinal);
         Assert.Null(file.Root);
         Assert.True(file.Failed);
+    }
+
+    // YAML 1.2.2 spec 5.1: only c-printable characters may appear. YamlDotNet reads a NUL as the end of the stream,
+    // which would drop the rest of the file without a word.
+    [Theory]
+    [InlineData("kind: bus\n\0tag: [\n", 2, 1, "0000")]
+    [InlineData("kind: bus\ntag: B\u0007\n", 2, 7, "0007")]
+    [InlineData("kind: bus\u007F\n", 1, 10, "007F")]
+    [InlineData("a: '\u0090'\n", 1, 5, "0090")]
+    [InlineData("a: \uFFFF\n", 1, 4, "FFFF")]
+    public void A_control_character_is_SL001_at_its_position(string text, int line, int column, string code)
+    {
+        var file = Load(text);
+        var finding = Single(file, EngineRules.Syntax);
+        Assert.Equal(SourceSpan.At(line, column), finding.Span);
+        Assert.Contains("U+" + code, finding.Message, StringComparison.Ordinal);
+        Assert.Null(file.Root);
+    }
+
+    [Theory]
+    [InlineData("a: \"tab\there\"\n")]
+    [InlineData("a: caf\u00e9 \u2013 \U0001F600\n")]
+    public void Printable_characters_are_fine(string text) => Assert.Empty(Load(text).Findings);
+
+    // YAML 1.2.2 spec 5.4: only LF and CR break lines; YamlDotNet also breaks at NEL, LS and PS (the YAML 1.1 set).
+    [Theory]
+    [InlineData("title: x\u0085y\n", "0085")]
+    [InlineData("title: x\u2028y\n", "2028")]
+    [InlineData("title: x\u2029y\n", "2029")]
+    public void YAML_1_1_line_breaks_are_SL001(string text, string code)
+    {
+        var finding = Single(Load(text), EngineRules.Syntax);
+        Assert.Equal(SourceSpan.At(1, 9), finding.Span);
+        Assert.Contains("U+" + code, finding.Message, StringComparison.Ordinal);
     }
 
     [Fact]

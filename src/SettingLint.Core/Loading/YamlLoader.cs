@@ -42,7 +42,7 @@ public static class YamlLoader
             return new LoadedFile(path, relativePath, null, findings.Findings, []);
         }
         var text = Decode(bytes, findings);
-        if (text is null) return new LoadedFile(path, relativePath, null, findings.Findings, []);
+        if (text is null || !Printable(text, findings)) return new LoadedFile(path, relativePath, null, findings.Findings, []);
         var lines = SplitLines(text);
         var root = new TreeBuilder(findings, limits).Build(text);
         return new LoadedFile(path, relativePath, root, findings.Findings, lines);
@@ -78,6 +78,30 @@ public static class YamlLoader
         }
     }
 
+    // YAML 1.2.2 spec 5.1 (c-printable): the parser would take a NUL for the end of the stream and drop the rest silently.
+    // NEL, LS and PS are printable in 1.2 (5.4) but the parser breaks lines at them as YAML 1.1 did: refused as well.
+    private static bool Printable(string text, FindingBuilder findings)
+    {
+        var line = 1;
+        var lineStart = 0;
+        for (var i = 0; i < text.Length; i++)
+        {
+            var c = text[i];
+            if (c == '\n' || (c == '\r' && (i + 1 == text.Length || text[i + 1] != '\n'))) { line++; lineStart = i + 1; continue; }
+            // Strict UTF-8 decoding leaves only paired surrogates (characters above U+FFFF), inside this range.
+            var lineBreak11 = c is '\u0085' or '\u2028' or '\u2029';
+            if (!lineBreak11 && c is '\t' or '\r' or (>= ' ' and <= '~') or (>= '\u00A0' and <= '\uFFFD')) continue;
+            var code = ((int)c).ToString("X4", System.Globalization.CultureInfo.InvariantCulture);
+            findings.Add(EngineRules.Syntax, SourceSpan.At(line, i - lineStart + 1), "",
+                lineBreak11
+                    ? "The file contains U+{code} at line {line}, column {column}: a line break in YAML 1.1 but not in 1.2, so tools would disagree on the lines; use a plain line feed."
+                    : "The file contains the control character U+{code} at line {line}, column {column}; YAML does not allow it.",
+                ("code", code), ("line", Num(line, "")), ("column", Num(i - lineStart + 1, "")));
+            return false;
+        }
+        return true;
+    }
+
     // The decoder's index is not always the first bad byte; find it by walking the UTF-8 structure.
     private static int FirstInvalidByte(byte[] b, int start)
     {
@@ -111,22 +135,24 @@ public static class YamlLoader
         var lineStart = start;
         for (var i = start; i < target && i < bytes.Length; i++)
         {
-            if (bytes[i] == (byte)'\n') { line++; lineStart = i + 1; }
+            var lineBreak = bytes[i] == (byte)'\n' || (bytes[i] == (byte)'\r' && (i + 1 >= bytes.Length || bytes[i + 1] != (byte)'\n'));
+            if (lineBreak) { line++; lineStart = i + 1; }
         }
         // Columns count UTF-16 code units of the valid text before the bad byte.
         var prefix = Encoding.UTF8.GetString(bytes, lineStart, Math.Max(0, target - lineStart));
         return (line, prefix.Length + 1);
     }
 
+    // YAML 1.2.2 spec 5.4: CR LF, LF and a lone CR each end a line; the parser counts lines so, and so must we.
     private static ImmutableArray<string> SplitLines(string text)
     {
         var lines = ImmutableArray.CreateBuilder<string>();
         var start = 0;
         for (var i = 0; i < text.Length; i++)
         {
-            if (text[i] == '\n')
+            if (text[i] == '\n' || (text[i] == '\r' && (i + 1 == text.Length || text[i + 1] != '\n')))
             {
-                var end = i > start && text[i - 1] == '\r' ? i - 1 : i;
+                var end = text[i] == '\n' && i > start && text[i - 1] == '\r' ? i - 1 : i;
                 lines.Add(text[start..end]);
                 start = i + 1;
             }
@@ -142,6 +168,7 @@ public static class YamlLoader
         {
             public required bool IsMapping;
             public required Mark Start;
+            public bool Flow;
             public string? Anchor;
             public readonly ImmutableArray<YEntry>.Builder Entries = ImmutableArray.CreateBuilder<YEntry>();
             public readonly ImmutableArray<YNode>.Builder Items = ImmutableArray.CreateBuilder<YNode>();
@@ -180,19 +207,23 @@ public static class YamlLoader
                             {
                                 findings.Add(EngineRules.WrongType, Span(ev.Start, ev.End), "",
                                     "A setting file holds one YAML document; a second one starts here and would be ignored.");
-                                return root;
+                                // The rest is not read into the tree, but it must still parse: a broken file is never passed silently.
+                                return DrainRest(parser) ? root : null;
                             }
                             break;
                         case MappingStart ms:
-                            if (!Open(true, ms.Start, ms.Anchor.IsEmpty ? null : ms.Anchor.Value)) return null;
+                            if (!Open(true, ms.Start, ms.Anchor.IsEmpty ? null : ms.Anchor.Value, ms.Style == MappingStyle.Flow)) return null;
                             break;
                         case SequenceStart ss:
-                            if (!Open(false, ss.Start, ss.Anchor.IsEmpty ? null : ss.Anchor.Value)) return null;
+                            if (!Open(false, ss.Start, ss.Anchor.IsEmpty ? null : ss.Anchor.Value, ss.Style == SequenceStyle.Flow)) return null;
                             break;
                         case MappingEnd or SequenceEnd:
                         {
                             var f = _stack.Pop();
-                            var end = f.LastEnd == default ? Span(f.Start, ev.End) : f.LastEnd;
+                            // A flow collection ends after its closing bracket (the end event's start is the bracket);
+                            // a block one with its last child (its end event stands at the next token).
+                            var end = f.Flow ? SourceSpan.At((int)ev.Start.Line, (int)ev.Start.Column + 1)
+                                : f.LastEnd == default ? Span(f.Start, ev.End) : f.LastEnd;
                             var span = new SourceSpan((int)f.Start.Line, (int)f.Start.Column, end.EndLine, end.EndColumn);
                             YNode node = f.IsMapping ? new YMapping(f.Entries.ToImmutable(), span) : new YSequence(f.Items.ToImmutable(), span);
                             if (f.Anchor is not null)
@@ -268,6 +299,28 @@ public static class YamlLoader
             return root;
         }
 
+        /// <summary>Parses the remaining events without keeping them, within the node limit; false after a syntax finding.</summary>
+        private bool DrainRest(Parser parser)
+        {
+            var depth = 0;
+            while (parser.MoveNext())
+            {
+                var ev = parser.Current!;
+                _lastMark = ev.Start;
+                if (ev is MappingStart or SequenceStart) depth++;
+                else if (ev is MappingEnd or SequenceEnd) depth--;
+                if (ev is Scalar or MappingStart or SequenceStart or AnchorAlias) _nodes++;
+                if (!CheckNodes(ev)) return false;
+                if (depth > limits.MaxDepth)
+                {
+                    findings.Add(EngineRules.Limit, Span(ev.Start, ev.End), "",
+                        "Nesting is deeper than {limit} levels; the file is not read further.", ("limit", Num(limits.MaxDepth, "")));
+                    return false;
+                }
+            }
+            return true;
+        }
+
         private static string Detail(YamlException ex)
         {
             var m = ex.Message;
@@ -286,7 +339,7 @@ public static class YamlLoader
             return false;
         }
 
-        private bool Open(bool mapping, Mark start, string? anchor)
+        private bool Open(bool mapping, Mark start, string? anchor, bool flow)
         {
             _nodes++;
             if (_nodes > limits.MaxNodes)
@@ -302,7 +355,7 @@ public static class YamlLoader
                 return false;
             }
             if (anchor is not null) _openAnchors.Add(anchor);
-            _stack.Push(new Frame { IsMapping = mapping, Start = start, Anchor = anchor });
+            _stack.Push(new Frame { IsMapping = mapping, Start = start, Anchor = anchor, Flow = flow });
             return true;
         }
 

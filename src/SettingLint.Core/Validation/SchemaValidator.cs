@@ -172,7 +172,7 @@ public static class SchemaValidator
         {
             ValidationErrorKind.NotInEnumeration => "must be one of " + string.Join(", ", (schema?.Enumeration ?? []).Select(v => Convert.ToString(v, CultureInfo.InvariantCulture))),
             ValidationErrorKind.NumberTooSmall => "is below its smallest allowed value" + Bound(schema?.Minimum ?? schema?.ExclusiveMinimum, schema?.IsExclusiveMinimum == true || schema?.ExclusiveMinimum is not null),
-            ValidationErrorKind.NumberTooBig => "is above its largest allowed value" + Bound(schema?.Maximum ?? schema?.ExclusiveMaximum, false),
+            ValidationErrorKind.NumberTooBig => "is above its largest allowed value" + Bound(schema?.Maximum ?? schema?.ExclusiveMaximum, schema?.IsExclusiveMaximum == true || schema?.ExclusiveMaximum is not null, upper: true),
             ValidationErrorKind.PatternMismatch => "does not have the expected form" + (schema?.Description is { Length: > 0 } d ? " (" + d + ")" : ""),
             ValidationErrorKind.StringTooShort => "must not be empty",
             ValidationErrorKind.TooFewItems => "needs more items",
@@ -181,8 +181,9 @@ public static class SchemaValidator
         findings.Add(EngineRules.WrongType, valueSpan, path, "'{key}' {detail}; it is {what}.", ("key", name), ("detail", detail), ("what", shown));
     }
 
-    private static string Bound(decimal? value, bool exclusive) =>
-        value is null ? "" : (exclusive ? " (must be above " : " (at least ") + value.Value.ToString(CultureInfo.InvariantCulture) + ")";
+    private static string Bound(decimal? value, bool exclusive, bool upper = false) =>
+        value is null ? "" : (upper ? (exclusive ? " (must be below " : " (at most ") : (exclusive ? " (must be above " : " (at least "))
+            + value.Value.ToString(CultureInfo.InvariantCulture) + ")";
 
     private static string ParentOf(string path)
     {
