@@ -28,6 +28,14 @@ public static class FileDiscovery
         {
             var full = Path.GetFullPath(p);
             if (File.Exists(full)) Consider(root, full, files, findings, included, explicitFile: true);
+            else if (Directory.Exists(full) && !RepositoryRoot.IsInside(root, full))
+            {
+                var b = new FindingBuilder(RepositoryRoot.Relative(root, full));
+                b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
+                    "This folder is (or lies in) a symbolic link to {target}, outside the repository root; it is not read.",
+                    ("target", "a path outside the repository"));
+                findings.AddRange(b.Findings);
+            }
             else if (Directory.Exists(full)) Walk(root, full, files, findings, included);
             else missing.Add(p);
         }
@@ -55,7 +63,7 @@ public static class FileDiscovery
                 if (entry is DirectoryInfo d)
                 {
                     if (d.Name.StartsWith('.') || d.Name is "bin" or "obj" or "node_modules") continue;
-                    if (d.LinkTarget is not null)
+                    if (d.Attributes.HasFlag(FileAttributes.ReparsePoint) && d.LinkTarget is not null)
                     {
                         var target = d.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
                         if (target is null || !RepositoryRoot.Contains(root, target)) continue; // a link out of the root is never followed
@@ -78,7 +86,7 @@ public static class FileDiscovery
         if (!RepositoryRoot.Contains(root, full)) return;
         if (included is not null && !included(rel)) return;
         var info = new FileInfo(full);
-        if (info.LinkTarget is not null)
+        if (info.Attributes.HasFlag(FileAttributes.ReparsePoint) && info.LinkTarget is not null)
         {
             var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
             var outside = target is null || !RepositoryRoot.Contains(root, target);
@@ -101,7 +109,8 @@ public static class FileDiscovery
                 return;
             }
         }
-        if (!RepositoryRoot.IsInside(root, Path.GetDirectoryName(full)!))
+        // A walked folder never leaves the root (links out are not followed); a named file may, through a linked folder.
+        if (explicitFile && !RepositoryRoot.IsInside(root, Path.GetDirectoryName(full)!))
         {
             // Named through a linked folder that points out of the root.
             var b = new FindingBuilder(rel);

@@ -39,26 +39,13 @@ public static class RepositoryRoot
             if (part == ".") continue;
             current = Path.Combine(current, part);
             FileSystemInfo info = Directory.Exists(current) ? new DirectoryInfo(current) : new FileInfo(current);
-            if (info.LinkTarget is null) continue;
+            // The attribute comes with the stat already made; only a link costs a readlink.
+            if (!info.Exists || !info.Attributes.HasFlag(FileAttributes.ReparsePoint) || info.LinkTarget is null) continue;
             var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
             if (target is null || !Contains(r, target)) return false;
             current = Trim(target);
         }
         return true;
-    }
-
-    /// <summary>Whether a path inside the root reaches outside it through a symbolic link (of the file or of any folder on the way).</summary>
-    public static bool LeavesThroughLink(string root, string fullPath)
-    {
-        var r = Trim(root);
-        for (var p = Trim(fullPath); p.Length > r.Length && Contains(r, p); p = Path.GetDirectoryName(p) ?? r)
-        {
-            FileSystemInfo info = Directory.Exists(p) ? new DirectoryInfo(p) : new FileInfo(p);
-            if (info.LinkTarget is null) continue;
-            var target = info.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
-            if (target is null || !Contains(r, target)) return true;
-        }
-        return false;
     }
 
     /// <summary>A path relative to the root with forward slashes.</summary>

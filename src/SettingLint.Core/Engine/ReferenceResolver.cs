@@ -12,6 +12,9 @@ internal sealed class ReferenceResolver<TState>(
     Func<TState, BoundDocument?> bound,
     Func<string, string, TState> load)
 {
+    // Hundreds of motors name the same bus: the file-system checks of a target are made once per run.
+    private readonly ConcurrentDictionary<string, string?> _targetProblems = new(StringComparer.Ordinal);
+
     /// <summary>The bound document a reference names, or null with an SL007 finding on the reference.</summary>
     public BoundDocument? Resolve(BoundDocument from, TextValue reference, string expectedKind, FindingBuilder findings)
     {
@@ -28,12 +31,16 @@ internal sealed class ReferenceResolver<TState>(
             Add(findings, reference, "'{path}' lies outside the repository root; it is not read.", text);
             return null;
         }
-        if (!File.Exists(full))
+        var problem = _targetProblems.GetOrAdd(full, f =>
+            !File.Exists(f) ? "missing"
+            : !RepositoryRoot.IsInside(root, f) ? "link"
+            : null);
+        if (problem == "missing")
         {
             Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(root, full));
             return null;
         }
-        if (RepositoryRoot.LeavesThroughLink(root, full))
+        if (problem == "link")
         {
             Add(findings, reference, "'{path}' leads out of the repository root through a symbolic link; it is not followed.", text);
             return null;

@@ -43,7 +43,7 @@ public static class YamlLoader
         }
         var text = Decode(bytes, findings);
         if (text is null || !Printable(text, findings)) return new LoadedFile(path, relativePath, null, findings.Findings, []);
-        var lines = SplitLines(text);
+        var lines = new LazyLines(text);
         var root = new TreeBuilder(findings, limits).Build(text);
         return new LoadedFile(path, relativePath, root, findings.Findings, lines);
     }
@@ -144,23 +144,6 @@ public static class YamlLoader
     }
 
     // YAML 1.2.2 spec 5.4: CR LF, LF and a lone CR each end a line; the parser counts lines so, and so must we.
-    private static ImmutableArray<string> SplitLines(string text)
-    {
-        var lines = ImmutableArray.CreateBuilder<string>();
-        var start = 0;
-        for (var i = 0; i < text.Length; i++)
-        {
-            if (text[i] == '\n' || (text[i] == '\r' && (i + 1 == text.Length || text[i + 1] != '\n')))
-            {
-                var end = text[i] == '\n' && i > start && text[i - 1] == '\r' ? i - 1 : i;
-                lines.Add(text[start..end]);
-                start = i + 1;
-            }
-        }
-        lines.Add(text[start..]);
-        return lines.ToImmutable();
-    }
-
     /// <summary>Builds the tree from parser events with an explicit stack, enforcing every limit as it goes.</summary>
     private sealed class TreeBuilder(FindingBuilder findings, LoadLimits limits)
     {
