@@ -17,32 +17,27 @@ public sealed record Compiled(ExprType Type, Func<EvalContext, Val> Eval, Expr S
 public sealed record Scope(FrozenDictionary<string, (int Index, ExprType Type, bool Percent)> Parameters, IReadOnlyDictionary<string, (int Index, ExprType Type, bool Percent)> Lets, bool HasItem);
 
 /// <summary>Type-checks expressions against the schemas and compiles them into closures; every error carries its offset.</summary>
-public sealed class Compiler(SchemaSet schemas)
+public sealed class Compiler
 {
-    private readonly FrozenDictionary<string, ExprType> _motorPaths = PathTypes(schemas.Get(SchemaSet.MotorProtection));
-    private readonly FrozenDictionary<string, ExprType> _busPaths = PathTypes(schemas.Get(SchemaSet.Bus));
-    private readonly FrozenSet<string> _percentPaths = PercentPaths(schemas);
-
-    private static FrozenSet<string> PercentPaths(SchemaSet schemas) =>
-        SchemaFacts.Leaves(schemas.Get(SchemaSet.MotorProtection)).Where(l => SchemaFacts.DimensionToken(l.Schema) == "percent").Select(l => l.Path)
-            .Concat(SchemaFacts.Leaves(schemas.Get(SchemaSet.Bus)).Where(l => SchemaFacts.DimensionToken(l.Schema) == "percent").Select(l => "bus." + l.Path))
+    // Read with System.Text.Json, so that compiling rules does not wait for the validating schemas.
+    private readonly FrozenDictionary<string, ExprType> _motorPaths = PathTypes(SchemaSet.MotorProtection);
+    private readonly FrozenDictionary<string, ExprType> _busPaths = PathTypes(SchemaSet.Bus);
+    private readonly FrozenSet<string> _percentPaths =
+        SchemaShapes.Leaves(SchemaSet.MotorProtection).Values.Where(l => l.Dimension == "percent").Select(l => l.Path)
+            .Concat(SchemaShapes.Leaves(SchemaSet.Bus).Values.Where(l => l.Dimension == "percent").Select(l => "bus." + l.Path))
             .ToFrozenSet(StringComparer.Ordinal);
 
     /// <summary>Every path of the motor schema with its type (for docs and suggestions).</summary>
     public IEnumerable<string> MotorPaths => _motorPaths.Keys;
 
-    private static FrozenDictionary<string, ExprType> PathTypes(JsonSchema schema)
-    {
-        var d = new Dictionary<string, ExprType>(StringComparer.Ordinal);
-        foreach (var (path, s) in SchemaFacts.Leaves(schema))
-        {
-            if (SchemaFacts.DimensionOf(s) is { } dim) d[path] = ExprType.Num(Dim.Of(dim));
-            else if (s.Type.HasFlag(JsonObjectType.Boolean)) d[path] = ExprType.Bool;
-            else if (s.Type.HasFlag(JsonObjectType.Number) || s.Type.HasFlag(JsonObjectType.Integer)) d[path] = ExprType.Num(Dim.None);
-            else d[path] = ExprType.Text;
-        }
-        return d.ToFrozenDictionary(StringComparer.Ordinal);
-    }
+    private static FrozenDictionary<string, ExprType> PathTypes(string schemaName) =>
+        SchemaShapes.Leaves(schemaName).Values.ToFrozenDictionary(
+            l => l.Path,
+            l => l.Dimension is { } d ? ExprType.Num(Dim.Of(Quantities.Dimensions.Parse(d) ?? Quantities.Dimension.None))
+                : l.Type == "boolean" ? ExprType.Bool
+                : l.Type == "number" ? ExprType.Num(Dim.None)
+                : ExprType.Text,
+            StringComparer.Ordinal);
 
     /// <summary>Compiles an expression in a scope.</summary>
     public Compiled Compile(Expr e, Scope scope) => e switch

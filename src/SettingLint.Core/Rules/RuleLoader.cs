@@ -10,7 +10,8 @@ using SettingLint.Core.Validation;
 namespace SettingLint.Core.Rules;
 
 /// <summary>A rule file to load: where it comes from (for messages) and its bytes.</summary>
-public sealed record RuleSource(string DisplayPath, byte[] Bytes);
+/// <param name="Trusted">Built into this assembly: validated against the rule schema by the build's tests, so not again at every start.</param>
+public sealed record RuleSource(string DisplayPath, byte[] Bytes, bool Trusted = false);
 
 /// <summary>The rules of a run, or the problems that stopped them loading (each with a file, line and column).</summary>
 public sealed record RuleLoadResult(ImmutableArray<CompiledRule> Rules, ImmutableArray<Notification> Problems);
@@ -18,7 +19,7 @@ public sealed record RuleLoadResult(ImmutableArray<CompiledRule> Rules, Immutabl
 /// <summary>Reads rule files, validates them with the rule schema, and type-checks and compiles their expressions.</summary>
 public sealed class RuleLoader(SchemaSet schemas)
 {
-    private readonly Compiler _compiler = new(schemas);
+    private readonly Compiler _compiler = new();
 
     /// <summary>The rule files of the built-in pack, embedded in this assembly.</summary>
     public static IReadOnlyList<RuleSource> BuiltIn()
@@ -32,7 +33,7 @@ public sealed class RuleLoader(SchemaSet schemas)
                 using var s = asm.GetManifestResourceStream(n)!;
                 using var ms = new MemoryStream();
                 s.CopyTo(ms);
-                return new RuleSource("builtin:" + n, ms.ToArray());
+                return new RuleSource("builtin:" + n, ms.ToArray(), Trusted: true);
             })
             .ToList();
     }
@@ -54,9 +55,19 @@ public sealed class RuleLoader(SchemaSet schemas)
         var rules = ImmutableArray.CreateBuilder<CompiledRule>();
         var problems = ImmutableArray.CreateBuilder<Notification>();
         var seen = new Dictionary<string, string>(StringComparer.Ordinal);
-        foreach (var source in sources)
+        // Each file compiles on its own; the results are taken in source order, so messages do not depend on threads.
+        var list = sources.ToList();
+        var compiled = new (CompiledRule? Rule, List<Notification> Problems)[list.Count];
+        Parallel.For(0, list.Count, i =>
         {
-            var rule = LoadOne(source, overrides, problems);
+            var own = ImmutableArray.CreateBuilder<Notification>();
+            compiled[i] = (LoadOne(list[i], own), [.. own]);
+        });
+        for (var i = 0; i < list.Count; i++)
+        {
+            var source = list[i];
+            problems.AddRange(compiled[i].Problems);
+            var rule = compiled[i].Rule;
             if (rule is null) continue;
             if (seen.TryGetValue(rule.Id, out var other))
             {
@@ -66,17 +77,53 @@ public sealed class RuleLoader(SchemaSet schemas)
             seen[rule.Id] = source.DisplayPath;
             rules.Add(rule);
         }
-        return new RuleLoadResult([.. rules.OrderBy(r => r.Id, StringComparer.Ordinal)], problems.ToImmutable());
+        var result = new RuleLoadResult([.. rules.OrderBy(r => r.Id, StringComparer.Ordinal)], problems.ToImmutable());
+        return overrides is null ? result : Configure(result, overrides);
     }
 
-    private CompiledRule? LoadOne(RuleSource source, RuleOverrides? overrides, ImmutableArray<Notification>.Builder problems)
+    /// <summary>Applies a repository's levels and parameter values to compiled rules; each bad override is a problem at its line.</summary>
+    public static RuleLoadResult Configure(RuleLoadResult compiled, RuleOverrides overrides)
+    {
+        var problems = compiled.Problems.ToBuilder();
+        var rules = ImmutableArray.CreateBuilder<CompiledRule>(compiled.Rules.Length);
+        foreach (var rule in compiled.Rules)
+        {
+            var o = overrides.For(rule.Id);
+            if (o is null)
+            {
+                rules.Add(rule);
+                continue;
+            }
+            var values = (double[])rule.ParameterValues.Clone();
+            try
+            {
+                foreach (var (name, (text, span, file)) in o.Parameters ?? new Dictionary<string, (string, SourceSpan, string)>())
+                {
+                    var p = rule.Parameters.FirstOrDefault(x => x.Name == name)
+                        ?? throw new RuleLoadException($"The rule {rule.Id} has no parameter '{name}'; it has {(rule.Parameters.IsEmpty ? "none" : string.Join(", ", rule.Parameters.Select(x => x.Name)))}.", span, file);
+                    var (v, d, _) = ParameterValue(text, span, file);
+                    if (d != p.Dim) throw new RuleLoadException($"The parameter {rule.Id}.{name} is {p.Dim}, but '{text}' is {d}.", span, file);
+                    values[p.Index] = v;
+                }
+            }
+            catch (RuleLoadException ex)
+            {
+                problems.Add(new Notification(NotificationKind.Configuration, rule.Id + ": " + ex.Message, ex.File ?? rule.SourceFile, ex.Span));
+                continue;
+            }
+            rules.Add(rule with { Level = o.Level ?? rule.Level, ParameterValues = values });
+        }
+        return new RuleLoadResult(rules.ToImmutable(), problems.ToImmutable());
+    }
+
+    private CompiledRule? LoadOne(RuleSource source, ImmutableArray<Notification>.Builder problems)
     {
         var loaded = YamlLoader.Load(source.Bytes, source.DisplayPath, source.DisplayPath, LoadLimits.Default);
         var findings = new FindingBuilder(source.DisplayPath);
         foreach (var f in loaded.Findings) findings.Add(f);
         if (loaded.Root is YMapping root)
         {
-            SchemaValidator.Validate(root, schemas.Get(SchemaSet.Rule), findings);
+            if (!source.Trusted) SchemaValidator.Validate(root, schemas.Get(SchemaSet.Rule), findings);
         }
         else if (!findings.HasAny)
         {
@@ -93,7 +140,6 @@ public sealed class RuleLoader(SchemaSet schemas)
         try
         {
             var parameters = ImmutableArray.CreateBuilder<RuleParameter>();
-            var ruleOverrides = overrides?.For(id);
             if (r["parameters"] is YMapping pm)
             {
                 foreach (var e in pm.Entries)
@@ -106,17 +152,6 @@ public sealed class RuleLoader(SchemaSet schemas)
                 }
             }
             var values = parameters.Select(p => p.Default).ToArray();
-            if (ruleOverrides?.Parameters is { } po)
-            {
-                foreach (var (name, (text, span, file)) in po)
-                {
-                    var p = parameters.FirstOrDefault(x => x.Name == name)
-                        ?? throw new RuleLoadException($"The rule {id} has no parameter '{name}'; it has {string.Join(", ", parameters.Select(x => x.Name))}.", span, file);
-                    var (v, d, _) = ParameterValue(text, span, file);
-                    if (d != p.Dim) throw new RuleLoadException($"The parameter {id}.{name} is {p.Dim}, but '{text}' is {d}.", span, file);
-                    values[p.Index] = v;
-                }
-            }
             var paramScope = parameters.ToFrozenDictionary(p => p.Name, p => (p.Index, ExprType.Num(p.Dim), p.Percent), StringComparer.Ordinal);
             var forEach = r["for_each"] is YScalar;
             var lets = ImmutableArray.CreateBuilder<(string, Compiled)>();
@@ -152,7 +187,7 @@ public sealed class RuleLoader(SchemaSet schemas)
             var severity = Levels.Parse(Text("severity")) ?? Level.Warning;
             var descriptor = new RuleDescriptor(id, NameOf(Text("title")), Text("title"), Text("summary"),
                 Help(Text("title"), Text("rationale"), basis, parameters, values), severity, tags);
-            var level = ruleOverrides?.Level ?? severity;
+            var level = severity;
             var subject = Text("subject");
             return new CompiledRule(descriptor, source.DisplayPath, level, parameters.ToImmutable(), values, lets.ToImmutable(), when, check, subject, message, forEach, r.Find("id")!.Value.Span, [.. basis]);
         }
