@@ -61,12 +61,13 @@ public sealed class LoaderFuzzTests
 
     private static bool IsBlank(string text)
     {
-        // Empty streams: only white space, comments and document markers.
+        // Empty streams: only white space, comments, directives and document end markers (YAML 1.2.2 spec 9.1).
         foreach (var line in text.Replace("\r", "\n", StringComparison.Ordinal).Split('\n'))
         {
             var t = line.Trim(' ', '\t', '\uFEFF');
             // YamlDotNet ignores a directive that no document follows (YAML 1.2.2 spec 6.8 would want `---` after it).
-            if (t.Length > 0 && !t.StartsWith('#') && !t.StartsWith('%')) return false;
+            var marker = t == "..." || t.StartsWith("... ", StringComparison.Ordinal) || t.StartsWith("...\t", StringComparison.Ordinal);
+            if (t.Length > 0 && !t.StartsWith('#') && !t.StartsWith('%') && !marker) return false;
         }
         return true;
     }
