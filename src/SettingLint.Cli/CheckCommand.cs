@@ -1,17 +1,40 @@
 using System.CommandLine;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Gate;
 using SettingLint.Reporting;
 
 namespace SettingLint.Cli;
 
 /// <summary>The options of `check`, parsed once.</summary>
 /// <param name="Paths">Files or folders to check.</param>
-/// <param name="Format">text, json or sarif.</param>
+/// <param name="Format">text, json, sarif or markdown.</param>
 /// <param name="Output">A file to write to instead of standard output.</param>
 /// <param name="FailOn">The gate's threshold.</param>
 /// <param name="Timestamps">Write start and end times into SARIF.</param>
-public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Format, string? Output, Level? FailOn, bool Timestamps, bool SarifOmitSuppressed);
+public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Format, string? Output, Level? FailOn, bool Timestamps, bool SarifOmitSuppressed)
+{
+    /// <summary>Ignore the acceptance comments (--no-suppress).</summary>
+    public bool NoSuppress { get; init; }
+
+    /// <summary>The baseline file (--baseline).</summary>
+    public string? Baseline { get; init; }
+
+    /// <summary>The git revision of a changed-files run (--changed-since).</summary>
+    public string? ChangedSince { get; init; }
+
+    /// <summary>Check the staged contents (--staged).</summary>
+    public bool Staged { get; init; }
+
+    /// <summary>With a revision, check every file (--all-files).</summary>
+    public bool AllFiles { get; init; }
+
+    /// <summary>A file to append the markdown summary to (--summary).</summary>
+    public string? Summary { get; init; }
+
+    /// <summary>The prefix of file links in markdown (--link-base).</summary>
+    public string? LinkBase { get; init; }
+}
 
 /// <summary>`settinglint check [PATH...]`.</summary>
 public static class CheckCommand
@@ -28,10 +51,17 @@ public static class CheckCommand
         var failOn = new Option<string?>("--fail-on") { Description = "Exit 1 when a finding is at or above this level: error (default, or the configuration's fail_on), warning, note, never." };
         failOn.AcceptOnlyFromAmong(FailOnValues);
         var timestamps = new Option<bool>("--timestamps") { Description = "Write the run's start and end times into SARIF (off, so that output is reproducible)." };
-        var omit = new Option<bool>("--sarif-omit-suppressed") { Description = "Leave suppressed findings out of the report (hosted code scanning ignores SARIF suppressions)." };
+        var omit = new Option<bool>("--sarif-omit-suppressed") { Description = "Leave suppressed findings and absent baseline entries out of the report (hosted code scanning ignores SARIF suppressions and baseline states)." };
+        var noSuppress = new Option<bool>("--no-suppress") { Description = "Ignore every '# settinglint-accept' comment, for audits: accepted findings count again." };
+        var baseline = new Option<string?>("--baseline") { Description = "Compare with this baseline file (written by 'settinglint baseline'): only findings not in it fail the run." };
+        var changedSince = new Option<string?>("--changed-since") { Description = "Check only the setting files changed since this git revision and the files that depend on them, and report changes that loosen the gate." };
+        var staged = new Option<bool>("--staged") { Description = "Check the contents staged for commit, against HEAD unless --changed-since names another revision (the pre-commit check)." };
+        var allFiles = new Option<bool>("--all-files") { Description = "With --changed-since or --staged: check every file, still reporting changes that loosen the gate." };
+        var summary = new Option<string?>("--summary") { Description = "Also append the markdown summary to this file (a CI job summary such as $GITHUB_STEP_SUMMARY)." };
+        var linkBase = new Option<string?>("--link-base") { Description = "Prefix of the file links in markdown, such as https://github.com/OWNER/REPO/blob/COMMIT/ (default: relative links)." };
         var command = new Command("check", "Check setting files and report findings; the exit code is the gate.")
         {
-            paths, format, output, failOn, timestamps, omit,
+            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase,
         };
         command.SetAction(parse =>
         {
@@ -48,7 +78,21 @@ public static class CheckCommand
                 parse.GetValue(output),
                 parse.GetValue(failOn) is { } fo ? ParseFailOn(fo) : null,
                 parse.GetValue(timestamps),
-                parse.GetValue(omit));
+                parse.GetValue(omit))
+            {
+                NoSuppress = parse.GetValue(noSuppress),
+                Baseline = parse.GetValue(baseline),
+                ChangedSince = parse.GetValue(changedSince),
+                Staged = parse.GetValue(staged),
+                AllFiles = parse.GetValue(allFiles),
+                Summary = parse.GetValue(summary),
+                LinkBase = parse.GetValue(linkBase),
+            };
+            if (options.AllFiles && options.ChangedSince is null && !options.Staged)
+            {
+                stderr.WriteLine("settinglint: --all-files goes with --changed-since or --staged.");
+                return ExitCodes.Usage;
+            }
             return Execute(options, stdout, stderr);
         });
         return command;
@@ -62,13 +106,14 @@ public static class CheckCommand
     {
         var started = DateTimeOffset.UtcNow;
         var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
-        var result = Session.Open(paths).Check(paths, options.FailOn);
+        var gate = new GateOptions(!options.NoSuppress, options.Baseline, options.ChangedSince, options.Staged, options.AllFiles);
+        var result = Session.Open(paths).Check(paths, options.FailOn, gate: gate);
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
             StartTimeUtc = options.Timestamps ? started : null,
             EndTimeUtc = options.Timestamps ? DateTimeOffset.UtcNow : null,
         };
-        var reporter = Reporters.For(options.Format);
+        var reporter = options.Format == "markdown" ? new MarkdownReporter { LinkBase = options.LinkBase } : Reporters.For(options.Format);
         if (options.Output is { } file)
         {
             var dir = Path.GetDirectoryName(Path.GetFullPath(file));
@@ -79,6 +124,14 @@ public static class CheckCommand
         else
         {
             reporter.Write(result, context, stdout);
+        }
+        if (options.Summary is { } summaryFile)
+        {
+            // Appended: a CI job summary file collects the output of every step.
+            var dir = Path.GetDirectoryName(Path.GetFullPath(summaryFile));
+            if (dir is not null) Directory.CreateDirectory(dir);
+            using var writer = new StreamWriter(summaryFile, append: true, new System.Text.UTF8Encoding(false));
+            new MarkdownReporter { LinkBase = options.LinkBase }.Write(result, context, writer);
         }
         return result.ExitCode;
     }

@@ -46,7 +46,10 @@ public static class CliApp
     {
         var root = new RootCommand("SettingLint: checks induction-motor protection settings against nameplate, datasheet, transformers, starter and bus.\n\n" + Caution);
         root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
+        root.Subcommands.Add(BaselineCommand.Create(stdout, stderr));
+        root.Subcommands.Add(HookCommand.Create(stdout, stderr));
         root.Subcommands.Add(RulesCommand.Create(stdout, stderr));
+        root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
         return root;
     }
 }

@@ -85,6 +85,51 @@ public sealed class JsonReporter : IReporter
         }
         json.WriteEndArray();
 
+        // Written only by runs that have them, so that the plain report keeps its shape.
+        if (result.BaselineFile is { } baseline) WriteBaseline(json, result, baseline);
+        if (result.Scope is { } scope) WriteScope(json, scope);
+
+        json.WriteEndObject();
+    }
+
+    private static void WriteBaseline(Utf8JsonWriter json, CheckResult result, string baseline)
+    {
+        json.WriteStartObject("baseline");
+        json.WriteString("file", baseline);
+        json.WriteNumber("new", result.Findings.Count(static f => f.BaselineState == BaselineState.New));
+        json.WriteNumber("unchanged", result.Findings.Count(static f => f.BaselineState == BaselineState.Unchanged));
+        json.WriteNumber("absent", result.Absent.Length);
+        json.WriteStartArray("absentEntries");
+        foreach (var absent in result.Absent)
+        {
+            json.WriteStartObject();
+            json.WriteString("ruleId", absent.RuleId);
+            json.WriteString("file", absent.File);
+            json.WriteString("keyPath", absent.KeyPath);
+            json.WriteString("fingerprint", absent.Fingerprint);
+            json.WriteString("message", absent.Message);
+            json.WriteNumber("baselineLine", absent.BaselineLine);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
+
+    private static void WriteScope(Utf8JsonWriter json, ChangeScope scope)
+    {
+        json.WriteStartObject("changes");
+        json.WriteString("revision", scope.Revision);
+        json.WriteBoolean("staged", scope.Staged);
+        void Array(string name, IEnumerable<string> items)
+        {
+            json.WriteStartArray(name);
+            foreach (var item in items) json.WriteStringValue(item);
+            json.WriteEndArray();
+        }
+        Array("changed", scope.Changed);
+        Array("deleted", scope.Deleted);
+        Array("dependants", scope.Dependants);
+        if (scope.EverythingBecause is { } why) json.WriteString("everythingBecause", why);
         json.WriteEndObject();
     }
 
@@ -113,6 +158,7 @@ public sealed class JsonReporter : IReporter
             json.WriteEndObject();
         }
         json.WriteEndObject();
+        if (finding.BaselineState is { } state) json.WriteString("baselineState", state == BaselineState.Unchanged ? "unchanged" : "new");
         if (finding.Suppression is { } suppression)
         {
             json.WriteStartObject("suppressed");

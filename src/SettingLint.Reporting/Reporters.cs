@@ -11,6 +11,7 @@ public static class Reporters
         ("text", static () => new TextReporter()),
         ("json", static () => new JsonReporter()),
         ("sarif", static () => new SarifReporter()),
+        ("markdown", static () => new MarkdownReporter()),
     ];
 
     /// <summary>The format names, in the order they are documented; "text" is the default.</summary>

@@ -2,6 +2,7 @@ using System.Globalization;
 using Microsoft.CodeAnalysis.Sarif;
 using Newtonsoft.Json;
 using SettingLint.Core.Findings;
+using SarifBaselineState = Microsoft.CodeAnalysis.Sarif.BaselineState;
 using SarifNotification = Microsoft.CodeAnalysis.Sarif.Notification;
 using SarifSuppression = Microsoft.CodeAnalysis.Sarif.Suppression;
 
@@ -59,6 +60,14 @@ public sealed class SarifReporter : IReporter
         {
             if (finding.Suppression is not null && context.OmitSuppressed) continue;
             results.Add(Result(finding, ruleIndex.TryGetValue(finding.RuleId, out var index) ? index : -1));
+        }
+        // Code scanning would show an absent result as an open alert, so the code-scanning option leaves them out too.
+        if (!context.OmitSuppressed && result.BaselineFile is { } baselineFile)
+        {
+            foreach (var absent in result.Absent)
+            {
+                results.Add(Absent(absent, baselineFile, ruleIndex.TryGetValue(absent.RuleId, out var index) ? index : -1));
+            }
         }
 
         var run = new Run
@@ -137,6 +146,11 @@ public sealed class SarifReporter : IReporter
             ];
         }
 
+        if (finding.BaselineState is { } state)
+        {
+            sarif.BaselineState = state == Core.Findings.BaselineState.Unchanged ? SarifBaselineState.Unchanged : SarifBaselineState.New;
+        }
+
         // The property bag keeps insertion order: keyPath first, then the values in their (ordinal) order.
         sarif.SetProperty("keyPath", finding.KeyPath);
         foreach (var (name, value) in finding.Values)
@@ -151,6 +165,35 @@ public sealed class SarifReporter : IReporter
             if (value.Unit is { } unit && value.Number is { } number && double.IsFinite(number)) units[name] = unit;
         }
         if (units.Count > 0) sarif.SetProperty(UnitsProperty, units);
+        return sarif;
+    }
+
+    // SARIF 2.1.0 3.27.24: a result of the baseline that this run no longer finds. It is placed on its baseline
+    // entry, the line to delete, with the setting file as a related location.
+    private static Result Absent(AbsentResult absent, string baselineFile, int ruleIndex)
+    {
+        var where = absent.KeyPath.Length == 0 ? absent.File : absent.File + " " + absent.KeyPath;
+        var text = "In the baseline but no longer found: " + absent.RuleId + " at " + where
+            + (absent.Message.Length > 0 ? " (" + absent.Message + ")" : "") + "; remove this entry from the baseline.";
+        var sarif = new Result
+        {
+            RuleId = absent.RuleId,
+            RuleIndex = ruleIndex,
+            Kind = ResultKind.Informational,
+            Level = FailureLevel.None,
+            Message = new Message { Text = text },
+            // A baseline outside the repository has no URI under the root: the setting file stands in.
+            Locations = [Path.IsPathRooted(baselineFile)
+                ? new Location { PhysicalLocation = new PhysicalLocation { ArtifactLocation = ArtifactLocation(absent.File) } }
+                : Location(baselineFile, Core.Documents.SourceSpan.At(absent.BaselineLine, 1))],
+            RelatedLocations = [new Location { Id = 1, PhysicalLocation = new PhysicalLocation { ArtifactLocation = ArtifactLocation(absent.File) } }],
+            PartialFingerprints = new Dictionary<string, string>(StringComparer.Ordinal)
+            {
+                [Fingerprints.Key] = absent.Fingerprint,
+            },
+            BaselineState = SarifBaselineState.Absent,
+        };
+        sarif.SetProperty("keyPath", absent.KeyPath);
         return sarif;
     }
 

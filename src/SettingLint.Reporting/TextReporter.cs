@@ -24,10 +24,47 @@ public sealed class TextReporter : IReporter
         foreach (var finding in result.Findings)
         {
             if (finding.Suppression is not null && context.OmitSuppressed) continue;
+            // With a baseline only what is new is listed: hundreds of accepted findings would hide it.
+            if (finding.BaselineState == BaselineState.Unchanged) continue;
             WriteLine(output, FindingLine(result, context, finding));
+        }
+        if (result.BaselineFile is { } baseline)
+        {
+            var baselinePath = ReportPaths.FromCurrentDirectory(result.RepositoryRoot, baseline, context.CurrentDirectory);
+            foreach (var absent in result.Absent)
+            {
+                var where = absent.KeyPath.Length == 0 ? absent.File : absent.File + " " + absent.KeyPath;
+                WriteLine(output, string.Create(CultureInfo.InvariantCulture,
+                    $"{baselinePath}:{absent.BaselineLine}:1: absent {absent.RuleId}: {where} is no longer found; remove this entry from the baseline."));
+            }
+        }
+        if (result.Scope is { } scope) WriteLine(output, ScopeLine(scope));
+        if (result.BaselineFile is { } file)
+        {
+            var fresh = result.Findings.Count(f => f.BaselineState == BaselineState.New);
+            var unchanged = result.Findings.Count(f => f.BaselineState == BaselineState.Unchanged);
+            var path = ReportPaths.FromCurrentDirectory(result.RepositoryRoot, file, context.CurrentDirectory);
+            WriteLine(output, string.Create(CultureInfo.InvariantCulture,
+                $"Baseline {path}: {fresh} new, {unchanged} unchanged (not listed), {result.Absent.Length} absent; only new findings can fail the run."));
         }
         WriteLine(output, ReportSummary.Of(result).ToSentence());
     }
+
+    /// <summary>The line that says what a changed-files run checked.</summary>
+    internal static string ScopeLine(ChangeScope scope)
+    {
+        ArgumentNullException.ThrowIfNull(scope);
+        var since = scope.Staged ? "Staged changes against " + scope.Revision : "Changed since " + scope.Revision;
+        var counts = string.Create(CultureInfo.InvariantCulture, $"{Plural(scope.Changed.Length, "file")} changed, {scope.Deleted.Length} deleted");
+        if (scope.EverythingBecause is { } why) return since + ": " + counts + "; every file checked: " + why + ".";
+        var dependants = scope.Dependants.IsEmpty
+            ? "no dependants"
+            : Plural(scope.Dependants.Length, "dependant") + " re-checked (" + string.Join(", ", scope.Dependants) + ")";
+        return since + ": " + counts + "; " + dependants + ".";
+    }
+
+    private static string Plural(int n, string noun) =>
+        n.ToString(CultureInfo.InvariantCulture) + " " + noun + (n == 1 ? "" : "s");
 
     /// <summary>The line of one finding.</summary>
     internal static string FindingLine(CheckResult result, ReportContext context, Finding finding)

@@ -6,15 +6,16 @@ public sealed class ReportersTests
     [InlineData("text", typeof(TextReporter))]
     [InlineData("json", typeof(JsonReporter))]
     [InlineData("sarif", typeof(SarifReporter))]
+    [InlineData("markdown", typeof(MarkdownReporter))]
     public void Each_format_has_its_reporter(string format, Type type) =>
         Assert.IsType(type, Reporters.For(format));
 
     [Fact]
-    public void Formats_lists_text_first() => Assert.Equal(["text", "json", "sarif"], Reporters.Formats.ToArray());
+    public void Formats_lists_text_first() => Assert.Equal(["text", "json", "sarif", "markdown"], Reporters.Formats.ToArray());
 
     [Theory]
     [InlineData("SARIF")]
-    [InlineData("markdown")]
+    [InlineData("md")]
     [InlineData("")]
     public void An_unknown_format_is_refused_with_the_known_ones(string format)
     {

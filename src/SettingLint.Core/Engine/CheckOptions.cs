@@ -8,13 +8,19 @@ namespace SettingLint.Core.Engine;
 /// <param name="FailOn">The gate's threshold; Level.None is "never".</param>
 /// <param name="Limits">The loader's limits.</param>
 /// <param name="Parallel">Load and evaluate files in parallel (the order of output does not depend on it).</param>
+/// <param name="Accept">Apply the acceptance comments in the files (off for audits: --no-suppress).</param>
+/// <param name="Changes">Report only the changed files and their dependants; null reports every file.</param>
+/// <param name="Overlay">File contents to read instead of the disk (the staged ones, for a pre-commit check).</param>
 public sealed record CheckOptions(
     IReadOnlyList<string> Paths,
     Level FailOn = Level.Error,
     LoadLimits? Limits = null,
     bool Parallel = true,
     Func<string, bool>? Include = null,
-    string? Root = null)
+    string? Root = null,
+    bool Accept = true,
+    Gate.ChangeSet? Changes = null,
+    Gate.FileOverlay? Overlay = null)
 {
     public LoadLimits EffectiveLimits => Limits ?? LoadLimits.Default;
 }

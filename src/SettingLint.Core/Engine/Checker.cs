@@ -4,6 +4,7 @@ using SettingLint.Core.Binding;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Gate;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Model;
 using SettingLint.Core.Validation;
@@ -44,7 +45,15 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var paths = options.Paths.Count == 0 ? ["."] : options.Paths;
         var root = options.Root is { } given ? Path.GetFullPath(given).TrimEnd(Path.DirectorySeparatorChar) : RepositoryRoot.Find(paths[0]);
         var notifications = new ConcurrentBag<Notification>();
-        var discovery = FileDiscovery.Find(root, paths, options.Include);
+        var descriptors = EngineRules.All.Concat(rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal).ToImmutableArray();
+        if (options.Changes is { TouchesSettings: false } untouched)
+        {
+            // Nothing that can change a finding changed: no need to read the repository at all.
+            return new CheckResult(root, [], descriptors, [], 0, [], options.FailOn) { Scope = Scope(untouched, []) };
+        }
+        var overlay = options.Overlay;
+        var include = overlay is null ? options.Include : rel => !overlay.Hidden.Contains(rel) && (options.Include?.Invoke(rel) ?? true);
+        var discovery = FileDiscovery.Find(root, paths, include);
         foreach (var m in discovery.Missing)
         {
             notifications.Add(new Notification(NotificationKind.Configuration, "The path '" + m + "' does not exist."));
@@ -52,14 +61,32 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
         var states = new ConcurrentDictionary<string, Lazy<FileState>>(StringComparer.Ordinal);
         var limits = options.EffectiveLimits;
-        FileState LoadState(string full, string rel, bool reported) => new(Guard(() => YamlLoader.LoadFile(full, rel, limits), rel, notifications)
+        var toLoad = discovery.Files;
+        if (options.Changes is { EverythingBecause: null } planned)
+        {
+            // Load only what the change can reach, found by a quick read of every file's references.
+            var (refs, unsure) = QuickScan.Read(root, discovery.Files,
+                f => overlay is not null && overlay.Contents.TryGetValue(f.RelativePath, out var b) ? b : File.ReadAllBytes(f.FullPath),
+                limits.MaxFileBytes, options.Parallel);
+            if (planned.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
+            {
+                toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
+            }
+        }
+        LoadedFile Read(string full, string rel)
+        {
+            if (overlay is null) return YamlLoader.LoadFile(full, rel, limits);
+            if (overlay.Contents.TryGetValue(rel, out var bytes)) return YamlLoader.Load(bytes, full, rel, limits);
+            return overlay.Hidden.Contains(rel) ? new LoadedFile(full, rel, null, [], []) : YamlLoader.LoadFile(full, rel, limits);
+        }
+        FileState LoadState(string full, string rel, bool reported) => new(Guard(() => Read(full, rel), rel, notifications)
             ?? new LoadedFile(full, rel, null, [], []), reported);
-        foreach (var f in discovery.Files)
+        foreach (var f in toLoad)
         {
             var file = f;
             states[f.FullPath] = new Lazy<FileState>(() => LoadState(file.FullPath, file.RelativePath, true));
         }
-        var discovered = discovery.Files.Select(f => states[f.FullPath]).ToArray();
+        var discovered = toLoad.Select(f => states[f.FullPath]).ToArray();
         ForEach(options.Parallel, discovered, s => _ = s.Value);
 
         var settingFiles = discovered.Select(s => s.Value).Where(s => s.Loaded.IsSettingFile || s.Loaded.Failed).ToArray();
@@ -71,24 +98,42 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
         var motors = settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!).ToArray();
         var index = new RepositoryIndex(motors);
-        var motorStates = settingFiles.Where(s => s.Motor is not null).ToArray();
+        // A changed-files run binds every file (the index needs them all) but evaluates and reports only its selection.
+        var (selected, dependants) = options.Changes is { EverythingBecause: null } changes
+            ? changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.Loaded.RelativePath).ToList())
+            : (null, ImmutableSortedSet<string>.Empty);
+        bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.Loaded.RelativePath));
+        var reported = settingFiles.Where(Reported).ToArray();
+        var motorStates = reported.Where(s => s.Motor is not null).ToArray();
         ForEach(options.Parallel, motorStates, s => Guard(() => rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add), s.Loaded.RelativePath, notifications, "a rule failed on this motor"));
 
-        var findings = discovery.Findings
-            .Concat(settingFiles.Where(s => s.Reported).SelectMany(s => s.Loaded.Findings.Concat(s.Findings.Findings)))
+        var known = descriptors.Select(d => d.Id).ToHashSet(StringComparer.Ordinal);
+        IEnumerable<Finding> Own(FileState s)
+        {
+            IReadOnlyList<Finding> own = [.. s.Loaded.Findings, .. s.Findings.Findings];
+            return options.Accept ? Acceptances.Apply(s.Loaded, own, known) : own;
+        }
+        var findings = discovery.Findings.Where(f => selected is null || selected.Contains(f.File))
+            .Concat(reported.SelectMany(Own))
             .OrderBy(f => f, Finding.Order)
             .ToImmutableArray();
-        var descriptors = EngineRules.All.Concat(rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal).ToImmutableArray();
-        var motorNames = index.Motors.Select(m => m.Tag).OrderBy(t => t, StringComparer.Ordinal).ToImmutableArray();
+        var motorNames = motorStates.Select(s => s.Motor!.Tag).OrderBy(t => t, StringComparer.Ordinal).ToImmutableArray();
         return new CheckResult(
             root,
             findings,
             descriptors,
             [.. notifications.OrderBy(n => n.File ?? "", StringComparer.Ordinal).ThenBy(n => n.Message, StringComparer.Ordinal)],
-            settingFiles.Length,
+            reported.Length,
             motorNames,
-            options.FailOn);
+            options.FailOn)
+        {
+            CheckedFiles = [.. reported.Select(s => s.Loaded.RelativePath).Order(StringComparer.Ordinal)],
+            Scope = options.Changes is { } c ? Scope(c, dependants) : null,
+        };
     }
+
+    private static ChangeScope Scope(ChangeSet changes, ImmutableSortedSet<string> dependants) =>
+        new(changes.Revision, changes.Staged, [.. changes.Changed], [.. changes.Deleted], [.. dependants], changes.EverythingBecause);
 
     private static void ForEach<T>(bool parallel, IReadOnlyList<T> items, Action<T> action)
     {

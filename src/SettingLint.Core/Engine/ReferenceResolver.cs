@@ -32,9 +32,15 @@ internal sealed class ReferenceResolver<TState>(
             return null;
         }
         var problem = _targetProblems.GetOrAdd(full, f =>
-            !File.Exists(f) ? "missing"
+            Directory.Exists(f) ? "folder"
+            : !File.Exists(f) ? "missing"
             : !RepositoryRoot.IsInside(root, f) ? "link"
             : null);
+        if (problem == "folder")
+        {
+            Add(findings, reference, "'{path}' is a folder; a reference names a {kind} file.", text, null, expectedKind);
+            return null;
+        }
         if (problem == "missing")
         {
             Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(root, full));
@@ -49,7 +55,7 @@ internal sealed class ReferenceResolver<TState>(
         var doc = bound(state);
         if (doc is null)
         {
-            Add(findings, reference, "'{path}' is not a setting file that loads (see its own findings); the {kind} cannot be used.", text, null, expectedKind);
+            Add(findings, reference, "'{path}' does not load as a setting file, so the {kind} cannot be used; check that file for its own findings.", text, null, expectedKind);
             return null;
         }
         if (doc.Kind != expectedKind)

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using SettingLint.Core.Configuration;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Gate;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Validation;
 
@@ -29,14 +30,15 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown]);
     }
 
-    /// <summary>Runs the check; configuration problems give a result with no findings and exit 2.</summary>
-    public CheckResult Check(IReadOnlyList<string> paths, Level? failOn, bool parallel = true)
+    /// <summary>Runs the check, with the gate's options when given; configuration problems give a result with no findings and exit 2.</summary>
+    public CheckResult Check(IReadOnlyList<string> paths, Level? failOn, bool parallel = true, GateOptions? gate = null)
     {
         var threshold = failOn ?? Config.FailOn ?? Level.Error;
         if (Problems.Length > 0)
         {
             return new CheckResult(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], Problems, 0, [], threshold);
         }
+        if (gate is not null) return GatedCheck.Run(this, paths, threshold, parallel, gate);
         return new Checker(Rules).Run(new CheckOptions(paths, threshold, Parallel: parallel, Include: Config.Includes));
     }
 }

@@ -30,10 +30,50 @@ public sealed record CheckResult(
         }
     }
 
-    /// <summary>Whether a finding counts against the gate: at or above the threshold and not suppressed.</summary>
+    /// <summary>
+    /// Whether a finding counts against the gate: at or above the threshold, not suppressed, not unchanged from the
+    /// baseline, and not a report of a change to the gate itself (that one is for the reviewer of the change).
+    /// </summary>
     public bool Fails(Finding finding) =>
-        FailOn != Level.None && finding.Level >= FailOn && finding.Suppression is null;
+        FailOn != Level.None && finding.Level >= FailOn && finding.Suppression is null
+        && finding.BaselineState != BaselineState.Unchanged && finding.RuleId != EngineRules.GateChange;
+
+    /// <summary>The baseline file the run was compared with, relative to the root; null when there was none.</summary>
+    public string? BaselineFile { get; init; }
+
+    /// <summary>Baseline entries that no longer match a finding, so that the baseline can be pruned.</summary>
+    public ImmutableArray<AbsentResult> Absent { get; init; } = [];
+
+    /// <summary>Root-relative paths of the setting files whose findings are reported, sorted.</summary>
+    public ImmutableArray<string> CheckedFiles { get; init; } = [];
+
+    /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
+    public ChangeScope? Scope { get; init; }
 }
+
+/// <summary>A baseline entry with no finding in this run (SARIF baselineState absent).</summary>
+/// <param name="RuleId">The rule of the entry.</param>
+/// <param name="File">The setting file of the entry, relative to the root.</param>
+/// <param name="KeyPath">The key path of the entry.</param>
+/// <param name="Fingerprint">The entry's fingerprint.</param>
+/// <param name="Message">The message recorded with the entry when the baseline was written; empty when there is none.</param>
+/// <param name="BaselineLine">The entry's line in the baseline file.</param>
+public sealed record AbsentResult(string RuleId, string File, string KeyPath, string Fingerprint, string Message, int BaselineLine);
+
+/// <summary>The files a changed-files run checked, and why.</summary>
+/// <param name="Revision">The revision compared with, as given (HEAD for --staged alone).</param>
+/// <param name="Staged">Whether the staged contents were checked rather than the working tree.</param>
+/// <param name="Changed">Changed or added files, relative to the root, sorted.</param>
+/// <param name="Deleted">Deleted files, relative to the root, sorted.</param>
+/// <param name="Dependants">Setting files checked because a file they depend on changed, sorted.</param>
+/// <param name="EverythingBecause">Why every file was checked (a changed configuration, rule or baseline file); null when only the changed files and their dependants were.</param>
+public sealed record ChangeScope(
+    string Revision,
+    bool Staged,
+    ImmutableArray<string> Changed,
+    ImmutableArray<string> Deleted,
+    ImmutableArray<string> Dependants,
+    string? EverythingBecause);
 
 /// <summary>The process exit codes, pinned by tests.</summary>
 public static class ExitCodes

@@ -15,6 +15,7 @@ public static class EngineRules
     public const string Limit = "SL008";
     public const string KindOrFormat = "SL009";
     public const string Suppression = "SL010";
+    public const string GateChange = "SL011";
 
     private static readonly ImmutableArray<string> FileTags = ["file"];
 
@@ -50,12 +51,17 @@ public static class EngineRules
             "A file of an unknown kind or a newer format cannot be checked by this version; correct it or upgrade the tool."),
         Make(Suppression, "BadSuppression", "A suppression has no reason, names an unknown rule, or matches no finding.",
             "Accepting a finding in the source needs a reason a reviewer can judge; a suppression that no longer matches anything is stale and should be removed.",
-            "Give the reason after the rule ids, correct the rule id, or remove the stale suppression."),
+            "Give the reason after the rule ids and a colon (`# settinglint-accept SL110: reviewed in the protection study`), correct the rule id, or remove the stale suppression."),
+        Make(GateChange, "GateWeakened", "A change loosens the gate: a rule off, a lower severity, a changed parameter or threshold, a new acceptance or a larger baseline.",
+            "With --changed-since, the configuration, rule files, baseline and in-source acceptances are compared with the revision; each change that can let a finding through is reported at its line.",
+            "The finding is for the reviewer of the change: confirm that the loosening is intended and justified. It never fails the run by itself, since the change it describes is the one under review; protect the configuration and the baseline with your code-review rules.",
+            "the gate's own configuration (built into the engine)", Level.Warning, ["gate"]),
     ];
 
     /// <summary>The engine rule of an id; throws for a non-engine id (a programming error).</summary>
     public static RuleDescriptor Get(string id) => All.First(r => r.Id == id);
 
-    private static RuleDescriptor Make(string id, string name, string title, string summary, string help) =>
-        new(id, name, title, summary, "**" + title + "**\n\n" + summary + "\n\n" + help + "\n\nBasis: the setting-file format (contract version 1).", Level.Error, FileTags);
+    private static RuleDescriptor Make(string id, string name, string title, string summary, string help,
+        string basis = "the setting-file format (contract version 1)", Level level = Level.Error, ImmutableArray<string> tags = default) =>
+        new(id, name, title, summary, "**" + title + "**\n\n" + summary + "\n\n" + help + "\n\nBasis: " + basis + ".", level, tags.IsDefault ? FileTags : tags);
 }

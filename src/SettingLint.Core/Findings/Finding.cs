@@ -26,6 +26,9 @@ public sealed record Finding(
     /// <summary>A suppression that applies to this finding, when there is one.</summary>
     public Suppression? Suppression { get; init; }
 
+    /// <summary>How the finding compares with the baseline of the run; null when the run has none.</summary>
+    public BaselineState? BaselineState { get; init; }
+
     /// <summary>The fingerprint that stays the same when lines move: file, rule and key path.</summary>
     public string Fingerprint => Fingerprints.Of(File, RuleId, KeyPath);
 
@@ -40,6 +43,19 @@ public sealed record Finding(
         if (c == 0) c = string.CompareOrdinal(a.Message, b.Message);
         return c;
     });
+}
+
+/// <summary>A finding against the baseline, with SARIF's names (new, unchanged, absent).</summary>
+public enum BaselineState
+{
+    /// <summary>Not in the baseline: it counts against the gate.</summary>
+    New,
+
+    /// <summary>In the baseline: reported, but it does not fail the gate.</summary>
+    Unchanged,
+
+    /// <summary>In the baseline but no longer found.</summary>
+    Absent,
 }
 
 /// <summary>Why a finding is accepted in the source: a reason written by a person.</summary>

@@ -8,20 +8,29 @@ using SettingLint.Core.Quantities;
 namespace SettingLint.Core.Rules;
 
 /// <summary>What a rule found on one motor, passing or not: the numbers the report shows as margins.</summary>
-public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, string Subject, bool Passed, CheckNumbers? Numbers, Level Level);
+public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, string Subject, bool Passed, CheckNumbers? Numbers, Level Level)
+{
+    /// <summary>Every comparison the check requires together (none under an 'or'), evaluated in full: what setting windows are made of.</summary>
+    public ImmutableArray<CheckBound> Bounds { get; init; } = [];
+}
 
 /// <summary>The compiled rules of a run, applied to every motor.</summary>
 public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
 {
     public ImmutableArray<CompiledRule> Rules { get; } = rules;
 
-    public ImmutableArray<RuleDescriptor> Descriptors { get; } = [.. rules.Select(r => r.Descriptor with { DefaultLevel = r.Level == Level.None ? r.Descriptor.DefaultLevel : r.Level })];
+    /// <summary>The rules' descriptors with their own default levels; a repository's levels show on each result instead.</summary>
+    public ImmutableArray<RuleDescriptor> Descriptors { get; } = [.. rules.Where(r => r.Level != Level.None).Select(r => r.Descriptor)];
 
     /// <summary>Receives every outcome, for reports; null when nobody asks.</summary>
     public Action<RuleOutcome>? Outcomes { get; init; }
 
+    /// <summary>Receives every motor before its rules run, for reports that draw it; null when nobody asks.</summary>
+    public Action<MotorProtection>? Motors { get; init; }
+
     public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
     {
+        Motors?.Invoke(motor);
         foreach (var rule in Rules)
         {
             if (rule.Level == Level.None) continue;
@@ -69,7 +78,8 @@ public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
         var (result, numbers) = Check(rule.Check, ctx);
         if (result.IsAbsent) return;
         var passed = result.Flag;
-        Outcomes?.Invoke(new RuleOutcome(rule.Id, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, subject, passed, numbers, rule.Level));
+        // Bounds cost a second evaluation of each comparison, so only a report that listens pays for them.
+        Outcomes?.Invoke(new RuleOutcome(rule.Id, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, subject, passed, numbers, rule.Level) { Bounds = CheckBounds.Of(rule, ctx) });
         if (passed) return;
         var values = ImmutableSortedDictionary.CreateBuilder<string, FindingValue>(StringComparer.Ordinal);
         var subjectValue = ctx.Motor.Document.Measure(subject);

@@ -1,0 +1,169 @@
+using System.Collections.Immutable;
+using System.Diagnostics;
+using System.Text;
+
+namespace SettingLint.Core.Gate;
+
+/// <summary>A git command failed or git is not there; the message is for the user (exit 2).</summary>
+public sealed class GitException(string message) : Exception(message);
+
+/// <summary>One file changed between a revision and the working tree or the index, by its path relative to the git top level.</summary>
+/// <param name="Path">Forward slashes, relative to the top level of the work tree.</param>
+/// <param name="Deleted">The file is gone on the new side.</param>
+public sealed record GitChange(string Path, bool Deleted);
+
+/// <summary>The git command line, run as a process in one work tree; no library, so any installed git works.</summary>
+public sealed class GitRepository
+{
+    private GitRepository(string topLevel) => TopLevel = topLevel;
+
+    /// <summary>The absolute path of the work tree's top level.</summary>
+    public string TopLevel { get; }
+
+    /// <summary>The work tree that holds a folder; a <see cref="GitException"/> says why there is none.</summary>
+    public static GitRepository Open(string directory)
+    {
+        var (code, output, error) = Run(directory, ["rev-parse", "--show-toplevel"]);
+        if (code != 0)
+        {
+            var why = error.Trim().Split('\n')[0];
+            throw new GitException($"'{directory}' is not inside a git work tree" + (why.Length > 0 ? " (git: " + why + ")" : "") + ".");
+        }
+        var top = Encoding.UTF8.GetString(output).Trim();
+        return new GitRepository(Path.GetFullPath(top).TrimEnd(Path.DirectorySeparatorChar, Path.AltDirectorySeparatorChar));
+    }
+
+    /// <summary>The commit a revision names; a <see cref="GitException"/> when it names none.</summary>
+    public string ResolveCommit(string revision)
+    {
+        var (code, output, _) = Run(TopLevel, ["rev-parse", "--verify", "--quiet", "--end-of-options", revision + "^{commit}"]);
+        if (code != 0) throw new GitException($"'{revision}' is not a revision of this repository (a commit, branch or tag such as HEAD~1 or origin/main).");
+        return Encoding.UTF8.GetString(output).Trim();
+    }
+
+    /// <summary>Whether HEAD names a commit (it does not before the first commit).</summary>
+    public bool HasHead() => Run(TopLevel, ["rev-parse", "--verify", "--quiet", "HEAD^{commit}"]).Code == 0;
+
+    /// <summary>
+    /// The files changed since a commit: against the index when <paramref name="staged"/>, else against the working tree
+    /// plus the untracked files that git does not ignore. A null commit means "before the first commit": everything staged.
+    /// </summary>
+    public ImmutableArray<GitChange> Changes(string? commit, bool staged)
+    {
+        var changes = new SortedDictionary<string, GitChange>(StringComparer.Ordinal);
+        if (commit is null)
+        {
+            foreach (var p in Lines(["ls-files", "-z", "--cached"])) changes[p] = new GitChange(p, false);
+        }
+        else
+        {
+            List<string> args = ["diff", "--name-status", "-z", "--no-renames", "--no-ext-diff"];
+            if (staged) args.Add("--cached");
+            args.Add(commit);
+            args.Add("--");
+            var fields = Lines(args);
+            for (var i = 0; i + 1 < fields.Count; i += 2)
+            {
+                changes[fields[i + 1]] = new GitChange(fields[i + 1], fields[i].StartsWith('D'));
+            }
+        }
+        if (!staged)
+        {
+            foreach (var p in Lines(["ls-files", "-z", "--others", "--exclude-standard"])) changes[p] = new GitChange(p, false);
+        }
+        return [.. changes.Values];
+    }
+
+    /// <summary>Files whose working-tree content differs from the index, or that the index does not hold (untracked).</summary>
+    public (ImmutableArray<string> Modified, ImmutableArray<string> Untracked) WorkTreeDifferences()
+    {
+        var modified = Lines(["diff", "--name-only", "-z", "--no-ext-diff"]);
+        var untracked = Lines(["ls-files", "-z", "--others", "--exclude-standard"]);
+        return ([.. modified], [.. untracked]);
+    }
+
+    /// <summary>
+    /// The contents of files at a revision ("" for the index), read in one <c>git cat-file --batch</c>;
+    /// a file that is not there has no entry.
+    /// </summary>
+    public IReadOnlyDictionary<string, byte[]> Show(string revision, IEnumerable<string> paths)
+    {
+        var wanted = paths.Distinct(StringComparer.Ordinal).ToList();
+        var result = new Dictionary<string, byte[]>(StringComparer.Ordinal);
+        if (wanted.Count == 0) return result;
+        var input = new StringBuilder();
+        foreach (var p in wanted) input.Append(revision).Append(':').Append(p).Append('\n');
+        var (code, output, error) = Run(TopLevel, ["cat-file", "--batch"], Encoding.UTF8.GetBytes(input.ToString()));
+        if (code != 0) throw new GitException("git cat-file failed: " + error.Trim());
+        var pos = 0;
+        foreach (var p in wanted)
+        {
+            var eol = Array.IndexOf(output, (byte)'\n', pos);
+            if (eol < 0) break;
+            var header = Encoding.UTF8.GetString(output, pos, eol - pos).Split(' ');
+            pos = eol + 1;
+            if (header.Length != 3 || header[2] is not { } sizeText || !int.TryParse(sizeText, System.Globalization.CultureInfo.InvariantCulture, out var size))
+            {
+                continue; // "<name> missing": not at that revision
+            }
+            if (header[1] == "blob") result[p] = output[pos..(pos + size)];
+            pos += size + 1;
+        }
+        return result;
+    }
+
+    /// <summary>Where git keeps this work tree's hooks (honours core.hooksPath), as an absolute path.</summary>
+    public string HooksDirectory()
+    {
+        var (code, output, error) = Run(TopLevel, ["rev-parse", "--git-path", "hooks"]);
+        if (code != 0) throw new GitException("git rev-parse --git-path hooks failed: " + error.Trim());
+        return Path.GetFullPath(Path.Combine(TopLevel, Encoding.UTF8.GetString(output).Trim()));
+    }
+
+    private List<string> Lines(List<string> args)
+    {
+        var (code, output, error) = Run(TopLevel, args);
+        if (code != 0) throw new GitException("git " + args[0] + " failed: " + error.Trim());
+        return [.. Encoding.UTF8.GetString(output).Split('\0', StringSplitOptions.RemoveEmptyEntries)];
+    }
+
+    private static (int Code, byte[] Output, string Error) Run(string directory, List<string> args, byte[]? input = null)
+    {
+        var start = new ProcessStartInfo("git")
+        {
+            WorkingDirectory = directory,
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            RedirectStandardInput = input is not null,
+            UseShellExecute = false,
+            CreateNoWindow = true,
+        };
+        // Paths as bytes, not quoted; no pager, no prompt for credentials.
+        foreach (var a in (string[])["-c", "core.quotepath=off", "--no-pager"]) start.ArgumentList.Add(a);
+        foreach (var a in args) start.ArgumentList.Add(a);
+        start.Environment["GIT_TERMINAL_PROMPT"] = "0";
+        Process process;
+        try
+        {
+            process = Process.Start(start) ?? throw new GitException("git could not be started.");
+        }
+        catch (System.ComponentModel.Win32Exception ex)
+        {
+            throw new GitException("git is not installed or not on PATH (" + ex.Message + ").");
+        }
+        using (process)
+        {
+            var error = process.StandardError.ReadToEndAsync();
+            var output = new MemoryStream();
+            var copy = process.StandardOutput.BaseStream.CopyToAsync(output);
+            if (input is not null)
+            {
+                process.StandardInput.BaseStream.Write(input);
+                process.StandardInput.Close();
+            }
+            copy.GetAwaiter().GetResult();
+            process.WaitForExit();
+            return (process.ExitCode, output.ToArray(), error.GetAwaiter().GetResult());
+        }
+    }
+}

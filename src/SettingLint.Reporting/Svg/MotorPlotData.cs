@@ -1,0 +1,137 @@
+using SettingLint.Core.Model;
+using SettingLint.Protection;
+
+namespace SettingLint.Reporting.Svg;
+
+/// <summary>
+/// The numbers a motor's plots are drawn from, in SI (A primary, s), read once from the bound model; absent values
+/// and disabled elements are null, so that a plot draws what is there and says what is not.
+/// </summary>
+public sealed record MotorPlotData
+{
+    /// <summary>The motor's tag.</summary>
+    public required string Motor { get; init; }
+
+    /// <summary>Full-load current, A.</summary>
+    public double? FullLoadCurrent { get; init; }
+
+    /// <summary>Locked-rotor current at rated voltage, A.</summary>
+    public double? LockedRotorCurrent { get; init; }
+
+    /// <summary>Acceleration time at rated voltage, s.</summary>
+    public double? AccelerationTime { get; init; }
+
+    /// <summary>Longest expected acceleration time (acceleration_time_max), s, when it is given.</summary>
+    public double? AccelerationTimeMax { get; init; }
+
+    /// <summary>Safe stall time from cold, s.</summary>
+    public double? SafeStallTimeCold { get; init; }
+
+    /// <summary>Safe stall time from hot, s.</summary>
+    public double? SafeStallTimeHot { get; init; }
+
+    /// <summary>The thermal element (49) as an IEC 60255-149 model, when enabled and complete.</summary>
+    public ThermalModel? Thermal { get; init; }
+
+    /// <summary>Acceleration timer (48), s, when enabled.</summary>
+    public double? AccelerationTimer { get; init; }
+
+    /// <summary>Short-circuit (50P) pickup, A primary, when enabled.</summary>
+    public double? ShortCircuitPickup { get; init; }
+
+    /// <summary>Short-circuit delay, s.</summary>
+    public double? ShortCircuitDelay { get; init; }
+
+    /// <summary>Current above which the short-circuit element is blocked, A.</summary>
+    public double? ShortCircuitBlockedAbove { get; init; }
+
+    /// <summary>Ground-fault (50G/50N) pickup, A primary, when enabled.</summary>
+    public double? GroundFaultPickup { get; init; }
+
+    /// <summary>Ground-fault delay, s.</summary>
+    public double? GroundFaultDelay { get; init; }
+
+    /// <summary>The bus's weakest three-phase fault current, A.</summary>
+    public double? FaultCurrentMin { get; init; }
+
+    /// <summary>The bus's strongest three-phase fault current, A.</summary>
+    public double? FaultCurrentMax { get; init; }
+
+    /// <summary>Interrupting rating of the device the relay trips, A.</summary>
+    public double? InterruptingRating { get; init; }
+
+    /// <summary>The bus's upstream time-overcurrent protection, when the bus gives it.</summary>
+    public OvercurrentSetting? Upstream { get; init; }
+
+    /// <summary>The bus's tag, for labels.</summary>
+    public string? BusTag { get; init; }
+
+    /// <summary>Phase CT primary per secondary, for secondary values on hover.</summary>
+    public double? PhaseCtRatio { get; init; }
+
+    /// <summary>The longest start the rules assume: acceleration_time_max, else acceleration_time.</summary>
+    public double? LongestAccelerationTime => AccelerationTimeMax ?? AccelerationTime;
+
+    /// <summary>The thermal level a hot start begins at (the set full-load level, else (FLC / pickup)^2); null without thermal model or FLC.</summary>
+    public double? HotStartLevel => Thermal is { } t && FullLoadCurrent is { } flc ? t.HotStartLevel(flc) : null;
+
+    /// <summary>Reads the plot numbers of a bound motor.</summary>
+    public static MotorPlotData From(MotorProtection motor)
+    {
+        ArgumentNullException.ThrowIfNull(motor);
+        var d = motor.Document;
+        double? Num(string path) => d.Measure(path)?.Value is { } v && double.IsFinite(v) ? v : null;
+        double? Positive(string path) => Num(path) is { } v && v > 0 ? v : null;
+        double? NonNegative(string path) => Num(path) is { } v && v >= 0 ? v : null;
+        double? BusNum(string path) => motor.Bus?.Document.Measure(path)?.Value is { } v && double.IsFinite(v) && v > 0 ? v : null;
+        var flc = Positive("motor.full_load_current");
+        var thermalOn = motor.IsEnabled("thermal");
+        var scOn = motor.IsEnabled("short_circuit");
+        var gfOn = motor.IsEnabled("ground_fault");
+        return new MotorPlotData
+        {
+            Motor = motor.Tag,
+            FullLoadCurrent = flc,
+            LockedRotorCurrent = Positive("motor.locked_rotor_current"),
+            AccelerationTime = Positive("motor.acceleration_time"),
+            AccelerationTimeMax = Positive("motor.acceleration_time_max"),
+            SafeStallTimeCold = Positive("motor.safe_stall_time_cold"),
+            SafeStallTimeHot = Positive("motor.safe_stall_time_hot"),
+            Thermal = thermalOn ? ThermalOf(Positive("protection.thermal.pickup"), Positive("protection.thermal.time_constant"),
+                Positive("protection.thermal.cooling_time_constant"), Num("protection.thermal.full_load_level")) : null,
+            AccelerationTimer = motor.IsEnabled("acceleration") ? Positive("protection.acceleration.time") : null,
+            ShortCircuitPickup = scOn ? Positive("protection.short_circuit.pickup") : null,
+            ShortCircuitDelay = scOn ? NonNegative("protection.short_circuit.delay") : null,
+            ShortCircuitBlockedAbove = scOn ? Positive("protection.short_circuit.blocked_above") : null,
+            GroundFaultPickup = gfOn ? Positive("protection.ground_fault.pickup") : null,
+            GroundFaultDelay = gfOn ? NonNegative("protection.ground_fault.delay") : null,
+            FaultCurrentMin = BusNum("fault_current_min"),
+            FaultCurrentMax = BusNum("fault_current_max"),
+            InterruptingRating = Positive("starter.interrupting_rating"),
+            Upstream = UpstreamOf(motor.Bus),
+            BusTag = motor.Bus?.Tag,
+            PhaseCtRatio = Positive("transformers.phase_ct.primary") is { } p && Positive("transformers.phase_ct.secondary") is { } s ? p / s : null,
+        };
+    }
+
+    private static ThermalModel? ThermalOf(double? pickup, double? tau, double? coolingTau, double? fullLoadLevel)
+    {
+        if (pickup is not { } k || tau is not { } t) return null;
+        // A level outside [0, 1) is a data error the rules report; the plot then shows the IEC hot curve instead.
+        var level = fullLoadLevel is >= 0 and < 1 ? fullLoadLevel : null;
+        return new ThermalModel(k, t, coolingTau ?? t, level);
+    }
+
+    private static OvercurrentSetting? UpstreamOf(Bus? bus)
+    {
+        if (bus is null) return null;
+        var d = bus.Document;
+        if (!CurveTokens.TryParse(d.Text("upstream.curve"), out var curve)) return null;
+        var pickup = d.Measure("upstream.pickup")?.Value;
+        var tms = d.Measure("upstream.time_multiplier")?.Value;
+        if (pickup is not { } ip || !(ip > 0) || tms is not { } m || !double.IsFinite(m)) return null;
+        if (curve == CurveKind.DefiniteTime ? m < 0 : m <= 0) return null;
+        var inst = d.Measure("upstream.instantaneous")?.Value;
+        return new OvercurrentSetting(curve, ip, m, inst is { } i && i > 0 ? i : null);
+    }
+}
