@@ -9,7 +9,11 @@ namespace SettingLint.Core.Discovery;
 public sealed record DiscoveredFile(string FullPath, string RelativePath);
 
 /// <summary>What discovery found: files to load in a fixed order, and findings for links it would not follow.</summary>
-public sealed record DiscoveryResult(IReadOnlyList<DiscoveredFile> Files, IReadOnlyList<Finding> Findings, IReadOnlyList<string> Missing);
+public sealed record DiscoveryResult(IReadOnlyList<DiscoveredFile> Files, IReadOnlyList<Finding> Findings, IReadOnlyList<string> Missing)
+{
+    /// <summary>Paths named explicitly that lie outside the repository root.</summary>
+    public IReadOnlyList<string> Outside { get; init; } = [];
+}
 
 /// <summary>Finds `*.yaml` and `*.yml` under the checked paths, skipping hidden folders and never leaving the root through a link.</summary>
 public static class FileDiscovery
@@ -24,9 +28,15 @@ public static class FileDiscovery
         var files = new SortedDictionary<string, DiscoveredFile>(StringComparer.Ordinal);
         var findings = new List<Finding>();
         var missing = new List<string>();
+        var outside = new List<string>();
         foreach (var p in paths)
         {
             var full = Path.GetFullPath(p);
+            if ((File.Exists(full) || Directory.Exists(full)) && !RepositoryRoot.Contains(root, full))
+            {
+                outside.Add(p);
+                continue;
+            }
             if (File.Exists(full)) Consider(root, full, files, findings, included, explicitFile: true);
             else if (Directory.Exists(full) && !RepositoryRoot.IsInside(root, full))
             {
@@ -39,7 +49,7 @@ public static class FileDiscovery
             else if (Directory.Exists(full)) Walk(root, full, files, findings, included);
             else missing.Add(p);
         }
-        return new DiscoveryResult([.. files.Values], findings.OrderBy(f => f, Finding.Order).ToList(), missing);
+        return new DiscoveryResult([.. files.Values], findings.OrderBy(f => f, Finding.Order).ToList(), missing) { Outside = outside };
     }
 
     private static void Walk(string root, string dir, SortedDictionary<string, DiscoveredFile> files, List<Finding> findings, Func<string, bool>? included)

@@ -58,6 +58,11 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             notifications.Add(new Notification(NotificationKind.Configuration, "The path '" + m + "' does not exist."));
         }
+        foreach (var o in discovery.Outside)
+        {
+            notifications.Add(new Notification(NotificationKind.Configuration,
+                "The path '" + o + "' lies outside the repository root " + root + " (found from the first path); check it in a run of its own."));
+        }
 
         var states = new ConcurrentDictionary<string, Lazy<FileState>>(StringComparer.Ordinal);
         var limits = options.EffectiveLimits;
@@ -98,6 +103,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
         var motors = settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!).ToArray();
         var index = new RepositoryIndex(motors);
+        ReportDuplicateTags(settingFiles);
         // A changed-files run binds every file (the index needs them all) but evaluates and reports only its selection.
         var (selected, dependants) = options.Changes is { EverythingBecause: null } changes
             ? changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.Loaded.RelativePath).ToList())
@@ -134,6 +140,22 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
     private static ChangeScope Scope(ChangeSet changes, ImmutableSortedSet<string> dependants) =>
         new(changes.Revision, changes.Staged, [.. changes.Changed], [.. changes.Deleted], [.. dependants], changes.EverythingBecause);
+
+    /// <summary>A tag names one piece of equipment in the repository: every later file that reuses one is told where it is taken.</summary>
+    private static void ReportDuplicateTags(IEnumerable<FileState> files)
+    {
+        var tagged = files.Where(f => f.Document?["tag"] is TextValue).GroupBy(f => ((TextValue)f.Document!["tag"]!).Value, StringComparer.Ordinal);
+        foreach (var group in tagged)
+        {
+            var ordered = group.OrderBy(f => f.Loaded.RelativePath, StringComparer.Ordinal).ToList();
+            foreach (var later in ordered.Skip(1))
+            {
+                later.Findings.Add(EngineRules.WrongType, later.Document!["tag"]!.Span, "tag",
+                    "The tag '{tag}' is already used by {other}; a tag names one piece of equipment in the repository.",
+                    ("tag", group.Key), ("other", ordered[0].Loaded.RelativePath));
+            }
+        }
+    }
 
     private static void ForEach<T>(bool parallel, IReadOnlyList<T> items, Action<T> action)
     {
@@ -186,6 +208,15 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     {
         if (s.Kind is not null || s.Loaded.Root is not YMapping root) return;
         var kindNode = root["kind"];
+        if (kindNode is null)
+        {
+            var near = s.Loaded.MisspeltKindKey;
+            s.Findings.Add(EngineRules.MissingKey, near?.Span ?? SourceSpan.FileStart, "kind",
+                "The required key 'kind' is missing{hint}; a setting file starts with kind ({kinds}) and format.",
+                ("hint", near is null ? "" : " ('" + near.Value + "' here looks like it)"), ("kinds", string.Join(", ", SchemaSet.SettingKinds)));
+            s.Kind = "";
+            return;
+        }
         if (kindNode is not YScalar { Type: ScalarType.String } kindScalar || !SchemaSet.SettingKinds.Contains(kindScalar.Value))
         {
             s.Findings.Add(EngineRules.KindOrFormat, kindNode?.Span ?? SourceSpan.FileStart, "kind",

@@ -20,7 +20,13 @@ public sealed record LoadedFile(
     public YNode? KindNode => (Root as YMapping)?["kind"];
 
     /// <summary>Whether the file is a setting file: its YAML has a `kind` key, or it failed to load at all.</summary>
-    public bool IsSettingFile => KindNode is not null;
+    public bool IsSettingFile => KindNode is not null || MisspeltKindKey is not null || (Root as YMapping)?.Find("format") is not null;
+
+    /// <summary>A top-level key that is probably `kind` misspelt (`kidn`, `Kind`): such a file is reported, not skipped.</summary>
+    public YScalar? MisspeltKindKey =>
+        KindNode is null && Root is YMapping m
+            ? m.Entries.Select(e => e.Key).FirstOrDefault(k => k.Value.Length is >= 3 and <= 6 && Validation.Suggestions.Distance(k.Value.ToLowerInvariant(), "kind") <= 1)
+            : null;
 
     /// <summary>Whether loading failed before a tree could be had (syntax, encoding or a limit).</summary>
     public bool Failed => Root is null && Findings.Count > 0;
