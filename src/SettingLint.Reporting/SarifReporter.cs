@@ -11,6 +11,13 @@ namespace SettingLint.Reporting;
 /// <summary>A SARIF 2.1.0 log (one run) for code scanning services, built with the Sarif.Sdk object model.</summary>
 public sealed class SarifReporter : IReporter
 {
+    /// <summary>Writes an empty log to nowhere, so that the serializer's first-use cost is paid on another thread while a check runs.</summary>
+    public static void Warm()
+    {
+        var empty = new CheckResult(Path.GetTempPath(), [], [], [], 0, [], Level.Error);
+        new SarifReporter().Write(empty, new ReportContext(Path.GetTempPath(), false, false, ToolInfo.ForVersion("0.0.0")), TextWriter.Null);
+    }
+
     /// <summary>The schema URI written as <c>$schema</c>.</summary>
     public const string SchemaUri = "https://json.schemastore.org/sarif-2.1.0.json";
 

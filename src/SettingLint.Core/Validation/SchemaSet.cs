@@ -24,10 +24,11 @@ public sealed class SchemaSet
     public JsonSchema Get(string name) =>
         _schemas.GetOrAdd(name, static n => new Lazy<JsonSchema>(() => Read(n), LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
-    /// <summary>Starts reading the setting schemas on the thread pool, so the first validation does not wait for them.</summary>
+    /// <summary>Starts reading the configuration and setting schemas on the thread pool, so the first validation does not wait for them.</summary>
     public void Warm()
     {
-        foreach (var kind in SettingKinds)
+        // The configuration is read first in a run, so its schema is asked for first.
+        foreach (var kind in (string[])[Config, .. SettingKinds])
         {
             _ = Task.Run(() => Get(kind));
         }
