@@ -47,6 +47,18 @@ public sealed class TextReporter : IReporter
             WriteLine(output, string.Create(CultureInfo.InvariantCulture,
                 $"Baseline {path}: {fresh} new, {unchanged} unchanged (not listed), {result.Absent.Length} absent; only new findings can fail the run."));
         }
+        // What each rule that fired checks, once, and where its rationale and basis are.
+        var fired = result.Findings.Where(f => f.BaselineState != BaselineState.Unchanged && !(f.Suppression is not null && context.OmitSuppressed))
+            .Select(f => f.RuleId).Distinct().Order(StringComparer.Ordinal).ToList();
+        if (fired.Count > 0)
+        {
+            WriteLine(output, "Rules:");
+            foreach (var id in fired)
+            {
+                var title = result.Rules.FirstOrDefault(r => r.Id == id)?.Title ?? "";
+                WriteLine(output, $"  {id}  {title}  (settinglint rules show {id})");
+            }
+        }
         WriteLine(output, ReportSummary.Of(result).ToSentence());
     }
 
