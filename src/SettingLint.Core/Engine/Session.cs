@@ -28,10 +28,7 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         {
             results.Add(pack == "builtin" ? builtIn.Result : loader.Load(RuleLoader.FromFolder(pack, root)));
         }
-        var merged = new RuleLoadResult([.. results.SelectMany(r => r.Rules)], [.. results.SelectMany(r => r.Problems)]);
-        var duplicates = merged.Rules.GroupBy(r => r.Id, StringComparer.Ordinal).Where(g => g.Count() > 1)
-            .Select(g => new Notification(NotificationKind.Configuration, $"The rule id {g.Key} is defined in more than one pack: {string.Join(", ", g.Select(r => r.SourceFile))}.", g.Last().SourceFile, g.Last().Span));
-        var loaded = RuleLoader.Configure(merged with { Rules = [.. merged.Rules.DistinctBy(r => r.Id).OrderBy(r => r.Id, StringComparer.Ordinal)], Problems = [.. merged.Problems, .. duplicates] }, config.Overrides);
+        var loaded = RuleLoader.Configure(RuleLoader.Merge(results), config.Overrides);
         var unknown = config.Overrides.ById.Keys.Where(id => !loaded.Rules.Any(r => r.Id == id) && !EngineRules.All.Any(r => r.Id == id))
             .Select(id => new Notification(NotificationKind.Configuration, $"Configuration: the rule {id} is not in any loaded pack.", config.File));
         return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown]);

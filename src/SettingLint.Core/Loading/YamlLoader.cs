@@ -19,33 +19,31 @@ public static class YamlLoader
     /// <summary>Loads a file from disk; the size limit is checked before anything is read.</summary>
     public static LoadedFile LoadFile(string path, string relativePath, LoadLimits limits)
     {
-        var findings = new FindingBuilder(relativePath);
         var length = new FileInfo(path).Length;
-        if (length > limits.MaxFileBytes)
-        {
-            findings.Add(EngineRules.Limit, SourceSpan.FileStart, "", "The file is {size} bytes, over the limit of {limit} bytes; it is not read.",
-                ("size", new FindingValue(length.ToString(System.Globalization.CultureInfo.InvariantCulture), length, "B")),
-                ("limit", new FindingValue(limits.MaxFileBytes.ToString(System.Globalization.CultureInfo.InvariantCulture), limits.MaxFileBytes, "B")));
-            return new LoadedFile(path, relativePath, null, findings.Findings, []);
-        }
-        return Load(File.ReadAllBytes(path), path, relativePath, limits);
+        return length > limits.MaxFileBytes
+            ? TooLarge(path, relativePath, length, limits)
+            : Load(File.ReadAllBytes(path), path, relativePath, limits);
     }
 
     /// <summary>Loads a file's bytes.</summary>
     public static LoadedFile Load(byte[] bytes, string path, string relativePath, LoadLimits limits)
     {
+        if (bytes.LongLength > limits.MaxFileBytes) return TooLarge(path, relativePath, bytes.LongLength, limits);
         var findings = new FindingBuilder(relativePath);
-        if (bytes.LongLength > limits.MaxFileBytes)
-        {
-            findings.Add(EngineRules.Limit, SourceSpan.FileStart, "", "The file is {size} bytes, over the limit of {limit} bytes; it is not read.",
-                ("size", Num(bytes.LongLength, "B")), ("limit", Num(limits.MaxFileBytes, "B")));
-            return new LoadedFile(path, relativePath, null, findings.Findings, []);
-        }
         var text = Decode(bytes, findings);
         if (text is null || !Printable(text, findings)) return new LoadedFile(path, relativePath, null, findings.Findings, []);
         var lines = new LazyLines(text);
         var root = new TreeBuilder(findings, limits).Build(text);
         return new LoadedFile(path, relativePath, root, findings.Findings, lines);
+    }
+
+    /// <summary>The SL008 result of a file over the size limit, whether its size came from the disk or its bytes.</summary>
+    private static LoadedFile TooLarge(string path, string relativePath, long size, LoadLimits limits)
+    {
+        var findings = new FindingBuilder(relativePath);
+        findings.Add(EngineRules.Limit, SourceSpan.FileStart, "", "The file is {size} bytes, over the limit of {limit} bytes; it is not read.",
+            ("size", Num(size, "B")), ("limit", Num(limits.MaxFileBytes, "B")));
+        return new LoadedFile(path, relativePath, null, findings.Findings, []);
     }
 
     private static FindingValue Num(long value, string unit) =>

@@ -13,7 +13,7 @@ public sealed class RepositoryIndex
     {
         Motors = [.. motors.OrderBy(m => m.Document.RelativePath, StringComparer.Ordinal)];
         _byBus = Motors.Where(m => m.Bus is not null)
-            .GroupBy(m => m.Bus!.Document.RelativePath + "#" + (m.Bus.Document.Path == m.Document.Path ? m.Document.RelativePath : ""), StringComparer.Ordinal)
+            .GroupBy(BusKey, StringComparer.Ordinal)
             .ToFrozenDictionary(g => g.Key, g => g.ToImmutableArray(), StringComparer.Ordinal);
         _byRelayModel = Motors.Where(m => m.RelayModel is not null)
             .GroupBy(m => m.RelayModel!.Document.RelativePath, StringComparer.Ordinal)

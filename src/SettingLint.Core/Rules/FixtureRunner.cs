@@ -42,15 +42,14 @@ public static partial class FixtureRunner
         var known = loaded.Rules.Select(r => r.Id).Concat(EngineRules.All.Select(r => r.Id)).ToHashSet(StringComparer.Ordinal);
         var ruleSet = new RuleSet(loaded.Rules);
         var results = ImmutableArray.CreateBuilder<FixtureResult>();
-        var ruleFiles = Directory.EnumerateFiles(full, "rule.yaml", SearchOption.AllDirectories)
-            .Where(f => !f.Contains(Path.DirectorySeparatorChar + "fixtures" + Path.DirectorySeparatorChar, StringComparison.Ordinal))
-            .OrderBy(f => f, StringComparer.Ordinal);
-        foreach (var ruleFile in ruleFiles)
+        // The loaded rules already name their files; those under the asked folder are the ones to test.
+        var asked = loaded.Rules
+            .Select(r => (Rule: r, File: Path.GetFullPath(Path.Combine(packRoot, r.SourceFile))))
+            .Where(x => Discovery.RepositoryRoot.Contains(full, x.File))
+            .OrderBy(x => x.File, StringComparer.Ordinal);
+        foreach (var (rule, file) in asked)
         {
-            var dir = Path.GetDirectoryName(ruleFile)!;
-            var rule = loaded.Rules.FirstOrDefault(r => Path.GetFullPath(Path.Combine(packRoot, r.SourceFile)) == ruleFile);
-            if (rule is null) continue;
-            results.Add(RunOne(rule.Id, Path.Combine(dir, "fixtures"), ruleSet, known));
+            results.Add(RunOne(rule.Id, Path.Combine(Path.GetDirectoryName(file)!, "fixtures"), ruleSet, known));
         }
         return (results.ToImmutable(), []);
     }

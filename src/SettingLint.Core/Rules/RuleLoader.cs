@@ -52,9 +52,6 @@ public sealed class RuleLoader(SchemaSet schemas)
     /// <summary>Loads and compiles rule files; overrides change levels and parameters.</summary>
     public RuleLoadResult Load(IEnumerable<RuleSource> sources, RuleOverrides? overrides = null)
     {
-        var rules = ImmutableArray.CreateBuilder<CompiledRule>();
-        var problems = ImmutableArray.CreateBuilder<Notification>();
-        var seen = new Dictionary<string, string>(StringComparer.Ordinal);
         // Each file compiles on its own; the results are taken in source order, so messages do not depend on threads.
         var list = sources.ToList();
         var compiled = new (CompiledRule? Rule, List<Notification> Problems)[list.Count];
@@ -63,22 +60,31 @@ public sealed class RuleLoader(SchemaSet schemas)
             var own = ImmutableArray.CreateBuilder<Notification>();
             compiled[i] = (LoadOne(list[i], own), [.. own]);
         });
-        for (var i = 0; i < list.Count; i++)
-        {
-            var source = list[i];
-            problems.AddRange(compiled[i].Problems);
-            var rule = compiled[i].Rule;
-            if (rule is null) continue;
-            if (seen.TryGetValue(rule.Id, out var other))
-            {
-                problems.Add(new Notification(NotificationKind.Configuration, $"The rule id {rule.Id} is also defined in {other}.", source.DisplayPath, rule.Span));
-                continue;
-            }
-            seen[rule.Id] = source.DisplayPath;
-            rules.Add(rule);
-        }
-        var result = new RuleLoadResult([.. rules.OrderBy(r => r.Id, StringComparer.Ordinal)], problems.ToImmutable());
+        var result = Merge([new RuleLoadResult([.. compiled.Select(c => c.Rule).OfType<CompiledRule>()], [.. compiled.SelectMany(c => c.Problems)])]);
         return overrides is null ? result : Configure(result, overrides);
+    }
+
+    /// <summary>Joins loaded rules (of one pack or several): one rule per id, the first in order wins, each later one is a problem at its id; sorted by id.</summary>
+    public static RuleLoadResult Merge(IEnumerable<RuleLoadResult> parts)
+    {
+        var rules = new List<CompiledRule>();
+        var problems = ImmutableArray.CreateBuilder<Notification>();
+        var seen = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var part in parts)
+        {
+            problems.AddRange(part.Problems);
+            foreach (var rule in part.Rules)
+            {
+                if (seen.TryGetValue(rule.Id, out var other))
+                {
+                    problems.Add(new Notification(NotificationKind.Configuration, $"The rule id {rule.Id} is also defined in {other}.", rule.SourceFile, rule.Span));
+                    continue;
+                }
+                seen[rule.Id] = rule.SourceFile;
+                rules.Add(rule);
+            }
+        }
+        return new RuleLoadResult([.. rules.OrderBy(r => r.Id, StringComparer.Ordinal)], problems.ToImmutable());
     }
 
     /// <summary>Applies a repository's levels and parameter values to compiled rules; each bad override is a problem at its line.</summary>
