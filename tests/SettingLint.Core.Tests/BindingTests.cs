@@ -556,7 +556,7 @@ public sealed class SchemaBoundTests
 {
     private static Finding Validate(string schemaJson, string yaml)
     {
-        var schema = NJsonSchema.JsonSchema.FromJsonAsync(schemaJson).GetAwaiter().GetResult();
+        var schema = SchemaNode.Read(schemaJson, "test");
         var loaded = YamlLoader.Load(Encoding.UTF8.GetBytes(yaml), "/r/x.yaml", "x.yaml", LoadLimits.Default);
         var findings = new FindingBuilder("x.yaml");
         SchemaValidator.Validate(Assert.IsType<YMapping>(loaded.Root), schema, findings);

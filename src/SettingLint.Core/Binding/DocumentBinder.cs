@@ -1,5 +1,4 @@
 using System.Collections.Frozen;
-using NJsonSchema;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
@@ -21,6 +20,9 @@ public sealed class DocumentBinder
     private readonly HashSet<string> _failed = new(StringComparer.Ordinal);
 
     private readonly string _reportPrefix;
+
+    // An inline bus is a bus file's keys without its own kind and format: those come from the motor file.
+    private static readonly IReadOnlySet<string> InlineBusImplied = new HashSet<string>(StringComparer.Ordinal) { "kind", "format" };
 
     private DocumentBinder(FindingBuilder findings, SchemaSet schemas, string reportPrefix = "")
     {
@@ -44,18 +46,18 @@ public sealed class DocumentBinder
     public static BoundDocument BindInlineBus(string path, string relativePath, YMapping busNode, FindingBuilder findings, SchemaSet schemas)
     {
         var schema = schemas.Get(SchemaSet.Bus);
-        SchemaValidator.Validate(busNode, schema, findings, "bus", new Dictionary<string, object> { ["kind"] = "bus", ["format"] = 1 });
+        SchemaValidator.Validate(busNode, schema, findings, "bus", InlineBusImplied);
         var binder = new DocumentBinder(findings, schemas, "bus");
         binder.Walk(busNode, schema, "", SchemaSet.Bus);
         return new BoundDocument(SchemaSet.Bus, path, relativePath, busNode, binder._values.ToFrozenDictionary(StringComparer.Ordinal));
     }
 
-    private void Walk(YMapping mapping, JsonSchema schema, string prefix, string kind)
+    private void Walk(YMapping mapping, SchemaNode schema, string prefix, string kind)
     {
         foreach (var entry in mapping.Entries)
         {
             var path = prefix.Length == 0 ? entry.Key.Value : prefix + "." + entry.Key.Value;
-            if (SchemaFacts.Child(schema, entry.Key.Value) is not { } child) continue; // SL003 already
+            if (schema.Child(entry.Key.Value) is not { } child) continue; // SL003 already
             if (_findings.HasAt(entry.Value.Span))
             {
                 _failed.Add(path);
@@ -76,7 +78,7 @@ public sealed class DocumentBinder
         }
     }
 
-    private void BindLeaf(YScalar node, JsonSchema schema, string path)
+    private void BindLeaf(YScalar node, SchemaNode schema, string path)
     {
         if (SchemaFacts.DimensionOf(schema) is { } dimension)
         {
@@ -147,7 +149,7 @@ public sealed class DocumentBinder
     {
         var setting = key.Value;
         var motorSchema = _schemas.Get(SchemaSet.MotorProtection);
-        var settingSchema = ResolvePath(motorSchema, "protection." + setting);
+        var settingSchema = SchemaFacts.ResolvePath(motorSchema, "protection." + setting);
         if (settingSchema is null || SchemaFacts.DimensionOf(settingSchema) is not { } dimension)
         {
             var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith("protection.", StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
@@ -169,17 +171,6 @@ public sealed class DocumentBinder
             }
             _values[p] = new WrittenValue(p, s.Span, parse.Value!.Value);
         }
-    }
-
-    /// <summary>The schema of a dotted key path below a schema.</summary>
-    public static JsonSchema? ResolvePath(JsonSchema root, string path)
-    {
-        JsonSchema? s = root;
-        foreach (var part in path.Split('.'))
-        {
-            s = s is null ? null : SchemaFacts.Child(s, part);
-        }
-        return s;
     }
 
     private void ResolveRelative()

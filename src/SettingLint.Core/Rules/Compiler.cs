@@ -1,5 +1,4 @@
 using System.Collections.Frozen;
-using NJsonSchema;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Validation;

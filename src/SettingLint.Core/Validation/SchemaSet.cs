@@ -1,5 +1,4 @@
 using System.Collections.Concurrent;
-using NJsonSchema;
 
 namespace SettingLint.Core.Validation;
 
@@ -12,7 +11,7 @@ public sealed class SchemaSet
     public const string Config = "config";
     public const string Rule = "rule";
 
-    private readonly ConcurrentDictionary<string, Lazy<JsonSchema>> _schemas = new(StringComparer.Ordinal);
+    private readonly ConcurrentDictionary<string, Lazy<SchemaNode>> _schemas = new(StringComparer.Ordinal);
 
     /// <summary>The kinds of setting file the format defines.</summary>
     public static IReadOnlyList<string> SettingKinds { get; } = [MotorProtection, Bus, RelayModel];
@@ -21,8 +20,8 @@ public sealed class SchemaSet
     public static SchemaSet Shared { get; } = new();
 
     /// <summary>The schema of a kind (motor-protection, bus, relay-model, config, rule).</summary>
-    public JsonSchema Get(string name) =>
-        _schemas.GetOrAdd(name, static n => new Lazy<JsonSchema>(() => Read(n), LazyThreadSafetyMode.ExecutionAndPublication)).Value;
+    public SchemaNode Get(string name) =>
+        _schemas.GetOrAdd(name, static n => new Lazy<SchemaNode>(() => Read(n), LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
     /// <summary>Starts reading the configuration and setting schemas on the thread pool, so the first validation does not wait for them.</summary>
     public void Warm()
@@ -43,5 +42,5 @@ public sealed class SchemaSet
         return reader.ReadToEnd();
     }
 
-    private static JsonSchema Read(string name) => JsonSchema.FromJsonAsync(Text(name)).GetAwaiter().GetResult();
+    private static SchemaNode Read(string name) => SchemaNode.Read(Text(name), name);
 }

@@ -1,112 +1,162 @@
 using System.Globalization;
-using Newtonsoft.Json.Linq;
-using NJsonSchema;
-using NJsonSchema.Validation;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 
 namespace SettingLint.Core.Validation;
 
-/// <summary>Validates a YAML tree against a JSON Schema and turns each error into an SL003-SL006 finding at the YAML position.</summary>
+/// <summary>
+/// Validates a YAML tree against a schema read from our JSON Schema files and turns each error into an SL003-SL006
+/// finding at the YAML position. It walks the YAML nodes themselves (no JSON copy of the document), which is what
+/// makes validation cheap; its verdicts are compared with a general-purpose JSON Schema library in the tests.
+/// </summary>
 public static class SchemaValidator
 {
-    /// <summary>The YAML node a JSON token was made from, with its key path.</summary>
-    private sealed record Origin(YNode Node, YScalar? Key, string Path);
-
-    /// <summary>Validates a mapping; findings go to the builder. Extra properties are added to the JSON before validation (an inline bus has no kind).</summary>
-    public static void Validate(YMapping root, JsonSchema schema, FindingBuilder findings, string pathPrefix = "", IReadOnlyDictionary<string, object>? synthetic = null)
+    private enum Problem
     {
-        var json = (JObject)ToJson(root, null, pathPrefix);
-        if (synthetic is not null)
+        UnknownKey,
+        MissingKey,
+        WrongType,
+        NotInEnum,
+        TooSmall,
+        TooBig,
+        Pattern,
+        TooShort,
+        TooFewItems,
+    }
+
+    /// <summary>One schema error: the node it is about, its key and path, the schema that failed, and what failed.</summary>
+    private readonly record struct Error(Problem Kind, YNode Node, YScalar? Key, string Path, SchemaNode Schema, string? Name = null, double Limit = 0, bool Exclusive = false);
+
+    /// <summary>The schema verdicts on a document, as (problem, key path) pairs in the order found: for the tests.</summary>
+    internal static IEnumerable<(string Problem, string Path)> Verdicts(YMapping root, SchemaNode schema)
+    {
+        var errors = new List<Error>();
+        Check(root, null, "", schema, errors, null);
+        return errors.Select(e => (e.Kind.ToString(), e.Kind == Problem.MissingKey ? Join(e.Path, e.Name!) : e.Path));
+    }
+
+    /// <summary>Validates a mapping; findings go to the builder. Implied keys count as present (an inline bus has no kind or format of its own).</summary>
+    public static void Validate(YMapping root, SchemaNode schema, FindingBuilder findings, string pathPrefix = "", IReadOnlySet<string>? implied = null)
+    {
+        var errors = new List<Error>();
+        Check(root, null, pathPrefix, schema, errors, implied);
+        foreach (var error in errors)
         {
-            foreach (var (k, v) in synthetic)
-            {
-                if (json[k] is null) json[k] = JToken.FromObject(v);
-            }
-        }
-        foreach (var error in Flatten(schema.Validate(json)))
-        {
-            Report(error, json, findings, pathPrefix);
+            Report(error, findings, pathPrefix);
         }
     }
 
-    private static IEnumerable<ValidationError> Flatten(IEnumerable<ValidationError> errors)
+    /// <summary>The JSON type a YAML node stands for under the core schema.</summary>
+    internal static JsonType TypeOf(YNode node) => node switch
     {
-        foreach (var e in errors)
-        {
-            if (e is ChildSchemaValidationError child && child.Errors.Count > 0)
-            {
-                // Of the alternatives, the one that came closest explains the problem best.
-                var best = child.Errors.Values.OrderBy(v => v.Count).First();
-                foreach (var inner in Flatten(best)) yield return inner;
-            }
-            else
-            {
-                yield return e;
-            }
-        }
-    }
+        YMapping => JsonType.Object,
+        YSequence => JsonType.Array,
+        YScalar { Type: ScalarType.Null } => JsonType.Null,
+        YScalar { Type: ScalarType.Bool } => JsonType.Boolean,
+        // An integer too long for 64 bits is still a number, but not one a count could hold.
+        YScalar { Type: ScalarType.Int } s when long.TryParse(s.Value, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out _) => JsonType.Integer,
+        YScalar { Type: ScalarType.Int or ScalarType.Float } => JsonType.Number,
+        _ => JsonType.String,
+    };
 
-    private static JToken ToJson(YNode node, YScalar? key, string path)
+    private static void Check(YNode node, YScalar? key, string path, SchemaNode schema, List<Error> errors, IReadOnlySet<string>? implied)
     {
-        JToken token;
+        var type = TypeOf(node);
+        // A value of the wrong type is reported once; the keywords of the type it is not do not apply to it.
+        if (!schema.Allows(type))
+        {
+            errors.Add(new Error(Problem.WrongType, node, key, path, schema));
+            return;
+        }
+        if (schema.Enum is { } members && !members.Any(m => Equal(m, node)))
+        {
+            errors.Add(new Error(Problem.NotInEnum, node, key, path, schema));
+        }
         switch (node)
         {
+            case YScalar s when type == JsonType.String:
+                // Draft-07 §6.3.2: the length counts characters (code points), not UTF-16 units.
+                if (schema.MinLength is { } min && s.Value.EnumerateRunes().Count() < min) errors.Add(new Error(Problem.TooShort, node, key, path, schema));
+                else if (schema.Pattern is { } pattern && !pattern.IsMatch(s.Value)) errors.Add(new Error(Problem.Pattern, node, key, path, schema));
+                break;
+            case YScalar s when type is JsonType.Integer or JsonType.Number:
+                CheckBounds(CoreSchema.Number(s.Value) ?? double.NaN, node, key, path, schema, errors);
+                break;
             case YMapping m:
-            {
-                var obj = new JObject();
-                foreach (var entry in m.Entries)
+                CheckObject(m, key, path, schema, errors, implied);
+                break;
+            case YSequence q:
+                if (schema.MinItems is { } minItems && q.Items.Length < minItems) errors.Add(new Error(Problem.TooFewItems, node, key, path, schema));
+                if (schema.Items is { } items)
                 {
-                    var childPath = path.Length == 0 ? entry.Key.Value : path + "." + entry.Key.Value;
-                    var prop = new JProperty(entry.Key.Value, ToJson(entry.Value, entry.Key, childPath));
-                    prop.AddAnnotation(new Origin(entry.Value, entry.Key, childPath));
-                    obj.Add(prop);
+                    for (var i = 0; i < q.Items.Length; i++)
+                    {
+                        Check(q.Items[i], null, path + "[" + i.ToString(CultureInfo.InvariantCulture) + "]", items, errors, null);
+                    }
                 }
-                token = obj;
                 break;
-            }
-            case YSequence s:
-            {
-                var arr = new JArray();
-                for (var i = 0; i < s.Items.Length; i++)
-                {
-                    arr.Add(ToJson(s.Items[i], null, path + "[" + i.ToString(CultureInfo.InvariantCulture) + "]"));
-                }
-                token = arr;
-                break;
-            }
-            case YScalar sc:
-                token = sc.Type switch
-                {
-                    ScalarType.Null => JValue.CreateNull(),
-                    ScalarType.Bool => new JValue(sc.Value is "true" or "True" or "TRUE"),
-                    ScalarType.Int when long.TryParse(sc.Value, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var l) => new JValue(l),
-                    ScalarType.Int or ScalarType.Float => new JValue(CoreSchema.Number(sc.Value) ?? double.NaN),
-                    _ => new JValue(sc.Value),
-                };
-                break;
-            default:
-                throw new InvalidOperationException("Unknown node type " + node.GetType().Name);
         }
-        token.AddAnnotation(new Origin(node, key, path));
-        return token;
     }
 
-    private static void Report(ValidationError error, JObject root, FindingBuilder findings, string prefix)
+    private static void CheckBounds(double n, YNode node, YScalar? key, string path, SchemaNode schema, List<Error> errors)
     {
-        var origin = error.Token?.Annotation<Origin>() ?? root.Annotation<Origin>()!;
-        var valueSpan = origin.Node.Span;
+        if (schema.Minimum is { } min && n < min) errors.Add(new Error(Problem.TooSmall, node, key, path, schema, Limit: min));
+        else if (schema.ExclusiveMinimum is { } xmin && n <= xmin) errors.Add(new Error(Problem.TooSmall, node, key, path, schema, Limit: xmin, Exclusive: true));
+        if (schema.Maximum is { } max && n > max) errors.Add(new Error(Problem.TooBig, node, key, path, schema, Limit: max));
+        else if (schema.ExclusiveMaximum is { } xmax && n >= xmax) errors.Add(new Error(Problem.TooBig, node, key, path, schema, Limit: xmax, Exclusive: true));
+    }
+
+    private static void CheckObject(YMapping m, YScalar? key, string path, SchemaNode schema, List<Error> errors, IReadOnlySet<string>? implied)
+    {
+        foreach (var name in schema.Required)
+        {
+            if (m.Find(name) is null && implied?.Contains(name) != true) errors.Add(new Error(Problem.MissingKey, m, key, path, schema, name));
+        }
+        foreach (var entry in m.Entries)
+        {
+            var childPath = Join(path, entry.Key.Value);
+            var matched = false;
+            if (schema.Properties.TryGetValue(entry.Key.Value, out var named))
+            {
+                matched = true;
+                Check(entry.Value, entry.Key, childPath, named, errors, null);
+            }
+            // Draft-07 §6.5.5: every pattern that matches applies, as well as a named property.
+            foreach (var (pattern, patterned) in schema.PatternProperties)
+            {
+                if (!pattern.IsMatch(entry.Key.Value)) continue;
+                matched = true;
+                Check(entry.Value, entry.Key, childPath, patterned, errors, null);
+            }
+            if (matched) continue;
+            if (schema.Additional is { } additional) Check(entry.Value, entry.Key, childPath, additional, errors, null);
+            else if (!schema.AdditionalAllowed) errors.Add(new Error(Problem.UnknownKey, entry.Value, entry.Key, childPath, schema));
+        }
+    }
+
+    // JSON Schema equality (draft-07 §4.2.2): a string equals a string, a number a number of the same value.
+    private static bool Equal(EnumValue member, YNode node) => node switch
+    {
+        YScalar s when TypeOf(s) == JsonType.String => member.Text == s.Value,
+        YScalar { Type: ScalarType.Int or ScalarType.Float } s => member.Number is { } n && CoreSchema.Number(s.Value) == n,
+        _ => false,
+    };
+
+    private static string Join(string path, string key) => path.Length == 0 ? key : path + "." + key;
+
+    private static void Report(Error error, FindingBuilder findings, string prefix)
+    {
+        var valueSpan = error.Node.Span;
         // A keyless object is the document itself, or a mapping validated on its own (an inline bus): the latter has a place.
-        var keySpan = origin.Key?.Span ?? (prefix.Length > 0 ? SourceSpan.At(valueSpan.StartLine, valueSpan.StartColumn) : SourceSpan.FileStart);
-        var path = origin.Path;
-        var name = origin.Key?.Value ?? (path.Length > 0 ? path : error.Property ?? "");
+        var keySpan = error.Key?.Span ?? (prefix.Length > 0 ? SourceSpan.At(valueSpan.StartLine, valueSpan.StartColumn) : SourceSpan.FileStart);
+        var path = error.Path;
+        var name = error.Key?.Value ?? path;
         var schema = error.Schema;
         switch (error.Kind)
         {
-            case ValidationErrorKind.NoAdditionalPropertiesAllowed:
+            case Problem.UnknownKey:
             {
-                var parentSchema = error.Schema;
-                var known = parentSchema is null ? [] : SchemaFacts.Keys(parentSchema).ToArray();
+                var known = schema.PropertyList.Select(p => p.Name).ToArray();
                 var nearest = Suggestions.Nearest(name, known);
                 var where = ParentOf(path);
                 if (nearest is not null)
@@ -123,14 +173,14 @@ public static class SchemaValidator
                 }
                 return;
             }
-            case ValidationErrorKind.PropertyRequired:
+            case Problem.MissingKey:
             {
-                // The token is the object that lacks the key; place the finding on that object's key.
-                var missing = error.Property ?? "";
-                var full = path.Length == 0 ? missing : path + "." + missing;
+                // The node is the mapping that lacks the key; place the finding on that mapping's key.
+                var missing = error.Name!;
+                var full = Join(path, missing);
                 // The engine reports a missing `format` itself, before validation; once is enough.
                 if (findings.Findings.Any(f => f.RuleId == EngineRules.MissingKey && f.KeyPath == full)) return;
-                var title = schema is not null && SchemaFacts.Child(schema, missing) is { } ms && !string.IsNullOrEmpty(ms.Title) ? " (" + ms.Title + ")" : "";
+                var title = schema.Child(missing) is { Title: { Length: > 0 } t } ? " (" + t + ")" : "";
                 findings.Add(EngineRules.MissingKey, keySpan, full,
                     "The required key '{key}'{title} is missing{where}.",
                     ("key", missing), ("title", title), ("where", path.Length == 0 ? "" : " from " + path));
@@ -138,52 +188,51 @@ public static class SchemaValidator
             }
         }
         if (findings.HasAt(valueSpan)) return;
-        var isQuantity = schema is not null && SchemaFacts.DimensionToken(schema) is not null;
-        var shown = Shown(origin.Node);
-        if (isQuantity && error.Kind is ValidationErrorKind.StringExpected)
+        var shown = Shown(error.Node);
+        var expectedType = error.Kind == Problem.WrongType ? schema.Types[0] : (JsonType?)null;
+        if (schema.Dimension is { } token && expectedType == JsonType.String)
         {
             // A relay-model range ("setting") takes its setting's dimension, which the binder knows: it reports the scalar.
-            if (Quantities.Dimensions.Parse(SchemaFacts.DimensionToken(schema!)!) is null && origin.Node is YScalar) return;
-            var dim = Quantities.Dimensions.Parse(SchemaFacts.DimensionToken(schema!)!) ?? Quantities.Dimension.None;
+            var dimension = Quantities.Dimensions.Parse(token);
+            if (dimension is null && error.Node is YScalar) return;
             var context = Quantities.UnitContexts.Of(path.StartsWith("ranges.", StringComparison.Ordinal) ? "protection." + path : path);
-            var problem = origin.Node is YScalar { Type: ScalarType.Int or ScalarType.Float } number
-                ? Quantities.QuantityParser.Explain(new Quantities.QuantityParse(null, Quantities.QuantityError.MissingUnit, null), number.Value, dim, context)
+            var problem = error.Node is YScalar { Type: ScalarType.Int or ScalarType.Float } number
+                ? Quantities.QuantityParser.Explain(new Quantities.QuantityParse(null, Quantities.QuantityError.MissingUnit, null), number.Value, dimension ?? Quantities.Dimension.None, context)
                 : "'" + name + "' must be a number and a unit, not " + shown + ".";
             findings.Add(EngineRules.Unit, valueSpan, path, "{problem}", ("problem", problem));
             return;
         }
-        var expected = error.Kind switch
+        if (expectedType is { } expected)
         {
-            ValidationErrorKind.StringExpected => "text",
-            ValidationErrorKind.NumberExpected => "a number",
-            ValidationErrorKind.IntegerExpected => "a whole number",
-            ValidationErrorKind.BooleanExpected => "true or false",
-            ValidationErrorKind.ObjectExpected => "a mapping of keys",
-            ValidationErrorKind.ArrayExpected => "a list",
-            _ => null,
-        };
-        if (expected is not null)
-        {
+            var wanted = expected switch
+            {
+                JsonType.String => "text",
+                JsonType.Number => "a number",
+                JsonType.Integer => "a whole number",
+                JsonType.Boolean => "true or false",
+                JsonType.Object => "a mapping of keys",
+                JsonType.Array => "a list",
+                _ => "empty",
+            };
             findings.Add(EngineRules.WrongType, valueSpan, path,
-                "'{key}' must be {expected}, not {what}.", ("key", name), ("expected", expected), ("what", shown));
+                "'{key}' must be {expected}, not {what}.", ("key", name), ("expected", wanted), ("what", shown));
             return;
         }
         var detail = error.Kind switch
         {
-            ValidationErrorKind.NotInEnumeration => "must be one of " + string.Join(", ", (schema?.Enumeration ?? []).Select(v => Convert.ToString(v, CultureInfo.InvariantCulture))),
-            ValidationErrorKind.NumberTooSmall => "is below its smallest allowed value" + Bound(schema?.Minimum ?? schema?.ExclusiveMinimum, schema?.IsExclusiveMinimum == true || schema?.ExclusiveMinimum is not null),
-            ValidationErrorKind.NumberTooBig => "is above its largest allowed value" + Bound(schema?.Maximum ?? schema?.ExclusiveMaximum, schema?.IsExclusiveMaximum == true || schema?.ExclusiveMaximum is not null, upper: true),
-            ValidationErrorKind.PatternMismatch => "does not have the expected form" + (schema?.Description is { Length: > 0 } d ? " (" + d + ")" : ""),
-            ValidationErrorKind.StringTooShort => "must not be empty",
-            ValidationErrorKind.TooFewItems => "needs more items",
-            _ => "is not valid here (" + error.Kind + ")",
+            Problem.NotInEnum => "must be one of " + string.Join(", ", schema.Enum ?? []),
+            Problem.TooSmall => "is below its smallest allowed value" + Bound(error.Limit, error.Exclusive, upper: false),
+            Problem.TooBig => "is above its largest allowed value" + Bound(error.Limit, error.Exclusive, upper: true),
+            Problem.Pattern => "does not have the expected form" + (schema.Description is { Length: > 0 } d ? " (" + d + ")" : ""),
+            Problem.TooShort => "must not be empty",
+            _ => "needs more items",
         };
         findings.Add(EngineRules.WrongType, valueSpan, path, "'{key}' {detail}; it is {what}.", ("key", name), ("detail", detail), ("what", shown));
     }
 
-    private static string Bound(decimal? value, bool exclusive, bool upper = false) =>
-        value is null ? "" : (upper ? (exclusive ? " (must be below " : " (at most ") : (exclusive ? " (must be above " : " (at least "))
-            + value.Value.ToString(CultureInfo.InvariantCulture) + ")";
+    private static string Bound(double value, bool exclusive, bool upper) =>
+        (upper ? (exclusive ? " (must be below " : " (at most ") : (exclusive ? " (must be above " : " (at least "))
+            + value.ToString(CultureInfo.InvariantCulture) + ")";
 
     private static string ParentOf(string path)
     {
