@@ -1,4 +1,3 @@
-using System.Collections.Frozen;
 using System.Collections.Immutable;
 using System.Globalization;
 using System.Text.Json;
@@ -19,7 +18,8 @@ public enum JsonType
 }
 
 /// <summary>An `enum` member: a string or a number (the only kinds our schemas list).</summary>
-public readonly record struct EnumValue(string? Text, double? Number)
+/// <remarks>A class, not a struct: generic code over reference types is precompiled (ReadyToRun), over our own structs it is compiled at start-up.</remarks>
+public sealed record EnumValue(string? Text, double? Number)
 {
     public override string ToString() => Text ?? Number!.Value.ToString(CultureInfo.InvariantCulture);
 }
@@ -32,8 +32,10 @@ public readonly record struct EnumValue(string? Text, double? Number)
 public sealed class SchemaNode
 {
     /// <summary>Keywords that only annotate: they never make a value invalid.</summary>
-    private static readonly FrozenSet<string> Annotations = FrozenSet.Create(StringComparer.Ordinal,
-        "$schema", "$id", "$comment", "title", "description", "default", "examples");
+    private static readonly HashSet<string> Annotations = new(StringComparer.Ordinal)
+    {
+        "$schema", "$id", "$comment", "title", "description", "default", "examples",
+    };
 
     /// <summary>The annotation key that marks a dimensioned string value.</summary>
     public const string DimensionKey = "x-dimension";
@@ -46,13 +48,20 @@ public sealed class SchemaNode
 
     public string? Description { get; private init; }
 
-    /// <summary>The allowed types in the order written (the first one names what was expected); empty allows any.</summary>
-    public ImmutableArray<JsonType> Types { get; private init; } = [];
+    /// <summary>The allowed types as bits (1 &lt;&lt; JsonType); zero when the schema has no `type` and allows any.</summary>
+    private int TypeMask { get; init; }
+
+    /// <summary>The first type written, which names what was expected in a message; null when any type is allowed.</summary>
+    public JsonType? FirstType { get; private init; }
+
+    /// <summary>True when `type` names this type itself (integer is not named by number here).</summary>
+    public bool Names(JsonType type) => (TypeMask & (1 << (int)type)) != 0;
 
     /// <summary>Named properties, in the order written.</summary>
     public ImmutableArray<(string Name, SchemaNode Schema)> PropertyList { get; private init; } = [];
 
-    public FrozenDictionary<string, SchemaNode> Properties { get; private init; } = FrozenDictionary<string, SchemaNode>.Empty;
+    // A plain dictionary: building a frozen one for each of some 150 small nodes cost more at start-up than it saves.
+    public IReadOnlyDictionary<string, SchemaNode> Properties { get; private init; } = new Dictionary<string, SchemaNode>();
 
     public ImmutableArray<(Regex Pattern, SchemaNode Schema)> PatternProperties { get; private init; } = [];
 
@@ -86,7 +95,7 @@ public sealed class SchemaNode
     public string? Dimension { get; private init; }
 
     /// <summary>True when the node allows the type (no `type` keyword allows all).</summary>
-    public bool Allows(JsonType type) => Types.IsEmpty || Types.Contains(type) || (type == JsonType.Integer && Types.Contains(JsonType.Number));
+    public bool Allows(JsonType type) => TypeMask == 0 || Names(type) || (type == JsonType.Integer && Names(JsonType.Number));
 
     /// <summary>The schema of a key of an object schema, by its properties or else its pattern properties.</summary>
     public SchemaNode? Child(string key)
@@ -109,7 +118,8 @@ public sealed class SchemaNode
     private static SchemaNode Read(JsonElement e, string name, string where)
     {
         if (e.ValueKind != JsonValueKind.Object) throw Refuse(name, where, "a schema must be an object");
-        var types = ImmutableArray<JsonType>.Empty;
+        var typeMask = 0;
+        JsonType? firstType = null;
         var properties = ImmutableArray.CreateBuilder<(string, SchemaNode)>();
         var patterns = ImmutableArray.CreateBuilder<(Regex, SchemaNode)>();
         var additionalAllowed = true;
@@ -130,9 +140,12 @@ public sealed class SchemaNode
                 case "description": description = p.Value.GetString(); break;
                 case DimensionKey: dimension = p.Value.GetString(); break;
                 case "type":
-                    types = p.Value.ValueKind == JsonValueKind.Array
-                        ? [.. p.Value.EnumerateArray().Select(t => TypeOf(t, name, at))]
-                        : [TypeOf(p.Value, name, at)];
+                    foreach (var t in p.Value.ValueKind == JsonValueKind.Array ? [.. p.Value.EnumerateArray()] : (JsonElement[])[p.Value])
+                    {
+                        var type = TypeOf(t, name, at);
+                        firstType ??= type;
+                        typeMask |= 1 << (int)type;
+                    }
                     break;
                 case "properties":
                     foreach (var child in p.Value.EnumerateObject())
@@ -150,14 +163,23 @@ public sealed class SchemaNode
                     if (p.Value.ValueKind is JsonValueKind.True or JsonValueKind.False) additionalAllowed = p.Value.GetBoolean();
                     else additional = Read(p.Value, name, at);
                     break;
-                case "required": required = [.. p.Value.EnumerateArray().Select(r => r.GetString()!)]; break;
+                case "required":
+                    var names = new List<string>();
+                    foreach (var r in p.Value.EnumerateArray()) names.Add(r.GetString()!);
+                    required = [.. names];
+                    break;
                 case "enum":
-                    enumValues = [.. p.Value.EnumerateArray().Select(v => v.ValueKind switch
+                    var members = new List<EnumValue>();
+                    foreach (var v in p.Value.EnumerateArray())
                     {
-                        JsonValueKind.String => new EnumValue(v.GetString(), null),
-                        JsonValueKind.Number => new EnumValue(null, v.GetDouble()),
-                        _ => throw Refuse(name, at, "enum members must be strings or numbers"),
-                    })];
+                        members.Add(v.ValueKind switch
+                        {
+                            JsonValueKind.String => new EnumValue(v.GetString(), null),
+                            JsonValueKind.Number => new EnumValue(null, v.GetDouble()),
+                            _ => throw Refuse(name, at, "enum members must be strings or numbers"),
+                        });
+                    }
+                    enumValues = [.. members];
                     break;
                 case "pattern": pattern = Compile(p.Value.GetString()!); break;
                 case "minLength": minLength = p.Value.GetInt32(); break;
@@ -172,15 +194,18 @@ public sealed class SchemaNode
                     break;
             }
         }
-        var list = properties.ToImmutable();
+        var named = properties.ToImmutable();
+        var byName = new Dictionary<string, SchemaNode>(named.Length, StringComparer.Ordinal);
+        foreach (var (key, schema) in named) byName[key] = schema;
         return new SchemaNode
         {
             Title = title,
             Description = description,
             Dimension = dimension,
-            Types = types,
-            PropertyList = list,
-            Properties = list.ToFrozenDictionary(x => x.Item1, x => x.Item2, StringComparer.Ordinal),
+            TypeMask = typeMask,
+            FirstType = firstType,
+            PropertyList = named,
+            Properties = byName,
             PatternProperties = patterns.ToImmutable(),
             AdditionalAllowed = additionalAllowed,
             Additional = additional,

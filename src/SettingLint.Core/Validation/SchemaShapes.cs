@@ -18,7 +18,7 @@ public static class SchemaShapes
 
     private static string TypeOf(SchemaNode s) =>
         s.Dimension is not null ? "string"
-        : s.Types.Contains(JsonType.Boolean) ? "boolean"
-        : (s.Types.Contains(JsonType.Number) || s.Types.Contains(JsonType.Integer)) ? "number"
+        : s.Names(JsonType.Boolean) ? "boolean"
+        : s.Names(JsonType.Number) || s.Names(JsonType.Integer) ? "number"
         : "string";
 }

@@ -189,7 +189,7 @@ public static class SchemaValidator
         }
         if (findings.HasAt(valueSpan)) return;
         var shown = Shown(error.Node);
-        var expectedType = error.Kind == Problem.WrongType ? schema.Types[0] : (JsonType?)null;
+        var expectedType = error.Kind == Problem.WrongType ? schema.FirstType : null;
         if (schema.Dimension is { } token && expectedType == JsonType.String)
         {
             // A relay-model range ("setting") takes its setting's dimension, which the binder knows: it reports the scalar.
