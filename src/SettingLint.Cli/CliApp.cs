@@ -15,7 +15,11 @@ public static class CliApp
     public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
     {
         // Start-up: the schemas, and for SARIF the serializer, are read on the thread pool while the rest starts.
-        if (args.Length > 0 && args[0] is "check" or "report" or "baseline") SettingLint.Core.Validation.SchemaSet.Shared.Warm();
+        if (args.Length > 0 && args[0] is "check" or "report" or "baseline" or "rules")
+        {
+            SettingLint.Core.Loading.YamlLoader.Warm();
+            SettingLint.Core.Validation.SchemaSet.Shared.Warm();
+        }
         if (args.Contains("sarif")) _ = Task.Run(SettingLint.Reporting.SarifReporter.Warm);
         var root = Build(stdout, stderr);
         ParseResult parse;

@@ -31,15 +31,15 @@ public static class QuantityParser
         var split = 0;
         while (split < s.Length && !char.IsWhiteSpace(s[split])) split++;
         var numberText = s[..split];
-        var unitText = NormaliseSpaces(s[split..]);
+        var unitText = NormaliseSpaces(s.AsSpan(split));
         if (!TryNumber(numberText, out var number))
         {
             // "6.2xFLC": a number glued to its unit.
             var glued = 0;
             while (glued < s.Length && (char.IsAsciiDigit(s[glued]) || s[glued] is '.' or '-' or '+' or 'e' or 'E')) glued++;
-            if (glued > 0 && glued < s.Length && TryNumber(s[..glued], out _) && Unit.All.ContainsKey(NormaliseSpaces(s[glued..])))
+            if (glued > 0 && glued < s.Length && TryNumber(s[..glued], out _) && Unit.All.ContainsKey(NormaliseSpaces(s.AsSpan(glued))))
             {
-                return new QuantityParse(null, QuantityError.NotANumber, NormaliseSpaces(s[glued..]));
+                return new QuantityParse(null, QuantityError.NotANumber, NormaliseSpaces(s.AsSpan(glued)));
             }
             return new QuantityParse(null, QuantityError.NotANumber, null);
         }
@@ -82,9 +82,17 @@ public static class QuantityParser
         return double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out value);
     }
 
-    private static string NormaliseSpaces(string s)
+    private static string NormaliseSpaces(ReadOnlySpan<char> s)
     {
-        var parts = s.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries);
+        // Most units are written with single spaces ("A sec"): only those that are not are split and joined again.
+        var t = s.Trim();
+        var plain = true;
+        for (var i = 0; i < t.Length && plain; i++)
+        {
+            plain = !char.IsWhiteSpace(t[i]) || (t[i] == ' ' && !char.IsWhiteSpace(t[i + 1]));
+        }
+        if (plain) return t.Length == 0 ? "" : new string(t);
+        var parts = new string(t).Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries);
         return string.Join(' ', parts);
     }
 
