@@ -32,6 +32,19 @@ public sealed class GateAcceptCommentTests
 
     private static readonly IReadOnlySet<string> Known = new HashSet<string>(["SL006", "SL010", "SL011", "SL201", "SL203", "SL801"]);
 
+    // Most files have no acceptance: the whole text is searched for the marker (in any case) before any line is split.
+    [Fact]
+    public void A_file_without_the_marker_is_not_split_into_lines()
+    {
+        var plain = Load(Motor);
+        Assert.Empty(Find(Motor));
+        Assert.Empty(AcceptComments.Find(plain));
+        Assert.False(Assert.IsType<LazyLines>(plain.Lines).IsSplit);
+        var marked = Load(Motor.Replace("tag: M-7", "tag: M-7   # Settinglint-Accept SL201: judged acceptable", StringComparison.Ordinal));
+        Assert.Equal("SL201", Assert.Single(Assert.Single(AcceptComments.Find(marked)).RuleIds));
+        Assert.True(Assert.IsType<LazyLines>(marked.Lines).IsSplit);
+    }
+
     [Fact]
     public void A_trailing_comment_covers_its_own_line()
     {

@@ -39,7 +39,7 @@ public sealed class DocumentBinder
         var binder = new DocumentBinder(findings, schemas);
         binder.Walk(root, schema, "", kind);
         binder.ResolveRelative();
-        return new BoundDocument(kind, path, relativePath, root, binder._values.ToFrozenDictionary(StringComparer.Ordinal));
+        return new BoundDocument(kind, path, relativePath, root, binder._values);
     }
 
     /// <summary>Validates and binds a bus written inline in a motor file.</summary>
@@ -49,7 +49,7 @@ public sealed class DocumentBinder
         SchemaValidator.Validate(busNode, schema, findings, "bus", InlineBusImplied);
         var binder = new DocumentBinder(findings, schemas, "bus");
         binder.Walk(busNode, schema, "", SchemaSet.Bus);
-        return new BoundDocument(SchemaSet.Bus, path, relativePath, busNode, binder._values.ToFrozenDictionary(StringComparer.Ordinal));
+        return new BoundDocument(SchemaSet.Bus, path, relativePath, busNode, binder._values);
     }
 
     private void Walk(YMapping mapping, SchemaNode schema, string prefix, string kind)

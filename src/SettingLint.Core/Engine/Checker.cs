@@ -19,23 +19,48 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 {
     private readonly SchemaSet _schemas = schemas ?? SchemaSet.Shared;
 
-    /// <summary>One setting file after binding, with the builder that holds its findings.</summary>
-    private sealed class FileState(LoadedFile loaded, bool reported)
-    {
-        public LoadedFile Loaded { get; } = loaded;
+    /// <summary>Called with each file as it is loaded, before it is bound; tests hold it weakly to see that no tree outlives its binding.</summary>
+    internal Action<LoadedFile>? OnLoaded { get; init; }
 
+    /// <summary>
+    /// What a run keeps of one file once its own values are bound: its findings, bound values and acceptance comments.
+    /// Its YAML tree and text are not kept, so that a run's memory grows with the number of files only by these.
+    /// </summary>
+    private sealed class FileState(string path, string relativePath, bool reported, bool isChecked, IReadOnlyList<Finding> loadFindings)
+    {
+        /// <summary>Absolute path.</summary>
+        public string Path { get; } = path;
+
+        public string RelativePath { get; } = relativePath;
+
+        /// <summary>Whether the file was discovered (a file loaded only because a reference names it is not reported).</summary>
         public bool Reported { get; } = reported;
 
-        public FindingBuilder Findings { get; } = new(loaded.RelativePath);
+        /// <summary>Whether it is a setting file (its YAML has a kind) or failed to load at all: such a file is checked and counted.</summary>
+        public bool IsChecked { get; } = isChecked;
+
+        /// <summary>The findings of loading (syntax, duplicate keys, limits).</summary>
+        public IReadOnlyList<Finding> LoadFindings { get; } = loadFindings;
+
+        public FindingBuilder Findings { get; } = new(relativePath);
 
         public string? Kind { get; set; }
 
         public BoundDocument? Document { get; set; }
 
+        /// <summary>A bus file as a bus, made once for every motor on it.</summary>
+        public Bus? AsBus { get; set; }
+
+        /// <summary>A relay-model file as a relay model with its ranges in file order, made once for every motor that uses it.</summary>
+        public RelayModel? AsRelayModel { get; set; }
+
+        /// <summary>The bus written inline in a motor file.</summary>
+        public Bus? InlineBus { get; set; }
+
         public MotorProtection? Motor { get; set; }
 
-        /// <summary>Binding is done once; a referenced file can be asked for by several motors at once.</summary>
-        public Lock Gate { get; } = new();
+        /// <summary>The acceptance comments, found while the tree was there (it tells comments from text and finds blocks).</summary>
+        public ImmutableArray<AcceptComment> Acceptances { get; set; } = [];
     }
 
     /// <summary>Runs a check.</summary>
@@ -84,40 +109,51 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             if (overlay.Contents.TryGetValue(rel, out var bytes)) return YamlLoader.Load(bytes, full, rel, limits);
             return overlay.Hidden.Contains(rel) ? new LoadedFile(full, rel, null, [], []) : YamlLoader.LoadFile(full, rel, limits);
         }
-        FileState LoadState(string full, string rel, bool reported) => new(Guard(() => Read(full, rel), rel, notifications)
-            ?? new LoadedFile(full, rel, null, [], []), reported);
+        // A file's own work in one go, while its tree is there: kind and format, validation and binding, acceptance
+        // comments. The tree and text are garbage once this returns, so only a few trees are alive at any time.
+        FileState LoadState(string full, string rel, bool reported)
+        {
+            var loaded = Guard(() => Read(full, rel), rel, notifications) ?? new LoadedFile(full, rel, null, [], []);
+            OnLoaded?.Invoke(loaded);
+            var state = new FileState(full, rel, reported, loaded.IsSettingFile || loaded.Failed, loaded.Findings);
+            // A file without a kind binds to nothing: a reference to it is SL007 whether it is bound or not.
+            if (loaded.IsSettingFile) Guard(() => BindOwn(state, loaded), rel, notifications);
+            if (reported && state.IsChecked && options.Accept) Guard(() => state.Acceptances = AcceptComments.Find(loaded), rel, notifications);
+            return state;
+        }
         foreach (var f in toLoad)
         {
             var file = f;
             states[f.FullPath] = new Lazy<FileState>(() => LoadState(file.FullPath, file.RelativePath, true));
         }
         var discovered = toLoad.Select(f => states[f.FullPath]).ToArray();
-        ForEach(options.Parallel, discovered, s => _ = s.Value);
-
-        var settingFiles = discovered.Select(s => s.Value).Where(s => s.Loaded.IsSettingFile || s.Loaded.Failed).ToArray();
-        // Buses and relay models first: motors refer to them.
-        ForEach(options.Parallel, settingFiles, s => Guard(() => BindOwn(s), s.Loaded.RelativePath, notifications));
-        var resolver = new ReferenceResolver<FileState>(root, states, Bound, (full, rel) => LoadState(full, rel, false));
-        ForEach(options.Parallel, settingFiles.Where(s => s.Kind == SchemaSet.MotorProtection).ToArray(),
-            s => Guard(() => BindMotor(s, resolver), s.Loaded.RelativePath, notifications));
+        // A bus or relay model is loaded and bound by whichever comes first, the pass over it or a motor that names
+        // it (Lazy runs it once). Own binding never resolves a reference, so no file waits on one that waits on it.
+        var resolver = new ReferenceResolver<FileState>(root, states, s => s.Document, (full, rel) => LoadState(full, rel, false));
+        ForEach(options.Parallel, discovered, lazy =>
+        {
+            var s = lazy.Value;
+            if (s.Kind == SchemaSet.MotorProtection) Guard(() => BindMotor(s, resolver), s.RelativePath, notifications);
+        });
+        var settingFiles = discovered.Select(s => s.Value).Where(s => s.IsChecked).ToArray();
 
         var motors = settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!).ToArray();
         var index = new RepositoryIndex(motors);
         ReportDuplicateTags(settingFiles);
         // A changed-files run binds every file (the index needs them all) but evaluates and reports only its selection.
         var (selected, dependants) = options.Changes is { EverythingBecause: null } changes
-            ? changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.Loaded.RelativePath).ToList())
+            ? changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList())
             : (null, ImmutableSortedSet<string>.Empty);
-        bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.Loaded.RelativePath));
+        bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.RelativePath));
         var reported = settingFiles.Where(Reported).ToArray();
         var motorStates = reported.Where(s => s.Motor is not null).ToArray();
-        ForEach(options.Parallel, motorStates, s => Guard(() => rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add), s.Loaded.RelativePath, notifications, "a rule failed on this motor"));
+        ForEach(options.Parallel, motorStates, s => Guard(() => rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add), s.RelativePath, notifications, "a rule failed on this motor"));
 
         var known = descriptors.Select(d => d.Id).ToHashSet(StringComparer.Ordinal);
         IEnumerable<Finding> Own(FileState s)
         {
-            IReadOnlyList<Finding> own = [.. s.Loaded.Findings, .. s.Findings.Findings];
-            return options.Accept ? Acceptances.Apply(s.Loaded, own, known) : own;
+            IReadOnlyList<Finding> own = [.. s.LoadFindings, .. s.Findings.Findings];
+            return options.Accept ? Acceptances.Apply(s.RelativePath, s.Acceptances, own, known) : own;
         }
         var findings = discovery.Findings.Where(f => selected is null || selected.Contains(f.File))
             .Concat(reported.SelectMany(Own))
@@ -133,7 +169,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             motorNames,
             options.FailOn)
         {
-            CheckedFiles = [.. reported.Select(s => s.Loaded.RelativePath).Order(StringComparer.Ordinal)],
+            CheckedFiles = [.. reported.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
         };
     }
@@ -147,12 +183,12 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var tagged = files.Where(f => f.Document?["tag"] is TextValue).GroupBy(f => ((TextValue)f.Document!["tag"]!).Value, StringComparer.Ordinal);
         foreach (var group in tagged)
         {
-            var ordered = group.OrderBy(f => f.Loaded.RelativePath, StringComparer.Ordinal).ToList();
+            var ordered = group.OrderBy(f => f.RelativePath, StringComparer.Ordinal).ToList();
             foreach (var later in ordered.Skip(1))
             {
                 later.Findings.Add(EngineRules.WrongType, later.Document!["tag"]!.Span, "tag",
                     "The tag '{tag}' is already used by {other}; a tag names one piece of equipment in the repository.",
-                    ("tag", group.Key), ("other", ordered[0].Loaded.RelativePath));
+                    ("tag", group.Key), ("other", ordered[0].RelativePath));
             }
         }
     }
@@ -189,28 +225,14 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
     }
 
-    private BoundDocument? Bound(FileState s)
+    /// <summary>Checks kind and format, then validates and binds the file's own values, an inline bus included.</summary>
+    private void BindOwn(FileState s, LoadedFile loaded)
     {
-        BindOwn(s);
-        return s.Document;
-    }
-
-    /// <summary>Checks kind and format, then validates and binds the file's own values.</summary>
-    private void BindOwn(FileState s)
-    {
-        lock (s.Gate)
-        {
-            BindOwnLocked(s);
-        }
-    }
-
-    private void BindOwnLocked(FileState s)
-    {
-        if (s.Kind is not null || s.Loaded.Root is not YMapping root) return;
+        if (loaded.Root is not YMapping root) return;
         var kindNode = root["kind"];
         if (kindNode is null)
         {
-            var near = s.Loaded.MisspeltKindKey;
+            var near = loaded.MisspeltKindKey;
             s.Findings.Add(EngineRules.MissingKey, near?.Span ?? SourceSpan.FileStart, "kind",
                 "The required key 'kind' is missing{hint}; a setting file starts with kind ({kinds}) and format.",
                 ("hint", near is null ? "" : " ('" + near.Value + "' here looks like it)"), ("kinds", string.Join(", ", SchemaSet.SettingKinds)));
@@ -241,35 +263,45 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             return;
         }
         s.Kind = kindScalar.Value;
-        s.Document = DocumentBinder.Bind(s.Kind, s.Loaded.Path, s.Loaded.RelativePath, root, s.Findings, _schemas);
+        var doc = DocumentBinder.Bind(s.Kind, s.Path, s.RelativePath, root, s.Findings, _schemas);
+        s.Document = doc;
+        switch (s.Kind)
+        {
+            case SchemaSet.Bus:
+                s.AsBus = new Bus(doc);
+                break;
+            case SchemaSet.RelayModel:
+                s.AsRelayModel = new RelayModel(doc, RelayRanges(doc, root));
+                break;
+            case SchemaSet.MotorProtection when root["bus"] is YMapping inline:
+                s.InlineBus = new Bus(DocumentBinder.BindInlineBus(s.Path, s.RelativePath, inline, s.Findings, _schemas));
+                break;
+        }
     }
 
-    private void BindMotor(FileState s, ReferenceResolver<FileState> resolver)
+    /// <summary>Resolves a motor's bus and relay model (loading and binding them on first use) and makes the motor.</summary>
+    private static void BindMotor(FileState s, ReferenceResolver<FileState> resolver)
     {
         var doc = s.Document;
         if (doc is null) return;
-        Bus? bus = null;
-        var busEntry = doc.Root.Find("bus");
-        if (busEntry?.Value is YMapping inline)
+        var bus = s.InlineBus;
+        if (bus is null && doc["bus"] is TextValue busRef)
         {
-            bus = new Bus(DocumentBinder.BindInlineBus(doc.Path, doc.RelativePath, inline, s.Findings, _schemas));
-        }
-        else if (doc["bus"] is TextValue busRef)
-        {
-            bus = resolver.Resolve(doc, busRef, SchemaSet.Bus, s.Findings) is { } b ? new Bus(b) : null;
+            bus = resolver.Resolve(doc, busRef, SchemaSet.Bus, s.Findings)?.AsBus;
         }
         RelayModel? relay = null;
-        if (doc["relay_model"] is TextValue relayRef && resolver.Resolve(doc, relayRef, SchemaSet.RelayModel, s.Findings) is { } r)
+        if (doc["relay_model"] is TextValue relayRef)
         {
-            relay = new RelayModel(r, RelayRanges(r));
+            relay = resolver.Resolve(doc, relayRef, SchemaSet.RelayModel, s.Findings)?.AsRelayModel;
         }
         s.Motor = new MotorProtection(doc, bus, relay);
     }
 
-    private static ImmutableArray<RelayRange> RelayRanges(BoundDocument doc)
+    // In the order of the file, which only its tree still knows.
+    private static ImmutableArray<RelayRange> RelayRanges(BoundDocument doc, YMapping root)
     {
         var ranges = ImmutableArray.CreateBuilder<RelayRange>();
-        if (doc.Root["ranges"] is not YMapping m) return ranges.ToImmutable();
+        if (root["ranges"] is not YMapping m) return ranges.ToImmutable();
         foreach (var e in m.Entries)
         {
             var p = "ranges." + e.Key.Value;

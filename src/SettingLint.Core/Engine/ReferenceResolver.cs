@@ -11,12 +11,13 @@ internal sealed class ReferenceResolver<TState>(
     ConcurrentDictionary<string, Lazy<TState>> states,
     Func<TState, BoundDocument?> bound,
     Func<string, string, TState> load)
+    where TState : class
 {
     // Hundreds of motors name the same bus: the file-system checks of a target are made once per run.
     private readonly ConcurrentDictionary<string, string?> _targetProblems = new(StringComparer.Ordinal);
 
-    /// <summary>The bound document a reference names, or null with an SL007 finding on the reference.</summary>
-    public BoundDocument? Resolve(BoundDocument from, TextValue reference, string expectedKind, FindingBuilder findings)
+    /// <summary>The state of the file a reference names, bound and of the expected kind; or null with an SL007 finding on the reference.</summary>
+    public TState? Resolve(BoundDocument from, TextValue reference, string expectedKind, FindingBuilder findings)
     {
         var text = reference.Value;
         if (Path.IsPathRooted(text) || text.Contains('\0', StringComparison.Ordinal))
@@ -63,7 +64,7 @@ internal sealed class ReferenceResolver<TState>(
             Add(findings, reference, "'{path}' is a {actual} file, not a {kind} file.", text, null, expectedKind, doc.Kind);
             return null;
         }
-        return doc;
+        return state;
     }
 
     private static void Add(FindingBuilder findings, TextValue reference, string template, string path, string? full = null, string? kind = null, string? actual = null)

@@ -42,7 +42,11 @@ public static partial class AcceptComments
     /// <summary>The acceptance comments of a file's lines, with its tree (when it loaded) to tell comments from text and to find blocks.</summary>
     public static ImmutableArray<AcceptComment> Find(IReadOnlyList<string> lines, YNode? root)
     {
-        if (!lines.Any(l => l.Contains(Marker, StringComparison.OrdinalIgnoreCase))) return [];
+        // Most files hold no acceptance: a search of the whole text tells, without splitting it into lines.
+        var marked = lines is LazyLines lazy
+            ? lazy.Contains(Marker, StringComparison.OrdinalIgnoreCase)
+            : lines.Any(l => l.Contains(Marker, StringComparison.OrdinalIgnoreCase));
+        if (!marked) return [];
         var scalars = new List<SourceSpan>();
         var keys = new List<(YEntry Entry, string Path)>();
         if (root is not null) Walk(root, "", scalars, keys);

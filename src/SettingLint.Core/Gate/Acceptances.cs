@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Text.RegularExpressions;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
@@ -14,12 +15,22 @@ public static partial class Acceptances
     /// <param name="file">The loaded file, for its lines and tree.</param>
     /// <param name="findings">The file's findings (of loading, binding and the rules).</param>
     /// <param name="knownRules">Every rule id of the run, engine rules included.</param>
-    public static IReadOnlyList<Finding> Apply(LoadedFile file, IReadOnlyList<Finding> findings, IReadOnlySet<string> knownRules)
+    public static IReadOnlyList<Finding> Apply(LoadedFile file, IReadOnlyList<Finding> findings, IReadOnlySet<string> knownRules) =>
+        Apply(file.RelativePath, AcceptComments.Find(file), findings, knownRules);
+
+    /// <summary>
+    /// The same with the file's acceptance comments found beforehand, while its tree was there: a check keeps only
+    /// those of each file, not its lines and tree, until its findings are known.
+    /// </summary>
+    /// <param name="relativePath">The file, relative to the repository root.</param>
+    /// <param name="comments">The file's acceptance comments (<see cref="AcceptComments.Find(LoadedFile)"/>).</param>
+    /// <param name="findings">The file's findings (of loading, binding and the rules).</param>
+    /// <param name="knownRules">Every rule id of the run, engine rules included.</param>
+    public static IReadOnlyList<Finding> Apply(string relativePath, ImmutableArray<AcceptComment> comments, IReadOnlyList<Finding> findings, IReadOnlySet<string> knownRules)
     {
-        var comments = AcceptComments.Find(file);
         if (comments.IsEmpty) return findings;
         var result = findings.ToArray();
-        var problems = new FindingBuilder(file.RelativePath);
+        var problems = new FindingBuilder(relativePath);
         // The narrowest acceptance gives its reason when a line one and a block one both cover a finding.
         foreach (var c in comments.OrderBy(c => c.LastLine - c.FirstLine).ThenBy(c => c.Span.StartLine))
         {
@@ -62,9 +73,9 @@ public static partial class Acceptances
                 for (var k = 0; k < result.Length; k++)
                 {
                     var f = result[k];
-                    if (f.RuleId != id || f.File != file.RelativePath || !c.Covers(f.Span.StartLine)) continue;
+                    if (f.RuleId != id || f.File != relativePath || !c.Covers(f.Span.StartLine)) continue;
                     matched = true;
-                    if (f.Suppression is null) result[k] = f with { Suppression = new Suppression(c.Reason, file.RelativePath, c.Span) };
+                    if (f.Suppression is null) result[k] = f with { Suppression = new Suppression(c.Reason, relativePath, c.Span) };
                 }
                 if (!matched)
                 {

@@ -19,6 +19,12 @@ public sealed class LazyLines(string text) : IReadOnlyList<string>
 
     public int Count => Lines.Length;
 
+    /// <summary>Whether the lines have been split (for tests: a file that nobody reads a comment of is not).</summary>
+    internal bool IsSplit => !_lines.IsDefault;
+
+    /// <summary>Whether the text holds a string, found without splitting it into lines.</summary>
+    public bool Contains(string value, StringComparison comparison) => text.Contains(value, comparison);
+
     public string this[int index] => Lines[index];
 
     public IEnumerator<string> GetEnumerator() => ((IEnumerable<string>)Lines).GetEnumerator();

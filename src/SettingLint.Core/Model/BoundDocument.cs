@@ -1,28 +1,49 @@
-using System.Collections.Frozen;
 using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Model;
 
 /// <summary>One bound setting file: its kind, its place, and its values by key path (dots between keys).</summary>
-public sealed class BoundDocument(string kind, string path, string relativePath, YMapping root, FrozenDictionary<string, BoundValue> values)
+/// <remarks>
+/// It keeps no YAML tree: a run holds every document until its rules have run, and the trees of thousands of files
+/// are most of a run's memory. What findings still need of the tree, the spans of keys, is taken when it is made.
+/// </remarks>
+public sealed class BoundDocument
 {
+    private readonly Dictionary<string, BoundValue> _values;
+    private readonly KeySpans _keys;
+
+    /// <summary>A document bound from a tree; the tree is read here for its key spans and not kept.</summary>
+    public BoundDocument(string kind, string path, string relativePath, YMapping root, IReadOnlyDictionary<string, BoundValue> values)
+    {
+        ArgumentNullException.ThrowIfNull(root);
+        ArgumentNullException.ThrowIfNull(values);
+        Kind = kind;
+        Path = path;
+        RelativePath = relativePath;
+        // Each value gets the process's one string of its path, so that the document keeps only what is its own.
+        _values = new Dictionary<string, BoundValue>(values.Count, StringComparer.Ordinal);
+        foreach (var (key, value) in values)
+        {
+            var shared = KeyPaths.Shared(key);
+            _values[shared] = value.Path == key && !ReferenceEquals(value.Path, shared) ? value with { Path = shared } : value;
+        }
+        _keys = KeySpans.Of(root, _values);
+    }
+
     /// <summary>motor-protection, bus or relay-model.</summary>
-    public string Kind { get; } = kind;
+    public string Kind { get; }
 
     /// <summary>Absolute path.</summary>
-    public string Path { get; } = path;
+    public string Path { get; }
 
     /// <summary>Relative to the repository root, forward slashes.</summary>
-    public string RelativePath { get; } = relativePath;
-
-    /// <summary>The YAML tree, for spans of keys that have no bound value.</summary>
-    public YMapping Root { get; } = root;
+    public string RelativePath { get; }
 
     /// <summary>Every bound value by key path.</summary>
-    public FrozenDictionary<string, BoundValue> Values { get; } = values;
+    public IReadOnlyDictionary<string, BoundValue> Values => _values;
 
     /// <summary>The value at a key path, when present and bound.</summary>
-    public BoundValue? this[string path] => Values.GetValueOrDefault(path);
+    public BoundValue? this[string path] => _values.GetValueOrDefault(path);
 
     /// <summary>A dimensioned or plain number at a key path.</summary>
     public MeasureValue? Measure(string path) => this[path] as MeasureValue;
@@ -36,18 +57,9 @@ public sealed class BoundDocument(string kind, string path, string relativePath,
     /// <summary>The equipment tag, or the file name when the tag is missing.</summary>
     public string Tag => Text("tag") ?? System.IO.Path.GetFileNameWithoutExtension(RelativePath);
 
-    /// <summary>The span of the node at a key path (a key's value, or the key of a mapping), for placing findings.</summary>
-    public SourceSpan SpanOf(string path)
-    {
-        if (Values.TryGetValue(path, out var v)) return v.Span;
-        YNode node = Root;
-        YScalar? key = null;
-        foreach (var part in path.Split('.'))
-        {
-            if (node is not YMapping m || m.Find(part) is not { } e) return key?.Span ?? SourceSpan.FileStart;
-            key = e.Key;
-            node = e.Value;
-        }
-        return node is YScalar ? node.Span : key?.Span ?? SourceSpan.FileStart;
-    }
+    /// <summary>
+    /// The span of the node at a key path, for placing findings: its bound value, else a scalar written there,
+    /// else the key of the mapping or list there, else the deepest key on the way, else the file's start.
+    /// </summary>
+    public SourceSpan SpanOf(string path) => _values.TryGetValue(path, out var v) ? v.Span : _keys.SpanOf(path);
 }
