@@ -1,4 +1,3 @@
-using System.Collections.Frozen;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
