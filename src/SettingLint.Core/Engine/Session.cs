@@ -18,15 +18,15 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         s.Warm();
         var first = paths.Count == 0 ? "." : paths[0];
         var root = RepositoryRoot.Find(first);
-        var loader = new RuleLoader(s);
-        // The built-in pack compiles (against schema shapes, no validating schema needed) while the configuration
-        // waits for its schema: the two longest steps of a one-file run overlap.
-        var builtIn = Task.Run(() => loader.Load(RuleLoader.BuiltIn()));
+        // The built-in pack compiles on the thread pool (started by the command already, or now) while the
+        // configuration is read: the two longest steps of a one-file run overlap.
+        var builtIn = RuleLoader.CompiledBuiltIn(s);
         var (config, problems) = SettingsConfig.Load(root, first, s);
         var results = new List<RuleLoadResult>();
+        RuleLoader? folders = null;
         foreach (var pack in config.Packs)
         {
-            results.Add(pack == "builtin" ? builtIn.Result : loader.Load(RuleLoader.FromFolder(pack, root)));
+            results.Add(pack == "builtin" ? builtIn.GetAwaiter().GetResult() : (folders ??= new RuleLoader(s)).Load(RuleLoader.FromFolder(pack, root)));
         }
         var loaded = RuleLoader.Configure(RuleLoader.Merge(results), config.Overrides);
         var unknown = config.Overrides.ById.Keys.Where(id => !loaded.Rules.Any(r => r.Id == id) && !EngineRules.All.Any(r => r.Id == id))

@@ -21,6 +21,19 @@ public sealed class RuleLoader(SchemaSet schemas)
 {
     private readonly Compiler _compiler = new();
 
+    // The built-in pack does not depend on the repository: it is compiled once per process, and a command can start
+    // that at once (Warm) so that it overlaps with the command line, the configuration and the first files.
+    private static readonly Lazy<Task<RuleLoadResult>> SharedBuiltIn =
+        new(() => Task.Run(() => new RuleLoader(SchemaSet.Shared).Load(BuiltIn())), LazyThreadSafetyMode.ExecutionAndPublication);
+
+    /// <summary>Starts compiling the built-in pack on the thread pool, if it has not started yet.</summary>
+    public static void Warm() => _ = SharedBuiltIn.Value;
+
+    /// <summary>The compiled built-in pack, unconfigured: shared by every run of the process with the shared schemas.</summary>
+    /// <remarks>Compiled rules are immutable (configuring one makes a new record), so sharing them between runs is safe.</remarks>
+    public static Task<RuleLoadResult> CompiledBuiltIn(SchemaSet schemas) =>
+        ReferenceEquals(schemas, SchemaSet.Shared) ? SharedBuiltIn.Value : Task.Run(() => new RuleLoader(schemas).Load(BuiltIn()));
+
     /// <summary>The rule files of the built-in pack, embedded in this assembly.</summary>
     public static IReadOnlyList<RuleSource> BuiltIn()
     {
