@@ -19,11 +19,14 @@ public static class CurveTokens
         _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown curve kind."),
     };
 
+    // Enum.GetValues copies its array at every call, and rules parse a curve token for every motor.
+    private static readonly CurveKind[] Kinds = Enum.GetValues<CurveKind>();
+
     /// <summary>Reads a curve token (exact, case-sensitive match) without throwing; common practice (settings-file tokens).</summary>
     public static bool TryParse([NotNullWhen(true)] string? token, out CurveKind kind)
     {
         // Exact match keeps the file format strict: a linter should flag "IEC-Very-Inverse", not guess.
-        foreach (var candidate in Enum.GetValues<CurveKind>())
+        foreach (var candidate in Kinds)
         {
             if (string.Equals(candidate.Token(), token, StringComparison.Ordinal))
             {

@@ -25,7 +25,14 @@ public abstract record CheckNode
 }
 
 /// <summary>A comparison: left is the actual value, right the limit.</summary>
-public sealed record ComparisonNode(string Op, Compiled Left, Compiled Right) : CheckNode;
+public sealed record ComparisonNode(string Op, Compiled Left, Compiled Right) : CheckNode
+{
+    // Decoded once; kept with the text it was decoded from, so that a copy made with 'with' and another Op decodes afresh.
+    private readonly (string Op, Comparison Code) _decoded = (Op, Comparisons.Of(Op));
+
+    /// <summary>The operator decoded.</summary>
+    internal Comparison Code => ReferenceEquals(_decoded.Op, Op) ? _decoded.Code : Comparisons.Of(Op);
+}
 
 public sealed record AndNode(CheckNode Left, CheckNode Right) : CheckNode;
 
@@ -39,7 +46,10 @@ public sealed record PlainNode(Compiled Expression) : CheckNode;
 public sealed record CheckNumbers(string Op, double Actual, double Limit, double? Margin, Dim Dim, bool Percent)
 {
     /// <summary>Margin over the size of the limit; null when the limit is zero or infinite.</summary>
-    public double? MarginRatio => Margin is { } m && Limit != 0 && double.IsFinite(Limit) && double.IsFinite(m) ? m / Math.Abs(Limit) : null;
+    public double? MarginRatio => Ratio(Margin, Limit);
+
+    internal static double? Ratio(double? margin, double limit) =>
+        margin is { } m && limit != 0 && double.IsFinite(limit) && double.IsFinite(m) ? m / Math.Abs(limit) : null;
 }
 
 /// <summary>A rule compiled once per run: its descriptor, effective level and parameters, and its compiled expressions.</summary>

@@ -1,4 +1,5 @@
 using System.Collections.Frozen;
+using System.Runtime.CompilerServices;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Validation;
@@ -10,6 +11,60 @@ public sealed record Compiled(ExprType Type, Func<EvalContext, Val> Eval, Expr S
 {
     /// <summary>Display hint: the value is a fraction best shown in percent (not part of the type).</summary>
     public bool Percent { get; init; }
+
+    /// <summary>For a leaf (a literal, a parameter, a let, a path, a range value): which, so that its value is read without calling Eval.</summary>
+    internal LeafKind Leaf { get; init; }
+
+    /// <summary>The parameter or let index of a leaf.</summary>
+    internal int LeafIndex { get; init; }
+
+    /// <summary>The path slot of a path leaf.</summary>
+    internal PathSlot? LeafSlot { get; init; }
+
+    /// <summary>The value of a literal.</summary>
+    internal Val LeafValue { get; init; }
+
+    /// <summary>For a chain of 'and' or of 'or': the operator, so that a chain around it takes its operands over.</summary>
+    internal string? Junction { get; init; }
+
+    /// <summary>The operands of the chain, in order.</summary>
+    internal Compiled[]? JunctionOperands { get; init; }
+
+    /// <summary>
+    /// The same value as <see cref="Eval"/>: leaves are read in place, since a delegate call costs more than what most
+    /// leaves do (an array read), and every operator has leaves below it.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    internal Val Get(EvalContext ctx) => Leaf == LeafKind.None ? Eval(ctx) : ReadLeaf(ctx);
+
+    private Val ReadLeaf(EvalContext ctx) => Leaf switch
+    {
+        LeafKind.Literal => LeafValue,
+        LeafKind.Let => ctx.Lets[LeafIndex],
+        LeafKind.Parameter => Val.Of(ctx.Parameters[LeafIndex]),
+        LeafKind.MotorPath => ctx.ReadMotor(LeafSlot!),
+        LeafKind.BusPath => ctx.ReadBus(LeafSlot!),
+        LeafKind.ItemValue => ctx.Item!.Value,
+        LeafKind.ItemMin => ctx.Item!.Min,
+        LeafKind.ItemMax => ctx.Item!.Max,
+        LeafKind.ItemStep => ctx.Item!.Step,
+        _ => Eval(ctx),
+    };
+}
+
+/// <summary>What a leaf expression reads (None: not a leaf, evaluate it).</summary>
+internal enum LeafKind
+{
+    None,
+    Literal,
+    Let,
+    Parameter,
+    MotorPath,
+    BusPath,
+    ItemValue,
+    ItemMin,
+    ItemMax,
+    ItemStep,
 }
 
 /// <summary>What names a rule may use besides model paths: its parameters, its lets so far, and whether it runs per relay range.</summary>
@@ -41,15 +96,17 @@ public sealed class Compiler
     /// <summary>Compiles an expression in a scope.</summary>
     public Compiled Compile(Expr e, Scope scope) => e switch
     {
-        NumberLit n => new(ExprType.Num(n.Dim), _ => Val.Of(n.Value), e) { Percent = n.Percent },
-        TextLit t => new(ExprType.Text, _ => Val.Of(t.Value), e),
-        BoolLit b => new(ExprType.Bool, _ => Val.Of(b.Value), e),
+        NumberLit n => Constant(ExprType.Num(n.Dim), Val.Of(n.Value), e) with { Percent = n.Percent },
+        TextLit t => Constant(ExprType.Text, Val.Of(t.Value), e),
+        BoolLit b => Constant(ExprType.Bool, Val.Of(b.Value), e),
         PathRef p => CompilePath(p, scope),
         Unary u => CompileUnary(u, scope),
         Binary b => CompileBinary(b, scope),
         Call c => CompileCall(c, scope),
         _ => throw new RuleSyntaxException("Unknown expression.", e.Offset),
     };
+
+    private static Compiled Constant(ExprType type, Val value, Expr e) => new(type, _ => value, e) { Leaf = LeafKind.Literal, LeafValue = value };
 
     private Compiled CompilePath(PathRef p, Scope scope)
     {
@@ -62,17 +119,17 @@ public sealed class Compiler
                 throw new RuleSyntaxException($"Unknown parameter '{name}'; the rule declares {List(scope.Parameters.Keys)}.", p.Offset);
             }
             var i = prm.Index;
-            return new(prm.Type, ctx => Val.Of(ctx.Parameters[i]), p) { Percent = prm.Percent };
+            return new(prm.Type, ctx => Val.Of(ctx.Parameters[i]), p) { Percent = prm.Percent, Leaf = LeafKind.Parameter, LeafIndex = i };
         }
         if (path.StartsWith("item.", StringComparison.Ordinal))
         {
             if (!scope.HasItem) throw new RuleSyntaxException("'item' is only known in a rule with for_each.", p.Offset);
             return path switch
             {
-                "item.value" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Value, p),
-                "item.min" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Min, p),
-                "item.max" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Max, p),
-                "item.step" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Step, p),
+                "item.value" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Value, p) { Leaf = LeafKind.ItemValue },
+                "item.min" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Min, p) { Leaf = LeafKind.ItemMin },
+                "item.max" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Max, p) { Leaf = LeafKind.ItemMax },
+                "item.step" => new(ExprType.Num(Dim.ItemValue), ctx => ctx.Item!.Step, p) { Leaf = LeafKind.ItemStep },
                 "item.setting" => new(ExprType.Text, ctx => Val.Of(ctx.Item!.Setting), p),
                 _ => throw new RuleSyntaxException($"Unknown '{path}'; a relay range has item.value, item.min, item.max, item.step and item.setting.", p.Offset),
             };
@@ -84,16 +141,19 @@ public sealed class Compiler
                 throw new RuleSyntaxException($"Unknown name '{path}'; a path has dots (motor.full_load_current), and the lets defined before this are {List(scope.Lets.Keys)}.", p.Offset);
             }
             var i = let.Index;
-            return new(let.Type, ctx => ctx.Lets[i], p) { Percent = let.Percent };
+            return new(let.Type, ctx => ctx.Lets[i], p) { Percent = let.Percent, Leaf = LeafKind.Let, LeafIndex = i };
         }
         if (path.StartsWith("bus.", StringComparison.Ordinal))
         {
             var busPath = path["bus.".Length..];
             if (!_busPaths.TryGetValue(busPath, out var bt)) throw Unknown(p, busPath, _busPaths.Keys, "bus.");
-            return new(bt, ctx => Read(ctx.Motor.Bus?.Document, busPath), p) { Percent = _percentPaths.Contains(path) };
+            // A slot instead of the path: the context looks the path up once per motor, however many rules read it.
+            var busSlot = PathTable.Bus.Of(busPath);
+            return new(bt, ctx => ctx.ReadBus(busSlot), p) { Percent = _percentPaths.Contains(path), Leaf = LeafKind.BusPath, LeafSlot = busSlot };
         }
         if (!_motorPaths.TryGetValue(path, out var mt)) throw Unknown(p, path, _motorPaths.Keys, "");
-        return new(mt, ctx => Read(ctx.Motor.Document, path), p) { Percent = _percentPaths.Contains(path) };
+        var slot = PathTable.Motor.Of(path);
+        return new(mt, ctx => ctx.ReadMotor(slot), p) { Percent = _percentPaths.Contains(path), Leaf = LeafKind.MotorPath, LeafSlot = slot };
     }
 
     private static RuleSyntaxException Unknown(PathRef p, string path, IEnumerable<string> known, string prefix)
@@ -123,20 +183,16 @@ public sealed class Compiler
         if (u.Op == "not")
         {
             if (x.Type.Kind != ValKind.Bool) throw new RuleSyntaxException($"'not' needs true/false, not {x.Type}.", u.Offset);
-            var f = x.Eval;
-            return new(ExprType.Bool, ctx => f(ctx) is { IsAbsent: false } v ? Val.Of(!v.Flag) : Val.Absent, u);
+            return new(ExprType.Bool, ctx => x.Get(ctx) is { IsAbsent: false } v ? Val.Of(!v.Flag) : Val.Absent, u);
         }
         if (x.Type.Kind != ValKind.Number) throw new RuleSyntaxException($"'-' needs a number, not {x.Type}.", u.Offset);
-        var g = x.Eval;
-        return new(x.Type, ctx => g(ctx) is { IsAbsent: false } v ? Val.Of(-v.Number) : Val.Absent, u) { Percent = x.Percent };
+        return new(x.Type, ctx => x.Get(ctx) is { IsAbsent: false } v ? Val.Of(-v.Number) : Val.Absent, u) { Percent = x.Percent };
     }
 
     private Compiled CompileBinary(Binary b, Scope scope)
     {
         var l = Compile(b.Left, scope);
         var r = Compile(b.Right, scope);
-        var lf = l.Eval;
-        var rf = r.Eval;
         switch (b.Op)
         {
             case "and" or "or":
@@ -144,28 +200,44 @@ public sealed class Compiler
                 {
                     throw new RuleSyntaxException($"'{b.Op}' joins true/false values, not {l.Type} and {r.Type}.", b.Offset);
                 }
-                return b.Op == "and"
-                    ? new(ExprType.Bool, ctx => And(lf(ctx), rf, ctx), b)
-                    : new(ExprType.Bool, ctx => Or(lf(ctx), rf, ctx), b);
+            {
+                // A chain of one operator (a or b or c) is evaluated as one list, not as nested pairs: the same values in the
+                // same order, stopping at the same operand (the first false for 'and', the first true for 'or').
+                var operands = Operands(l, b.Op).Concat(Operands(r, b.Op)).ToArray();
+                var decisive = b.Op == "or";
+                return new(ExprType.Bool, ctx =>
+                {
+                    var absent = false;
+                    foreach (var o in operands)
+                    {
+                        var v = o.Get(ctx);
+                        if (v.IsAbsent) absent = true;
+                        else if (v.Flag == decisive) return decisive ? True : False;
+                    }
+                    return absent ? Val.Absent : decisive ? False : True;
+                }, b) { Junction = b.Op, JunctionOperands = operands };
+            }
             case "+" or "-":
                 Numbers(l, r, b);
                 if (l.Type.Dim != r.Type.Dim) throw new RuleSyntaxException($"'{b.Op}' needs values of one dimension, not {l.Type} and {r.Type}.", b.Offset);
                 return b.Op == "+"
-                    ? new(l.Type, ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x + y), b) { Percent = l.Percent || r.Percent }
-                    : new(l.Type, ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x - y), b) { Percent = l.Percent || r.Percent };
+                    ? new(l.Type, ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x + y) : Val.Absent, b) { Percent = l.Percent || r.Percent }
+                    : new(l.Type, ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x - y) : Val.Absent, b) { Percent = l.Percent || r.Percent };
             case "*":
                 Numbers(l, r, b);
-                return new(ExprType.Num(l.Type.Dim * r.Type.Dim), ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x * y), b) { Percent = l.Percent ^ r.Percent && l.Type.Dim == Dim.None && r.Type.Dim == Dim.None };
+                return new(ExprType.Num(l.Type.Dim * r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x * y) : Val.Absent, b) { Percent = l.Percent ^ r.Percent && l.Type.Dim == Dim.None && r.Type.Dim == Dim.None };
             case "/":
                 Numbers(l, r, b);
-                return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(lf(ctx), rf(ctx), static (x, y) => x / y), b);
+                return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x / y) : Val.Absent, b);
             default:
                 if (l.Type != r.Type) throw new RuleSyntaxException($"'{b.Op}' compares {l.Type} with {r.Type}.", b.Offset);
                 if (l.Type.Kind != ValKind.Number && b.Op is not ("==" or "!=")) throw new RuleSyntaxException($"'{b.Op}' compares numbers, not {l.Type}.", b.Offset);
-                var op = b.Op;
-                return new(ExprType.Bool, ctx => Compare(op, lf(ctx), rf(ctx)), b);
+                var op = Comparisons.Of(b.Op);
+                return new(ExprType.Bool, ctx => Compare(op, l.Get(ctx), r.Get(ctx)), b);
         }
     }
+
+    private static Compiled[] Operands(Compiled c, string op) => c.Junction == op ? c.JunctionOperands! : [c];
 
     private static void Numbers(Compiled l, Compiled r, Binary b)
     {
@@ -175,33 +247,28 @@ public sealed class Compiler
         }
     }
 
-    private static Val And(Val l, Func<EvalContext, Val> r, EvalContext ctx)
-    {
-        if (l is { IsAbsent: false, Flag: false }) return Val.Of(false);
-        var rv = r(ctx);
-        if (rv is { IsAbsent: false, Flag: false }) return Val.Of(false);
-        return l.IsAbsent || rv.IsAbsent ? Val.Absent : Val.Of(true);
-    }
+    private static readonly Val True = Val.Of(true);
+    private static readonly Val False = Val.Of(false);
 
-    private static Val Or(Val l, Func<EvalContext, Val> r, EvalContext ctx)
+    // Both sides are evaluated before the absence test, as they always were: evaluation order is part of the behaviour.
+    private static bool Arith(Val l, Val r, out double x, out double y)
     {
-        if (l is { IsAbsent: false, Flag: true }) return Val.Of(true);
-        var rv = r(ctx);
-        if (rv is { IsAbsent: false, Flag: true }) return Val.Of(true);
-        return l.IsAbsent || rv.IsAbsent ? Val.Absent : Val.Of(false);
+        x = l.Number;
+        y = r.Number;
+        return !l.IsAbsent && !r.IsAbsent;
     }
-
-    private static Val Arith(Val l, Val r, Func<double, double, double> f) =>
-        l.IsAbsent || r.IsAbsent ? Val.Absent : Val.Of(f(l.Number, r.Number));
 
     /// <summary>Compares two values; absent when either is.</summary>
-    public static Val Compare(string op, Val l, Val r)
+    public static Val Compare(string op, Val l, Val r) => Compare(Comparisons.Of(op), l, r);
+
+    /// <summary>Compares two values with an operator decoded when the rule compiled; absent when either is.</summary>
+    internal static Val Compare(Comparison op, Val l, Val r)
     {
         if (l.IsAbsent || r.IsAbsent) return Val.Absent;
         if (l.Kind != ValKind.Number)
         {
             var eq = l.Kind == ValKind.Bool ? l.Flag == r.Flag : string.Equals(l.Text, r.Text, StringComparison.Ordinal);
-            return Val.Of(op == "==" ? eq : !eq);
+            return Val.Of(op == Comparison.Equal ? eq : !eq);
         }
         // Settings are compared to the precision they are written and converted with, so 1.7 x 400 A equals 680 A.
         const double relative = 1e-9;
@@ -210,11 +277,11 @@ public sealed class Compiler
         var close = Math.Abs(x - y) <= relative * Math.Max(Math.Abs(x), Math.Abs(y));
         return Val.Of(op switch
         {
-            "<" => x < y && !close,
-            "<=" => x <= y || close,
-            ">" => x > y && !close,
-            ">=" => x >= y || close,
-            "==" => close,
+            Comparison.Less => x < y && !close,
+            Comparison.LessOrEqual => x <= y || close,
+            Comparison.Greater => x > y && !close,
+            Comparison.GreaterOrEqual => x >= y || close,
+            Comparison.Equal => close,
             _ => !close,
         });
     }
@@ -245,16 +312,18 @@ public sealed class Compiler
         {
             throw new RuleSyntaxException($"'{c.Name}': {ex.Message}.", c.Offset);
         }
-        var evals = args.Select(a => a.Eval).ToArray();
+        var evals = args;
         var percent = c.Name == "coverage" || (c.Name is "min" or "max" or "coalesce" or "abs" && args[0].Percent);
         var body = fn.Body;
         var takesAbsent = fn.TakesAbsent;
         return new(type, ctx =>
         {
-            var values = new Val[evals.Length];
+            // The arguments live on the stack: a call allocates nothing unless it has more than ArgBuffer holds.
+            var buffer = default(ArgBuffer);
+            var values = evals.Length <= ArgBuffer.Size ? ((Span<Val>)buffer)[..evals.Length] : new Val[evals.Length];
             for (var i = 0; i < evals.Length; i++)
             {
-                values[i] = evals[i](ctx);
+                values[i] = evals[i].Get(ctx);
                 if (values[i].IsAbsent && !takesAbsent) return Val.Absent;
             }
             try
@@ -275,7 +344,7 @@ public sealed class Compiler
         if (c.Name == "others_count")
         {
             if (c.Args.Length != 0) throw new RuleSyntaxException("'others_count' takes no arguments.", c.Offset);
-            return new(ExprType.Num(Dim.None), ctx => Val.Of(ctx.Index.OthersOnBus(ctx.Motor).Count()), c);
+            return new(ExprType.Num(Dim.None), ctx => Val.Of(OthersCount(ctx)), c);
         }
         if (c.Args.Length != 1) throw new RuleSyntaxException($"'{c.Name}' takes one expression, evaluated for each other motor on the bus.", c.Offset);
         // The inner expression sees another motor, so it may use paths and parameters but not this rule's lets.
@@ -283,16 +352,31 @@ public sealed class Compiler
         if (inner.Type.Kind != ValKind.Number) throw new RuleSyntaxException($"'{c.Name}' takes a number expression, not {inner.Type}.", c.Offset);
         var f = inner.Eval;
         var max = c.Name == "others_max";
+        var node = new object();
         return new(inner.Type, ctx =>
         {
+            var group = ctx.Index.MotorsOnBusOf(ctx.Motor);
+            // The expression's value for each motor of a bus is the same for every motor that asks: computed once per bus per run.
+            var cached = ctx.Run?.OnBus(node, ctx, group, f);
             double? best = null;
-            foreach (var other in ctx.Index.OthersOnBus(ctx.Motor))
+            for (var j = 0; j < group.Length; j++)
             {
-                var v = f(ctx.For(other));
+                if (ReferenceEquals(group[j], ctx.Motor)) continue;
+                var v = cached is null ? f(ctx.For(group[j])) : cached.Get(j);
                 if (v.IsAbsent) continue;
                 best = best is null ? v.Number : max ? Math.Max(best.Value, v.Number) : Math.Min(best.Value, v.Number);
             }
             return best is null ? Val.Absent : Val.Of(best.Value);
         }, c) { Percent = inner.Percent };
+    }
+
+    private static int OthersCount(EvalContext ctx)
+    {
+        var n = 0;
+        foreach (var m in ctx.Index.MotorsOnBusOf(ctx.Motor))
+        {
+            if (!ReferenceEquals(m, ctx.Motor)) n++;
+        }
+        return n;
     }
 }

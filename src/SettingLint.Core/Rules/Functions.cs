@@ -9,7 +9,10 @@ namespace SettingLint.Core.Rules;
 /// <param name="MaxArgs">Most arguments (int.MaxValue for variadic).</param>
 /// <param name="Type">Checks argument types and gives the result type, or throws with the problem.</param>
 /// <param name="Body">Computes the result from present arguments (absent arguments make the result absent, except for coalesce and present).</param>
-public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, Func<Val[], Val> Body, bool TakesAbsent = false);
+public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false);
+
+/// <summary>A function's body over its evaluated arguments (a span, so that a call needs no array).</summary>
+public delegate Val FunctionBody(ReadOnlySpan<Val> args);
 
 /// <summary>The closed, explicit table of functions a rule may call. Nothing else is reachable from a rule.</summary>
 public static class Functions
@@ -18,14 +21,14 @@ public static class Functions
 
     private static IEnumerable<FunctionDef> Build()
     {
-        yield return new("min", 1, int.MaxValue, SameNumbers, a => Val.Of(a.Min(v => v.Number)));
-        yield return new("max", 1, int.MaxValue, SameNumbers, a => Val.Of(a.Max(v => v.Number)));
+        yield return new("min", 1, int.MaxValue, SameNumbers, Min);
+        yield return new("max", 1, int.MaxValue, SameNumbers, Max);
         yield return new("abs", 1, 1, t => Num(t[0], 0), a => Val.Of(Math.Abs(a[0].Number)));
         yield return new("sqrt", 1, 1, t => Plain(t, "sqrt"), a => Val.Of(Math.Sqrt(a[0].Number)));
         yield return new("ln", 1, 1, t => Plain(t, "ln"), a => Val.Of(Math.Log(a[0].Number)));
         yield return new("exp", 1, 1, t => Plain(t, "exp"), a => Val.Of(Math.Exp(a[0].Number)));
         yield return new("present", 1, 1, _ => ExprType.Bool, a => Val.Of(!a[0].IsAbsent), TakesAbsent: true);
-        yield return new("coalesce", 1, int.MaxValue, Same, a => a.FirstOrDefault(v => !v.IsAbsent), TakesAbsent: true);
+        yield return new("coalesce", 1, int.MaxValue, Same, Coalesce, TakesAbsent: true);
         yield return new("lrc_at", 3, 3, t => Expect(t, Dim.Current, Dim.Current, Dim.Voltage, Dim.Voltage),
             a => Val.Of(LockedRotorCodes.ScaleToVoltage(a[0].Number, a[1].Number, a[2].Number)));
         yield return new("code_letter_min", 3, 3, CodeLetterType, a => CodeLetter(a, upper: false));
@@ -43,6 +46,46 @@ public static class Functions
         yield return new("asym_factor", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(AsymmetricalCurrent.DecayingRmsFactor(a[0].Number)));
         yield return new("curve_time", 4, 4, CurveType, CurveTime);
         yield return new("on_step", 3, 3, OnStepType, OnStep);
+    }
+
+    // Min and Max keep what Enumerable.Min and Max did with NaN: Min returns the first NaN, Max skips NaN unless all are.
+    private static Val Min(ReadOnlySpan<Val> a)
+    {
+        var value = a[0].Number;
+        if (double.IsNaN(value)) return Val.Of(value);
+        for (var i = 1; i < a.Length; i++)
+        {
+            var x = a[i].Number;
+            if (x < value) value = x;
+            else if (double.IsNaN(x)) return Val.Of(x);
+        }
+        return Val.Of(value);
+    }
+
+    private static Val Max(ReadOnlySpan<Val> a)
+    {
+        var i = 0;
+        var value = a[0].Number;
+        while (double.IsNaN(value))
+        {
+            if (++i >= a.Length) return Val.Of(value);
+            value = a[i].Number;
+        }
+        for (i++; i < a.Length; i++)
+        {
+            var x = a[i].Number;
+            if (x > value) value = x;
+        }
+        return Val.Of(value);
+    }
+
+    private static Val Coalesce(ReadOnlySpan<Val> a)
+    {
+        foreach (var v in a)
+        {
+            if (!v.IsAbsent) return v;
+        }
+        return Val.Absent;
     }
 
     private static ExprType SameNumbers(ExprType[] t)
@@ -91,7 +134,7 @@ public static class Functions
         return ExprType.Num(Dim.Current);
     }
 
-    private static Val CodeLetter(Val[] a, bool upper)
+    private static Val CodeLetter(ReadOnlySpan<Val> a, bool upper)
     {
         if (!LockedRotorCodes.TryParse(a[0].Text, out var letter)) return Val.Absent;
         var range = LockedRotorCodes.LockedRotorCurrentRangeFromWatts(letter, a[1].Number, a[2].Number);
@@ -105,7 +148,7 @@ public static class Functions
         return ExprType.Num(Dim.None);
     }
 
-    private static Val HotLevel(Val[] a)
+    private static Val HotLevel(ReadOnlySpan<Val> a)
     {
         if (a[0].IsAbsent || a[1].IsAbsent) return Val.Absent;
         if (a.Length == 3 && !a[2].IsAbsent) return Val.Of(a[2].Number);
@@ -113,7 +156,7 @@ public static class Functions
         return Val.Of(r * r);
     }
 
-    private static Val CoolingTime(Val[] a)
+    private static Val CoolingTime(ReadOnlySpan<Val> a)
     {
         var t = new ThermalModel(1, 1, a[2].Number).CoolingTime(a[0].Number, a[1].Number);
         return t is { } s ? Val.Of(s) : Val.Of(double.PositiveInfinity);
@@ -135,7 +178,7 @@ public static class Functions
         return ExprType.Num(Dim.None);
     }
 
-    private static Val CtSaturationValue(Val[] a)
+    private static Val CtSaturationValue(ReadOnlySpan<Val> a)
     {
         if (!CClassRating.TryParse(a[3].Text, out var r) || r is null) return Val.Absent;
         return Val.Of(r.CheckSaturation(a[0].Number, a[1].Number / a[2].Number, a[4].Number).Criterion);
@@ -150,7 +193,7 @@ public static class Functions
         return ExprType.Num(Dim.Time);
     }
 
-    private static Val CurveTime(Val[] a)
+    private static Val CurveTime(ReadOnlySpan<Val> a)
     {
         if (!CurveTokens.TryParse(a[0].Text, out var kind)) return Val.Absent;
         var t = InverseTimeCurves.OperateTime(kind, a[3].Number / a[1].Number, a[2].Number);
@@ -163,7 +206,7 @@ public static class Functions
         return ExprType.Bool;
     }
 
-    private static Val OnStep(Val[] a)
+    private static Val OnStep(ReadOnlySpan<Val> a)
     {
         var step = a[2].Number;
         if (step <= 0) return Val.Of(true);

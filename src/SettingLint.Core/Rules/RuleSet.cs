@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.CompilerServices;
 using SettingLint.Core.Binding;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
@@ -15,12 +16,42 @@ public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, 
 }
 
 /// <summary>The compiled rules of a run, applied to every motor.</summary>
-public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
+public sealed class RuleSet : IRuleSet
 {
-    public ImmutableArray<CompiledRule> Rules { get; } = rules;
+    private static readonly PathSlot GroundConnection = PathTable.Motor.Of("transformers.ground_ct.connection");
+
+    // A context kept per thread between motors, so that evaluating a motor allocates nothing but its findings.
+    [ThreadStatic]
+    private static EvalContext? t_spare;
+
+    // Per rule (by position): which lets are evaluated when.
+    private readonly LetPlan[] _plans;
+    private readonly int _maxLets;
+
+    // The document paths the enabled rules read, read together at the start of each motor.
+    private readonly PathSlot[] _motorSlots;
+    private readonly PathSlot[] _busSlots;
+    private readonly bool _forEachRange;
+
+    private readonly ConditionalWeakTable<RepositoryIndex, RunCache> _runs = new();
+
+    public RuleSet(ImmutableArray<CompiledRule> rules)
+    {
+        Rules = rules;
+        Descriptors = [.. rules.Where(r => r.Level != Level.None).Select(r => r.Descriptor)];
+        _plans = [.. rules.Select(LetPlan.For)];
+        _maxLets = rules.IsEmpty ? 0 : rules.Max(r => r.Lets.Length);
+        var enabled = rules.Where(r => r.Level != Level.None).ToList();
+        var paths = enabled.SelectMany(RuleExpressions.Paths).Distinct(StringComparer.Ordinal).ToList();
+        _motorSlots = [.. paths.Where(p => !p.StartsWith("bus.", StringComparison.Ordinal)).Select(PathTable.Motor.Of)];
+        _busSlots = [.. paths.Where(p => p.StartsWith("bus.", StringComparison.Ordinal)).Select(p => PathTable.Bus.Of(p["bus.".Length..]))];
+        _forEachRange = enabled.Any(r => r.ForEachRange);
+    }
+
+    public ImmutableArray<CompiledRule> Rules { get; }
 
     /// <summary>The rules' descriptors with their own default levels; a repository's levels show on each result instead.</summary>
-    public ImmutableArray<RuleDescriptor> Descriptors { get; } = [.. rules.Where(r => r.Level != Level.None).Select(r => r.Descriptor)];
+    public ImmutableArray<RuleDescriptor> Descriptors { get; }
 
     /// <summary>Receives every outcome, for reports; null when nobody asks.</summary>
     public Action<RuleOutcome>? Outcomes { get; init; }
@@ -31,12 +62,34 @@ public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
     public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
     {
         Motors?.Invoke(motor);
-        foreach (var rule in Rules)
+        // One context for all the rules of this motor: each key path is read once, and aggregates share the run's cache.
+        // It is this thread's spare one when there is one (taken, so that a nested evaluation makes its own).
+        var run = _runs.GetValue(index, static _ => new RunCache());
+        var ctx = t_spare ?? new EvalContext(motor, index, [], new Val[_maxLets]);
+        t_spare = null;
+        ctx.Reset(motor, index, run, _maxLets);
+        ctx.Prefetch(_motorSlots, _busSlots, _forEachRange && motor.RelayModel is { } model ? run.Ranges(model) : []);
+        try
         {
+            EvaluateRules(ctx, findings, notify);
+        }
+        finally
+        {
+            ctx.Release();
+            t_spare = ctx;
+        }
+    }
+
+    private void EvaluateRules(EvalContext ctx, FindingBuilder findings, Action<Notification> notify)
+    {
+        var motor = ctx.Motor;
+        for (var k = 0; k < Rules.Length; k++)
+        {
+            var rule = Rules[k];
             if (rule.Level == Level.None) continue;
             try
             {
-                EvaluateRule(rule, motor, index, findings);
+                EvaluateRule(rule, _plans[k], ctx, findings);
             }
             catch (Exception ex) when (ex is not OutOfMemoryException)
             {
@@ -46,47 +99,112 @@ public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
         }
     }
 
-    private void EvaluateRule(CompiledRule rule, MotorProtection motor, RepositoryIndex index, FindingBuilder findings)
+    private void EvaluateRule(CompiledRule rule, LetPlan plan, EvalContext ctx, FindingBuilder findings)
     {
+        ctx.Parameters = rule.ParameterValues;
+        ctx.Item = null;
         if (!rule.ForEachRange)
         {
-            EvaluateOnce(rule, new EvalContext(motor, index, rule.ParameterValues, new Val[rule.Lets.Length]), rule.Subject, findings);
+            EvaluateOnce(rule, ctx, null, plan, plan.First, findings);
             return;
         }
+        var motor = ctx.Motor;
         if (motor.RelayModel is null) return;
-        foreach (var range in motor.RelayModel.Ranges)
+        var ranges = motor.RelayModel.Ranges;
+        var infos = ctx.Run!.Ranges(motor.RelayModel);
+        var refs = new ReferenceMemo();
+        for (var k = 0; k < ranges.Length; k++)
         {
-            var item = Resolve(motor, range);
-            var ctx = new EvalContext(motor, index, rule.ParameterValues, new Val[rule.Lets.Length]) { Item = item };
-            EvaluateOnce(rule, ctx, rule.Subject.Replace("{item.setting}", range.Setting, StringComparison.Ordinal), findings);
+            // Shared by position with the other users of the model, unless this motor's ranges differ from theirs.
+            var info = k < infos.Length && infos[k].Fits(ranges[k]) ? infos[k] : new RangeInfo(ranges[k]);
+            ctx.Item = Resolve(ctx, ranges[k], info, ref refs);
+            // The lets that do not read the range keep their value from the first range.
+            EvaluateOnce(rule, ctx, info, plan, k == 0 ? plan.First : plan.Again, findings);
         }
     }
 
     /// <summary>A relay range converted for one motor: xFLC and xCT through its own data.</summary>
-    private static RangeItem Resolve(MotorProtection motor, RelayRange range)
+    private static RangeItem Resolve(EvalContext ctx, RelayRange range, RangeInfo info, ref ReferenceMemo memo)
     {
-        var path = "protection." + range.Setting;
-        var refs = SettingReferences.For(motor.Document, path, range.Min.Quantity.Unit.Dimension == Dimension.Voltage);
-        Val Conv(WrittenValue? w) => w?.Quantity.ToSi(refs) is { } v ? Val.Of(v) : Val.Absent;
-        return new RangeItem(range.Setting, Compiler.Read(motor.Document, path), Conv(range.Min), Conv(range.Max), Conv(range.Step));
+        var refs = memo.Get(ctx, info);
+        Val Conv(WrittenValue? w, in ConversionReferences r) => w?.Quantity.ToSi(r) is { } v ? Val.Of(v) : Val.Absent;
+        return new RangeItem(range.Setting, ctx.ReadMotor(info.Path), Conv(range.Min, refs), Conv(range.Max, refs), Conv(range.Step, refs));
     }
 
-    private void EvaluateOnce(CompiledRule rule, EvalContext ctx, string subject, FindingBuilder findings)
+    /// <summary>
+    /// The conversion references of a motor's ranges: they depend only on the transformer a setting is measured through
+    /// (the VT for voltages, else its element's CT), so a motor's ranges share a few.
+    /// </summary>
+    private struct ReferenceMemo
     {
-        for (var i = 0; i < rule.Lets.Length; i++) ctx.Lets[i] = rule.Lets[i].Value.Eval(ctx);
-        if (rule.When is not null && rule.When.Eval(ctx) is not { IsAbsent: false, Flag: true }) return;
-        var (result, numbers) = Check(rule.Check, ctx);
+        private bool _hasVoltage;
+        private ConversionReferences _voltage;
+        private string? _ct1;
+        private ConversionReferences _refs1;
+        private string? _ct2;
+        private ConversionReferences _refs2;
+
+        public ConversionReferences Get(EvalContext ctx, RangeInfo info)
+        {
+            var doc = ctx.Motor.Document;
+            if (info.Voltage)
+            {
+                if (!_hasVoltage)
+                {
+                    _voltage = SettingReferences.For(doc, info.Path.Path, true);
+                    _hasVoltage = true;
+                }
+                return _voltage;
+            }
+            var ct = DocumentBinder.CtOf(info.Element, ctx.ReadMotor(GroundConnection) is { Kind: ValKind.Text } g ? g.Text : null);
+            if (_ct1 == ct) return _refs1;
+            if (_ct2 == ct) return _refs2;
+            var refs = SettingReferences.For(doc, info.Path.Path, false);
+            if (_ct1 is null) (_ct1, _refs1) = (ct, refs);
+            else if (_ct2 is null) (_ct2, _refs2) = (ct, refs);
+            return refs;
+        }
+    }
+
+    /// <param name="lets">The lets to evaluate before the guard (the others are still valid, or are evaluated for a finding).</param>
+    private void EvaluateOnce(CompiledRule rule, EvalContext ctx, RangeInfo? range, LetPlan plan, bool[] lets, FindingBuilder findings)
+    {
+        for (var i = 0; i < rule.Lets.Length; i++)
+        {
+            if (lets[i]) ctx.Lets[i] = rule.Lets[i].Value.Get(ctx);
+        }
+        if (rule.When is not null && rule.When.Get(ctx) is not { IsAbsent: false, Flag: true }) return;
+        var result = Check(rule.Check, ctx, out var numbers);
         if (result.IsAbsent) return;
         var passed = result.Flag;
-        // Bounds cost a second evaluation of each comparison, so only a report that listens pays for them.
-        Outcomes?.Invoke(new RuleOutcome(rule.Id, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, subject, passed, numbers, rule.Level) { Bounds = CheckBounds.Of(rule, ctx) });
+        // The subject, the bounds and every number shown are made only for a report that listens or for a finding.
+        if (Outcomes is not null)
+        {
+            // Bounds cost a second evaluation of each comparison, so only a report that listens pays for them.
+            Outcomes(new RuleOutcome(rule.Id, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, SubjectOf(rule, range), passed, numbers.ToRecord(), rule.Level) { Bounds = CheckBounds.Of(rule, ctx) });
+        }
         if (passed) return;
+        AddFinding(rule, ctx, range, plan, numbers, findings);
+    }
+
+    // Apart from EvaluateOnce, which runs for every rule and motor: most checks pass, and this is what a failed one costs.
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private static void AddFinding(CompiledRule rule, EvalContext ctx, RangeInfo? range, LetPlan plan, in Numbers numbers, FindingBuilder findings)
+    {
+        if (plan.AnyLate)
+        {
+            for (var i = 0; i < rule.Lets.Length; i++)
+            {
+                if (plan.Late[i]) ctx.Lets[i] = rule.Lets[i].Value.Get(ctx);
+            }
+        }
+        var subject = SubjectOf(rule, range);
         var values = ImmutableSortedDictionary.CreateBuilder<string, FindingValue>(StringComparer.Ordinal);
         var subjectValue = ctx.Motor.Document.Measure(subject);
         var sideRatio = subjectValue is { SideRatio: { } r } && subjectValue.Dimension is Dimension.Current or Dimension.Voltage ? r : (double?)null;
         // A relay range's values have the dimension of the setting they bound, known only per range.
         Dim Shown(Dim d) => d == Dim.ItemValue ? Dim.Of(subjectValue?.Dimension ?? Dimension.None) : d;
-        if (numbers is not null)
+        if (numbers.Present)
         {
             var dim = Shown(numbers.Dim);
             values["actual"] = Value(numbers.Actual, dim, numbers.Percent, sideRatio);
@@ -117,6 +235,9 @@ public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
         findings.Add(new Finding(rule.Id, rule.Level, ctx.Motor.Document.RelativePath, span, subject, rule.Message, values.ToImmutable()));
     }
 
+    private static string SubjectOf(CompiledRule rule, RangeInfo? range) =>
+        range is null ? rule.Subject : rule.Subject.Replace("{item.setting}", range.Setting, StringComparison.Ordinal);
+
     private static FindingValue Value(double v, Dim dim, bool percent, double? sideRatio)
     {
         var text = CheckNode.Format(v, dim, percent);
@@ -125,49 +246,103 @@ public sealed class RuleSet(ImmutableArray<CompiledRule> rules) : IRuleSet
     }
 
     /// <summary>Evaluates a check; the comparison that decided it gives the numbers.</summary>
-    private static (Val Result, CheckNumbers? Numbers) Check(CheckNode node, EvalContext ctx)
+    private static Val Check(CheckNode node, EvalContext ctx, out Numbers numbers)
     {
         switch (node)
         {
             case ComparisonNode c:
-            {
-                var l = c.Left.Eval(ctx);
-                var r = c.Right.Eval(ctx);
-                var v = Compiler.Compare(c.Op, l, r);
-                if (v.IsAbsent || l.Kind != ValKind.Number) return (v, null);
-                double? margin = c.Op switch
-                {
-                    ">" or ">=" => l.Number - r.Number,
-                    "<" or "<=" => r.Number - l.Number,
-                    _ => null,
-                };
-                return (v, new CheckNumbers(c.Op, l.Number, r.Number, margin, c.Left.Type.Dim, c.Left.Percent || c.Right.Percent));
-            }
+                return Compared(c, ctx, out numbers);
             case AndNode a:
             {
-                var (lv, ln) = Check(a.Left, ctx);
-                if (lv is { IsAbsent: false, Flag: false }) return (lv, ln);
-                var (rv, rn) = Check(a.Right, ctx);
-                if (rv is { IsAbsent: false, Flag: false }) return (rv, rn);
-                if (lv.IsAbsent || rv.IsAbsent) return (Val.Absent, null);
-                return (Val.Of(true), Tighter(ln, rn));
+                var lv = Check(a.Left, ctx, out var ln);
+                if (lv is { IsAbsent: false, Flag: false })
+                {
+                    numbers = ln;
+                    return lv;
+                }
+                var rv = Check(a.Right, ctx, out var rn);
+                if (rv is { IsAbsent: false, Flag: false })
+                {
+                    numbers = rn;
+                    return rv;
+                }
+                if (lv.IsAbsent || rv.IsAbsent)
+                {
+                    numbers = default;
+                    return Val.Absent;
+                }
+                numbers = Tighter(ln, rn);
+                return Val.Of(true);
             }
             case OrNode o:
             {
-                var (lv, ln) = Check(o.Left, ctx);
-                if (lv is { IsAbsent: false, Flag: true }) return (lv, ln);
-                var (rv, rn) = Check(o.Right, ctx);
-                if (rv is { IsAbsent: false, Flag: true }) return (rv, rn);
-                if (lv.IsAbsent || rv.IsAbsent) return (Val.Absent, null);
-                return (Val.Of(false), ln ?? rn);
+                var lv = Check(o.Left, ctx, out var ln);
+                if (lv is { IsAbsent: false, Flag: true })
+                {
+                    numbers = ln;
+                    return lv;
+                }
+                var rv = Check(o.Right, ctx, out var rn);
+                if (rv is { IsAbsent: false, Flag: true })
+                {
+                    numbers = rn;
+                    return rv;
+                }
+                if (lv.IsAbsent || rv.IsAbsent)
+                {
+                    numbers = default;
+                    return Val.Absent;
+                }
+                numbers = ln.Present ? ln : rn;
+                return Val.Of(false);
             }
             case PlainNode p:
-                return (p.Expression.Eval(ctx), null);
+                numbers = default;
+                return p.Expression.Get(ctx);
             default:
-                return (Val.Absent, null);
+                numbers = default;
+                return Val.Absent;
         }
     }
 
-    private static CheckNumbers? Tighter(CheckNumbers? a, CheckNumbers? b) =>
-        a is null ? b : b is null ? a : (a.MarginRatio ?? double.MaxValue) <= (b.MarginRatio ?? double.MaxValue) ? a : b;
+    private static Val Compared(ComparisonNode c, EvalContext ctx, out Numbers numbers)
+    {
+        var l = c.Left.Get(ctx);
+        var r = c.Right.Get(ctx);
+        var code = c.Code;
+        var v = Compiler.Compare(code, l, r);
+        if (v.IsAbsent || l.Kind != ValKind.Number)
+        {
+            numbers = default;
+            return v;
+        }
+        double? margin = code switch
+        {
+            Comparison.Greater or Comparison.GreaterOrEqual => l.Number - r.Number,
+            Comparison.Less or Comparison.LessOrEqual => r.Number - l.Number,
+            _ => null,
+        };
+        numbers = new Numbers(c, l.Number, r.Number, margin);
+        return v;
+    }
+
+    private static Numbers Tighter(Numbers a, Numbers b) =>
+        !a.Present ? b : !b.Present ? a : (a.MarginRatio ?? double.MaxValue) <= (b.MarginRatio ?? double.MaxValue) ? a : b;
+
+    /// <summary>
+    /// The numbers of a comparison while a check is evaluated: a value, not an object, because most checks pass and
+    /// nobody reads them; <see cref="CheckNumbers"/> is made only for a finding's or an outcome's sake.
+    /// </summary>
+    private readonly record struct Numbers(ComparisonNode? Node, double Actual, double Limit, double? Margin)
+    {
+        public bool Present => Node is not null;
+
+        public Dim Dim => Node!.Left.Type.Dim;
+
+        public bool Percent => Node!.Left.Percent || Node.Right.Percent;
+
+        public double? MarginRatio => CheckNumbers.Ratio(Margin, Limit);
+
+        public CheckNumbers? ToRecord() => Node is null ? null : new CheckNumbers(Node.Op, Actual, Limit, Margin, Dim, Percent);
+    }
 }
