@@ -253,49 +253,11 @@ public sealed class RuleSet : IRuleSet
             case ComparisonNode c:
                 return Compared(c, ctx, out numbers);
             case AndNode a:
-            {
-                var lv = Check(a.Left, ctx, out var ln);
-                if (lv is { IsAbsent: false, Flag: false })
-                {
-                    numbers = ln;
-                    return lv;
-                }
-                var rv = Check(a.Right, ctx, out var rn);
-                if (rv is { IsAbsent: false, Flag: false })
-                {
-                    numbers = rn;
-                    return rv;
-                }
-                if (lv.IsAbsent || rv.IsAbsent)
-                {
-                    numbers = default;
-                    return Val.Absent;
-                }
-                numbers = Tighter(ln, rn);
-                return Val.Of(true);
-            }
+                // The first false side decides (and gives its numbers); both true: the tighter comparison is shown.
+                return Junction(a.Left, a.Right, decisive: false, ctx, out numbers);
             case OrNode o:
-            {
-                var lv = Check(o.Left, ctx, out var ln);
-                if (lv is { IsAbsent: false, Flag: true })
-                {
-                    numbers = ln;
-                    return lv;
-                }
-                var rv = Check(o.Right, ctx, out var rn);
-                if (rv is { IsAbsent: false, Flag: true })
-                {
-                    numbers = rn;
-                    return rv;
-                }
-                if (lv.IsAbsent || rv.IsAbsent)
-                {
-                    numbers = default;
-                    return Val.Absent;
-                }
-                numbers = ln.Present ? ln : rn;
-                return Val.Of(false);
-            }
+                // The first true side decides; both false: the first comparison that has numbers is shown.
+                return Junction(o.Left, o.Right, decisive: true, ctx, out numbers);
             case PlainNode p:
                 numbers = default;
                 return p.Expression.Get(ctx);
@@ -303,6 +265,30 @@ public sealed class RuleSet : IRuleSet
                 numbers = default;
                 return Val.Absent;
         }
+    }
+
+    /// <summary>`and` (decisive false) or `or` (decisive true) of two checks; absent when neither side decides and one is absent.</summary>
+    private static Val Junction(CheckNode left, CheckNode right, bool decisive, EvalContext ctx, out Numbers numbers)
+    {
+        var lv = Check(left, ctx, out var ln);
+        if (!lv.IsAbsent && lv.Flag == decisive)
+        {
+            numbers = ln;
+            return lv;
+        }
+        var rv = Check(right, ctx, out var rn);
+        if (!rv.IsAbsent && rv.Flag == decisive)
+        {
+            numbers = rn;
+            return rv;
+        }
+        if (lv.IsAbsent || rv.IsAbsent)
+        {
+            numbers = default;
+            return Val.Absent;
+        }
+        numbers = decisive ? (ln.Present ? ln : rn) : Tighter(ln, rn);
+        return Val.Of(!decisive);
     }
 
     private static Val Compared(ComparisonNode c, EvalContext ctx, out Numbers numbers)
