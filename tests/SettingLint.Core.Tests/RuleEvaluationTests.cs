@@ -156,6 +156,32 @@ public sealed class RuleEvaluationTests
         }
     }
 
+    [Fact]
+    public void A_let_that_fails_fails_its_rule_even_when_only_the_message_names_it()
+    {
+        // A range value read for another motor (inside an aggregate) is not there: the rule fails on each motor with others
+        // on its bus, as it did when every let was evaluated before the check, though here the check passes.
+        using var repo = new TempRepo();
+        repo.Write("buses/bus-1.yaml", Samples.Bus);
+        repo.Write("models/relay.yaml", Samples.RelayModel);
+        foreach (var tag in new[] { "A1", "A2" })
+        {
+            repo.Write($"motors/{tag}.yaml", Samples.MotorWith("tag: M-1", $"tag: {tag}\nrelay_model: ../models/relay.yaml"));
+        }
+        var rules = new RuleSet(Load(Rule("SL957", """
+            for_each: relay_model.ranges
+            let:
+              odd: others_max(item.value)
+            check: item.value >= item.min or item.value < item.min
+            subject: protection.{item.setting}
+            message: "{odd}"
+            """)));
+        var result = new Checker(rules).Run(new CheckOptions([repo.Root], Parallel: false));
+        Assert.Empty(result.Findings.Where(f => f.RuleId == "SL957"));
+        var failed = result.Notifications.Where(n => n.Kind == NotificationKind.Internal && n.Message.Contains("SL957 failed", StringComparison.Ordinal)).ToList();
+        Assert.Equal(2, failed.Count);
+    }
+
     // Three flags, each true, false or absent (its element left out): every combination is one motor.
     private static readonly string[] Elements = ["acceleration", "starts", "undercurrent"];
 

@@ -50,6 +50,16 @@ internal sealed class LetPlan
         }
         Reads(rule.When?.Source);
         foreach (var e in RuleExpressions.Check(rule.Check)) Reads(e);
+        // An aggregate evaluates its expression for other motors, where a range value is not there and reading one throws:
+        // such a let stays up front, so that a rule fails on the same motors as when every let was evaluated first.
+        for (var i = 0; i < n; i++)
+        {
+            if (!needed[i] && HasAggregate(rule.Lets[i].Value.Source))
+            {
+                needed[i] = true;
+                pending.Push(i);
+            }
+        }
         while (pending.TryPop(out var i)) Reads(rule.Lets[i].Value.Source);
         // An expression this analysis does not know might read any let: then every let is evaluated up front, as written.
         if (!known) Array.Fill(needed, true);
@@ -94,6 +104,14 @@ internal sealed class LetPlan
                 return false;
         }
     }
+
+    private static bool HasAggregate(Expr e) => e switch
+    {
+        Call c => c.Name.StartsWith("others_", StringComparison.Ordinal) || c.Args.Any(HasAggregate),
+        Unary u => HasAggregate(u.Operand),
+        Binary b => HasAggregate(b.Left) || HasAggregate(b.Right),
+        _ => false,
+    };
 
     // Conservative: anything not known to be free of the range counts as reading it.
     private static bool ReadsItem(Expr e, Dictionary<string, bool> lets) => e switch
