@@ -220,6 +220,24 @@ public sealed class LoaderTests
         Assert.Equal(["kind", "tag", "upstream"], ((YMapping)file.Root!).Entries.Select(e => e.Key.Value));
     }
 
+    // Small mappings are searched key by key and large ones through a dictionary: duplicates on both sides of the switch.
+    [Theory]
+    [InlineData(3, 9)]
+    [InlineData(3, 16)]
+    [InlineData(3, 17)]
+    [InlineData(16, 17)]
+    [InlineData(20, 39)]
+    public void A_duplicate_key_is_found_in_a_mapping_of_any_size(int first, int again)
+    {
+        var keys = Enumerable.Range(1, 40).Select(i => i == again ? "k" + first : "k" + i).ToList();
+        var file = Load(string.Concat(keys.Select(k => k + ": 1\n")));
+        var finding = Assert.Single(file.Findings);
+        Assert.Equal(EngineRules.DuplicateKey, finding.RuleId);
+        Assert.Equal(again, finding.Span.StartLine);
+        Assert.Equal(first, finding.Values["firstLine"].Number);
+        Assert.Equal(39, ((YMapping)file.Root!).Entries.Length);
+    }
+
     [Fact]
     public void A_duplicate_key_whose_value_is_a_mapping_is_dropped_whole()
     {

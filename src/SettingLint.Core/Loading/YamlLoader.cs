@@ -158,10 +158,44 @@ public static class YamlLoader
             public required Mark Start;
             public bool Flow;
             public string? Anchor;
-            public readonly ImmutableArray<YEntry>.Builder Entries = ImmutableArray.CreateBuilder<YEntry>();
-            public readonly ImmutableArray<YNode>.Builder Items = ImmutableArray.CreateBuilder<YNode>();
-            public readonly Dictionary<string, YScalar> Keys = new(StringComparer.Ordinal);
+            // Made when first needed: a frame is a mapping or a list, and most mappings are small enough that a scan
+            // of their keys finds a duplicate sooner than a dictionary would be built.
+            private const int ScanLimit = 16;
+            private ImmutableArray<YEntry>.Builder? _entries;
+            private ImmutableArray<YNode>.Builder? _items;
+            private Dictionary<string, YScalar>? _keys;
             public YScalar? PendingKey;
+
+            public void AddItem(YNode node) => (_items ??= ImmutableArray.CreateBuilder<YNode>()).Add(node);
+
+            public void AddEntry(YEntry entry) => (_entries ??= ImmutableArray.CreateBuilder<YEntry>()).Add(entry);
+
+            public ImmutableArray<YEntry> TakeEntries() => _entries?.DrainToImmutable() ?? [];
+
+            public ImmutableArray<YNode> TakeItems() => _items?.DrainToImmutable() ?? [];
+
+            /// <summary>The first key of this mapping with the same text, when there is one.</summary>
+            public YScalar? FindKey(string key)
+            {
+                if (_keys is not null) return _keys.GetValueOrDefault(key);
+                if (_entries is null) return null;
+                foreach (var e in _entries)
+                {
+                    if (e.Key.Value == key) return e.Key;
+                }
+                return null;
+            }
+
+            /// <summary>Records a key whose value is to come; past the scan limit the keys move into a dictionary.</summary>
+            public void AddKey(YScalar key)
+            {
+                if (_keys is null && _entries is { Count: >= ScanLimit } entries)
+                {
+                    _keys = new Dictionary<string, YScalar>(entries.Count * 2, StringComparer.Ordinal);
+                    foreach (var e in entries) _keys[e.Key.Value] = e.Key;
+                }
+                _keys?.Add(key.Value, key);
+            }
             public bool SkipNextValue;
             public bool ExpectKey = true;
             public long Size = 1;
@@ -213,7 +247,7 @@ public static class YamlLoader
                             var end = f.Flow ? SourceSpan.At((int)ev.Start.Line, (int)ev.Start.Column + 1)
                                 : f.LastEnd == default ? Span(f.Start, ev.End) : f.LastEnd;
                             var span = new SourceSpan((int)f.Start.Line, (int)f.Start.Column, end.EndLine, end.EndColumn);
-                            YNode node = f.IsMapping ? new YMapping(f.Entries.ToImmutable(), span) : new YSequence(f.Items.ToImmutable(), span);
+                            YNode node = f.IsMapping ? new YMapping(f.TakeEntries(), span) : new YSequence(f.TakeItems(), span);
                             if (f.Anchor is not null)
                             {
                                 _openAnchors.Remove(f.Anchor);
@@ -362,7 +396,7 @@ public static class YamlLoader
             parent.LastEnd = new SourceSpan(node.Span.StartLine, node.Span.StartColumn, node.Span.EndLine, node.Span.EndColumn);
             if (!parent.IsMapping)
             {
-                parent.Items.Add(node);
+                parent.AddItem(node);
                 return true;
             }
             if (parent.ExpectKey)
@@ -374,7 +408,7 @@ public static class YamlLoader
                     parent.SkipNextValue = true;
                     return true;
                 }
-                if (parent.Keys.TryGetValue(key.Value, out var first))
+                if (parent.FindKey(key.Value) is { } first)
                 {
                     findings.Add(EngineRules.DuplicateKey, key.Span, key.Value,
                         "The key '{key}' appears twice in this mapping: first at line {firstLine}, column {firstColumn}, again at line {line}, column {column}; a second value would silently win in most tools.",
@@ -383,7 +417,7 @@ public static class YamlLoader
                     parent.SkipNextValue = true;
                     return true;
                 }
-                parent.Keys[key.Value] = key;
+                parent.AddKey(key);
                 parent.PendingKey = key;
                 return true;
             }
@@ -393,7 +427,7 @@ public static class YamlLoader
                 parent.SkipNextValue = false;
                 return true;
             }
-            parent.Entries.Add(new YEntry(parent.PendingKey!, node));
+            parent.AddEntry(new YEntry(parent.PendingKey!, node));
             parent.PendingKey = null;
             return true;
         }
