@@ -5,9 +5,6 @@ namespace SettingLint.Core.Validation;
 /// <summary>What the binder and the rule compiler read off a schema: dimensions, child schemas and leaf paths.</summary>
 public static class SchemaFacts
 {
-    /// <summary>The annotation key that marks a dimensioned string value.</summary>
-    public const string DimensionKey = SchemaNode.DimensionKey;
-
     /// <summary>The dimension of a schema node, when it is a quantity of a fixed dimension.</summary>
     public static Dimension? DimensionOf(SchemaNode schema) =>
         schema.Dimension is { } t ? Dimensions.Parse(t) : null;

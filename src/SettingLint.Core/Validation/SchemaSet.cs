@@ -11,6 +11,8 @@ public sealed class SchemaSet
     public const string Config = "config";
     public const string Rule = "rule";
 
+    private int _warmed;
+
     private readonly ConcurrentDictionary<string, Lazy<SchemaNode>> _schemas = new(StringComparer.Ordinal);
 
     /// <summary>The kinds of setting file the format defines.</summary>
@@ -26,6 +28,8 @@ public sealed class SchemaSet
     /// <summary>Starts reading the configuration and setting schemas on the thread pool, so the first validation does not wait for them.</summary>
     public void Warm()
     {
+        // The CLI, the session and the checker each ask, so that any of them works alone; the reads start once.
+        if (Interlocked.Exchange(ref _warmed, 1) == 1) return;
         // The configuration is read first in a run, so its schema is asked for first.
         foreach (var kind in (string[])[Config, .. SettingKinds])
         {
