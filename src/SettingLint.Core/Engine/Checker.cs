@@ -22,6 +22,12 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// <summary>Called with each file as it is loaded, before it is bound; tests hold it weakly to see that no tree outlives its binding.</summary>
     internal Action<LoadedFile>? OnLoaded { get; init; }
 
+    /// <summary>Called with a motor's whole document once its own rules ran and only its later paths are kept; tests hold it weakly.</summary>
+    internal Action<BoundDocument>? OnStaged { get; init; }
+
+    /// <summary>Evaluates every rule of a motor in one go after binding even when the rule set can do it in two steps; tests compare the two.</summary>
+    internal bool OneStep { get; init; }
+
     /// <summary>
     /// What a run keeps of one file once its own values are bound: its findings, bound values and acceptance comments.
     /// Its YAML tree and text are not kept, so that a run's memory grows with the number of files only by these.
@@ -130,10 +136,22 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         // A bus or relay model is loaded and bound by whichever comes first, the pass over it or a motor that names
         // it (Lazy runs it once). Own binding never resolves a reference, so no file waits on one that waits on it.
         var resolver = new ReferenceResolver<FileState>(root, states, s => s.Document, (full, rel) => LoadState(full, rel, false));
+        // A run that reports every file evaluates a motor's own rules as soon as it is bound, and keeps of it only what
+        // the rules over its bus read once every motor is bound (a changed-files run needs the whole index to choose).
+        var staged = !OneStep && rules is IStagedRuleSet { LaterPaths: { } later } stager && options.Changes is not { EverythingBecause: null }
+            ? (Rules: stager, Keep: later, Run: new RepositoryIndex([]))
+            : default;
         ForEach(options.Parallel, discovered, lazy =>
         {
             var s = lazy.Value;
-            if (s.Kind == SchemaSet.MotorProtection) Guard(() => BindMotor(s, resolver), s.RelativePath, notifications);
+            if (s.Kind != SchemaSet.MotorProtection) return;
+            Guard(() => BindMotor(s, resolver), s.RelativePath, notifications);
+            if (staged.Rules is null || s.Motor is not { } motor || !s.Reported) return;
+            Guard(() => staged.Rules.EvaluateOwn(motor, staged.Run, s.Findings, notifications.Add), s.RelativePath, notifications, "a rule failed on this motor");
+            var kept = motor.Document.Restrict(staged.Keep);
+            s.Document = kept;
+            s.Motor = motor with { Document = kept };
+            OnStaged?.Invoke(motor.Document);
         });
         var settingFiles = discovered.Select(s => s.Value).Where(s => s.IsChecked).ToArray();
 
@@ -147,7 +165,13 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.RelativePath));
         var reported = settingFiles.Where(Reported).ToArray();
         var motorStates = reported.Where(s => s.Motor is not null).ToArray();
-        ForEach(options.Parallel, motorStates, s => Guard(() => rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add), s.RelativePath, notifications, "a rule failed on this motor"));
+        ForEach(options.Parallel, motorStates, s => Guard(
+            () =>
+            {
+                if (staged.Rules is null) rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add);
+                else staged.Rules.EvaluateAcrossBus(s.Motor!, index, s.Findings, notifications.Add);
+            },
+            s.RelativePath, notifications, "a rule failed on this motor"));
 
         var known = descriptors.Select(d => d.Id).ToHashSet(StringComparer.Ordinal);
         IEnumerable<Finding> Own(FileState s)

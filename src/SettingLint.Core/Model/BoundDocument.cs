@@ -30,6 +30,31 @@ public sealed class BoundDocument
         _keys = KeySpans.Of(root, _values);
     }
 
+    private BoundDocument(string kind, string path, string relativePath, Dictionary<string, BoundValue> values, KeySpans keys)
+    {
+        Kind = kind;
+        Path = path;
+        RelativePath = relativePath;
+        _values = values;
+        _keys = keys;
+    }
+
+    /// <summary>
+    /// The same document for these key paths only: for each of them it gives the same value and the same span as this
+    /// one (a span found through the keys on the way included), and it keeps nothing of any other path.
+    /// </summary>
+    public BoundDocument Restrict(IReadOnlySet<string> paths)
+    {
+        ArgumentNullException.ThrowIfNull(paths);
+        var values = new Dictionary<string, BoundValue>(StringComparer.Ordinal);
+        foreach (var p in paths)
+        {
+            if (_values.TryGetValue(p, out var v)) values[v.Path == p ? v.Path : p] = v;
+        }
+        values.TrimExcess();
+        return new BoundDocument(Kind, Path, RelativePath, values, _keys.Restrict(paths));
+    }
+
     /// <summary>motor-protection, bus or relay-model.</summary>
     public string Kind { get; }
 

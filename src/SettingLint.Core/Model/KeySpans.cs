@@ -54,6 +54,28 @@ internal sealed class KeySpans
     }
 
     /// <summary>
+    /// The key spans that <see cref="SpanOf"/> reads for these paths: a scalar at one of them, and the keys at each of
+    /// them and on the way to each.
+    /// </summary>
+    public KeySpans Restrict(IReadOnlySet<string> paths)
+    {
+        var onTheWay = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var p in paths)
+        {
+            onTheWay.Add(p);
+            for (var dot = p.LastIndexOf('.'); dot >= 0; dot = p.LastIndexOf('.', dot - 1))
+            {
+                onTheWay.Add(p[..dot]);
+                if (dot == 0) break;
+            }
+        }
+        // Both arrays are sorted already, and a subset of a sorted array in its order is sorted.
+        return new KeySpans(
+            [.. _keys.Where(e => onTheWay.Contains(e.Path))],
+            [.. _unboundScalars.Where(e => paths.Contains(e.Path))]);
+    }
+
+    /// <summary>
     /// The span for a path that has no bound value: a scalar written there, else the key there (of a mapping or list),
     /// else the deepest key on the way (whose value has no such child), else the file's start.
     /// </summary>

@@ -54,7 +54,7 @@ internal sealed class LetPlan
         // such a let stays up front, so that a rule fails on the same motors as when every let was evaluated first.
         for (var i = 0; i < n; i++)
         {
-            if (!needed[i] && HasAggregate(rule.Lets[i].Value.Source))
+            if (!needed[i] && RuleExpressions.HasAggregate(rule.Lets[i].Value.Source))
             {
                 needed[i] = true;
                 pending.Push(i);
@@ -105,14 +105,6 @@ internal sealed class LetPlan
         }
     }
 
-    private static bool HasAggregate(Expr e) => e switch
-    {
-        Call c => c.Name.StartsWith("others_", StringComparison.Ordinal) || c.Args.Any(HasAggregate),
-        Unary u => HasAggregate(u.Operand),
-        Binary b => HasAggregate(b.Left) || HasAggregate(b.Right),
-        _ => false,
-    };
-
     // Conservative: anything not known to be free of the range counts as reading it.
     private static bool ReadsItem(Expr e, Dictionary<string, bool> lets) => e switch
     {
@@ -141,12 +133,26 @@ internal static class RuleExpressions
     };
 
     /// <summary>The motor and bus key paths a rule reads (bus ones with their "bus." prefix), in its lets, guard and check.</summary>
-    public static IEnumerable<string> Paths(CompiledRule rule)
+    public static IEnumerable<string> Paths(CompiledRule rule) =>
+        All(rule).SelectMany(Paths).Where(p => p.Contains('.', StringComparison.Ordinal)
+            && !p.StartsWith("param.", StringComparison.Ordinal) && !p.StartsWith("item.", StringComparison.Ordinal));
+
+    /// <summary>Whether a rule reads other motors (an aggregate over its bus) in its lets, guard or check.</summary>
+    public static bool ReadsOtherMotors(CompiledRule rule) => All(rule).Any(HasAggregate);
+
+    /// <summary>Whether an expression has an aggregate in it; the expression that stands for an unknown check counts as one.</summary>
+    public static bool HasAggregate(Expr e) => e switch
+    {
+        Call c => c.Name.Length == 0 || c.Name.StartsWith("others_", StringComparison.Ordinal) || c.Args.Any(HasAggregate),
+        Unary u => HasAggregate(u.Operand),
+        Binary b => HasAggregate(b.Left) || HasAggregate(b.Right),
+        _ => false,
+    };
+
+    private static IEnumerable<Expr> All(CompiledRule rule)
     {
         var exprs = rule.Lets.Select(l => l.Value.Source).Concat(Check(rule.Check));
-        if (rule.When is not null) exprs = exprs.Append(rule.When.Source);
-        return exprs.SelectMany(Paths).Where(p => p.Contains('.', StringComparison.Ordinal)
-            && !p.StartsWith("param.", StringComparison.Ordinal) && !p.StartsWith("item.", StringComparison.Ordinal));
+        return rule.When is null ? exprs : exprs.Append(rule.When.Source);
     }
 
     private static IEnumerable<string> Paths(Expr e) => e switch

@@ -16,7 +16,7 @@ public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, 
 }
 
 /// <summary>The compiled rules of a run, applied to every motor.</summary>
-public sealed class RuleSet : IRuleSet
+public sealed class RuleSet : IStagedRuleSet
 {
     private static readonly PathSlot GroundConnection = PathTable.Motor.Of("transformers.ground_ct.connection");
 
@@ -28,10 +28,10 @@ public sealed class RuleSet : IRuleSet
     private readonly LetPlan[] _plans;
     private readonly int _maxLets;
 
-    // The document paths the enabled rules read, read together at the start of each motor.
-    private readonly PathSlot[] _motorSlots;
-    private readonly PathSlot[] _busSlots;
-    private readonly bool _forEachRange;
+    // Every enabled rule in one go, and the same rules split into the two steps of a staged run.
+    private readonly Stage _all;
+    private readonly Stage _own;
+    private readonly Stage _acrossBus;
 
     private readonly ConditionalWeakTable<RepositoryIndex, RunCache> _runs = new();
 
@@ -41,12 +41,56 @@ public sealed class RuleSet : IRuleSet
         Descriptors = [.. rules.Where(r => r.Level != Level.None).Select(r => r.Descriptor)];
         _plans = [.. rules.Select(LetPlan.For)];
         _maxLets = rules.IsEmpty ? 0 : rules.Max(r => r.Lets.Length);
-        var enabled = rules.Where(r => r.Level != Level.None).ToList();
-        var paths = enabled.SelectMany(RuleExpressions.Paths).Distinct(StringComparer.Ordinal).ToList();
-        _motorSlots = [.. paths.Where(p => !p.StartsWith("bus.", StringComparison.Ordinal)).Select(PathTable.Motor.Of)];
-        _busSlots = [.. paths.Where(p => p.StartsWith("bus.", StringComparison.Ordinal)).Select(p => PathTable.Bus.Of(p["bus.".Length..]))];
-        _forEachRange = enabled.Any(r => r.ForEachRange);
+        var across = rules.Select(RuleExpressions.ReadsOtherMotors).ToArray();
+        _all = new Stage(rules, _ => true);
+        _own = new Stage(rules, k => !across[k]);
+        _acrossBus = new Stage(rules, k => across[k]);
+        LaterPaths = _acrossBus.KeepPaths(rules);
     }
+
+    /// <summary>The rules of one step: which of them run, and the document paths they read, read together at the start of each motor.</summary>
+    private sealed class Stage
+    {
+        public Stage(ImmutableArray<CompiledRule> rules, Func<int, bool> includes)
+        {
+            Includes = [.. Enumerable.Range(0, rules.Length).Select(k => rules[k].Level != Level.None && includes(k))];
+            var enabled = Enumerable.Range(0, rules.Length).Where(k => Includes[k]).Select(k => rules[k]).ToList();
+            var paths = enabled.SelectMany(RuleExpressions.Paths).Distinct(StringComparer.Ordinal).ToList();
+            MotorSlots = [.. paths.Where(p => !p.StartsWith("bus.", StringComparison.Ordinal)).Select(PathTable.Motor.Of)];
+            BusSlots = [.. paths.Where(p => p.StartsWith("bus.", StringComparison.Ordinal)).Select(p => PathTable.Bus.Of(p["bus.".Length..]))];
+            ForEachRange = enabled.Any(r => r.ForEachRange);
+            Empty = enabled.Count == 0;
+        }
+
+        public bool[] Includes { get; }
+
+        public PathSlot[] MotorSlots { get; }
+
+        public PathSlot[] BusSlots { get; }
+
+        public bool ForEachRange { get; }
+
+        public bool Empty { get; }
+
+        /// <summary>
+        /// The motor paths this step reads, with the tag and every subject (findings are placed on it and show its value);
+        /// null when a rule reads relay ranges, whose paths come from the relay model.
+        /// </summary>
+        public IReadOnlySet<string>? KeepPaths(ImmutableArray<CompiledRule> rules)
+        {
+            if (ForEachRange) return null;
+            var keep = new HashSet<string>(StringComparer.Ordinal) { "tag" };
+            foreach (var slot in MotorSlots) keep.Add(slot.Path);
+            for (var k = 0; k < rules.Length; k++)
+            {
+                if (Includes[k]) keep.Add(rules[k].Subject);
+            }
+            return keep;
+        }
+    }
+
+    /// <inheritdoc />
+    public IReadOnlySet<string>? LaterPaths { get; }
 
     public ImmutableArray<CompiledRule> Rules { get; }
 
@@ -62,16 +106,34 @@ public sealed class RuleSet : IRuleSet
     public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
     {
         Motors?.Invoke(motor);
+        Evaluate(_all, motor, index, findings, notify);
+    }
+
+    /// <inheritdoc />
+    public void EvaluateOwn(MotorProtection motor, RepositoryIndex run, FindingBuilder findings, Action<Notification> notify)
+    {
+        Motors?.Invoke(motor);
+        Evaluate(_own, motor, run, findings, notify);
+    }
+
+    /// <inheritdoc />
+    public void EvaluateAcrossBus(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
+    {
+        if (!_acrossBus.Empty) Evaluate(_acrossBus, motor, index, findings, notify);
+    }
+
+    private void Evaluate(Stage stage, MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
+    {
         // One context for all the rules of this motor: each key path is read once, and aggregates share the run's cache.
         // It is this thread's spare one when there is one (taken, so that a nested evaluation makes its own).
         var run = _runs.GetValue(index, static _ => new RunCache());
         var ctx = t_spare ?? new EvalContext(motor, index, [], new Val[_maxLets]);
         t_spare = null;
         ctx.Reset(motor, index, run, _maxLets);
-        ctx.Prefetch(_motorSlots, _busSlots, _forEachRange && motor.RelayModel is { } model ? run.Ranges(model) : []);
+        ctx.Prefetch(stage.MotorSlots, stage.BusSlots, stage.ForEachRange && motor.RelayModel is { } model ? run.Ranges(model) : []);
         try
         {
-            EvaluateRules(ctx, findings, notify);
+            EvaluateRules(stage, ctx, findings, notify);
         }
         finally
         {
@@ -80,13 +142,13 @@ public sealed class RuleSet : IRuleSet
         }
     }
 
-    private void EvaluateRules(EvalContext ctx, FindingBuilder findings, Action<Notification> notify)
+    private void EvaluateRules(Stage stage, EvalContext ctx, FindingBuilder findings, Action<Notification> notify)
     {
         var motor = ctx.Motor;
         for (var k = 0; k < Rules.Length; k++)
         {
             var rule = Rules[k];
-            if (rule.Level == Level.None) continue;
+            if (!stage.Includes[k]) continue;
             try
             {
                 EvaluateRule(rule, _plans[k], ctx, findings);
