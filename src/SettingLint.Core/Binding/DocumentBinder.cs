@@ -14,7 +14,8 @@ public sealed class DocumentBinder
 {
     private readonly FindingBuilder _findings;
     private readonly SchemaSet _schemas;
-    private readonly Dictionary<string, BoundValue> _values = new(StringComparer.Ordinal);
+    // Key paths are the process's shared strings (KeyPaths), so that the document keeps them as they are.
+    private readonly Dictionary<string, BoundValue> _values;
     private readonly List<(string Path, YScalar Node, Quantity Quantity)> _relative = [];
     private readonly HashSet<string> _failed = new(StringComparer.Ordinal);
 
@@ -23,11 +24,23 @@ public sealed class DocumentBinder
     // An inline bus is a bus file's keys without its own kind and format: those come from the motor file.
     private static readonly IReadOnlySet<string> InlineBusImplied = new HashSet<string>(StringComparer.Ordinal) { "kind", "format" };
 
-    private DocumentBinder(FindingBuilder findings, SchemaSet schemas, string reportPrefix = "")
+    private DocumentBinder(FindingBuilder findings, SchemaSet schemas, string reportPrefix = "", int capacity = 0)
     {
         _findings = findings;
         _schemas = schemas;
         _reportPrefix = reportPrefix;
+        _values = new Dictionary<string, BoundValue>(capacity, StringComparer.Ordinal);
+    }
+
+    // The values a tree can bind at most, so that the dictionary of a document is made once at its size.
+    private static int CountScalars(YMapping mapping)
+    {
+        var n = 0;
+        foreach (var e in mapping.Entries)
+        {
+            n += e.Value switch { YScalar => 1, YMapping m => CountScalars(m), _ => 0 };
+        }
+        return n;
     }
 
     /// <summary>Validates and binds a document of a known kind.</summary>
@@ -35,10 +48,10 @@ public sealed class DocumentBinder
     {
         var schema = schemas.Get(kind);
         SchemaValidator.Validate(root, schema, findings);
-        var binder = new DocumentBinder(findings, schemas);
-        binder.Walk(root, schema, "", kind);
+        var binder = new DocumentBinder(findings, schemas, capacity: CountScalars(root));
+        binder.Walk(root, schema, null, kind);
         binder.ResolveRelative();
-        return new BoundDocument(kind, path, relativePath, root, binder._values);
+        return BoundDocument.OfBinder(kind, path, relativePath, root, binder._values);
     }
 
     /// <summary>Validates and binds a bus written inline in a motor file.</summary>
@@ -46,17 +59,17 @@ public sealed class DocumentBinder
     {
         var schema = schemas.Get(SchemaSet.Bus);
         SchemaValidator.Validate(busNode, schema, findings, "bus", InlineBusImplied);
-        var binder = new DocumentBinder(findings, schemas, "bus");
-        binder.Walk(busNode, schema, "", SchemaSet.Bus);
-        return new BoundDocument(SchemaSet.Bus, path, relativePath, busNode, binder._values);
+        var binder = new DocumentBinder(findings, schemas, "bus", CountScalars(busNode));
+        binder.Walk(busNode, schema, null, SchemaSet.Bus);
+        return BoundDocument.OfBinder(SchemaSet.Bus, path, relativePath, busNode, binder._values);
     }
 
-    private void Walk(YMapping mapping, SchemaNode schema, string prefix, string kind)
+    private void Walk(YMapping mapping, SchemaNode schema, string? prefix, string kind)
     {
         foreach (var entry in mapping.Entries)
         {
-            var path = prefix.Length == 0 ? entry.Key.Value : prefix + "." + entry.Key.Value;
             if (schema.Child(entry.Key.Value) is not { } child) continue; // SL003 already
+            var path = KeyPaths.Join(prefix, entry.Key.Value);
             if (_findings.HasAt(entry.Value.Span))
             {
                 _failed.Add(path);
@@ -161,7 +174,7 @@ public sealed class DocumentBinder
         foreach (var entry in range.Entries)
         {
             if (entry.Value is not YScalar s || _findings.HasAt(s.Span)) continue;
-            var p = path + "." + entry.Key.Value;
+            var p = KeyPaths.Join(path, entry.Key.Value);
             var parse = QuantityParser.Parse(s.Value, dimension, UnitContext.Setting);
             if (!parse.Ok)
             {
@@ -191,13 +204,18 @@ public sealed class DocumentBinder
             _values[path] = new MeasureValue(path, node.Span, si.Value, dimension, q, refs.SideRatio);
         }
         // Absolute settings through a transformer still get its ratio, so reports can show the secondary value.
-        foreach (var (path, v) in _values.ToArray())
+        List<MeasureValue>? withRatio = null;
+        foreach (var (path, v) in _values)
         {
             if (v is MeasureValue { SideRatio: null, Dimension: Dimension.Current or Dimension.Voltage } m && path.StartsWith("protection.", StringComparison.Ordinal))
             {
                 var refs = References(path, m.Dimension == Dimension.Voltage);
-                if (refs.SideRatio is not null) _values[path] = m with { SideRatio = refs.SideRatio };
+                if (refs.SideRatio is not null) (withRatio ??= []).Add(m with { SideRatio = refs.SideRatio });
             }
+        }
+        foreach (var m in withRatio ?? [])
+        {
+            _values[m.Path] = m;
         }
     }
 
@@ -208,17 +226,27 @@ public sealed class DocumentBinder
     /// <summary>The element a setting path belongs to (protection.ground_fault.pickup gives ground_fault).</summary>
     public static string ElementOf(string path)
     {
-        var parts = path.Split('.');
-        return parts.Length >= 2 && parts[0] == "protection" ? parts[1] : "";
+        if (!path.StartsWith("protection.", StringComparison.Ordinal)) return "";
+        var rest = path.AsSpan("protection.".Length);
+        var dot = rest.IndexOf('.');
+        var element = dot < 0 ? rest : rest[..dot];
+        // The element that decides the CT, without a string for it; any other is named by its own text.
+        return element.SequenceEqual(GroundFault) ? GroundFault : element.ToString();
     }
+
+    private const string GroundFault = "ground_fault";
 
     /// <summary>Which CT an element measures through: the ground CT for ground fault unless residually connected.</summary>
     public static string CtOf(string element, string? groundConnection) =>
-        element == "ground_fault" && groundConnection != "residual" ? "transformers.ground_ct" : "transformers.phase_ct";
+        element == GroundFault && groundConnection != "residual" ? "transformers.ground_ct" : "transformers.phase_ct";
 
     private ConversionReferences References(string path, bool voltage) =>
-        SettingReferences.For(p => (_values.GetValueOrDefault(p) as MeasureValue)?.Value,
-            (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
+        SettingReferences.For(new Values(_values), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
+
+    private readonly struct Values(Dictionary<string, BoundValue> values) : SettingReferences.INumbers
+    {
+        public double? Get(string path) => (values.GetValueOrDefault(path) as MeasureValue)?.Value;
+    }
 
     private IEnumerable<string> ReferencePaths(string path, UnitBasis basis, bool voltage)
     {

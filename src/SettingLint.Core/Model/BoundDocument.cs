@@ -30,6 +30,13 @@ public sealed class BoundDocument
         _keys = KeySpans.Of(root, _values);
     }
 
+    /// <summary>
+    /// A document made of a binder's own dictionary, whose keys and value paths are already the shared strings of
+    /// <see cref="KeyPaths"/>: it is kept as it is, not copied.
+    /// </summary>
+    internal static BoundDocument OfBinder(string kind, string path, string relativePath, YMapping root, Dictionary<string, BoundValue> values) =>
+        new(kind, path, relativePath, values, KeySpans.Of(root, values));
+
     private BoundDocument(string kind, string path, string relativePath, Dictionary<string, BoundValue> values, KeySpans keys)
     {
         Kind = kind;

@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using System.Runtime.CompilerServices;
 
 namespace SettingLint.Core.Model;
 
@@ -13,6 +14,9 @@ internal static class KeyPaths
 
     private static readonly ConcurrentDictionary<string, string> Pool = new(StringComparer.Ordinal);
 
+    // A shared path and a key below it, to the shared path of both: a path is found without being written out first.
+    private static readonly ConcurrentDictionary<(string Prefix, string Key), string> Joined = new(new JoinComparer());
+
     private static int _count;
 
     /// <summary>The shared string equal to a path.</summary>
@@ -23,5 +27,29 @@ internal static class KeyPaths
         shared = Pool.GetOrAdd(path, path);
         if (ReferenceEquals(shared, path)) Interlocked.Increment(ref _count);
         return shared;
+    }
+
+    /// <summary>
+    /// The shared path of a key below a path (null at the root, where the path is the key itself; below a root key ""
+    /// it starts with a dot). Fastest when the prefix is itself a shared path, as every path this returns is.
+    /// </summary>
+    public static string Join(string? prefix, string key)
+    {
+        if (prefix is null) return Shared(key);
+        if (Joined.TryGetValue((prefix, key), out var joined)) return joined;
+        joined = Shared(prefix + "." + key);
+        // Only shared paths are remembered: a prefix that is not one would never be asked for again by reference.
+        if (ReferenceEquals(Shared(prefix), prefix) && Volatile.Read(ref _count) < Capacity) Joined.TryAdd((prefix, key), joined);
+        return joined;
+    }
+
+    // The prefix by reference (it is a shared string), the key by its text.
+    private sealed class JoinComparer : IEqualityComparer<(string Prefix, string Key)>
+    {
+        public bool Equals((string Prefix, string Key) x, (string Prefix, string Key) y) =>
+            ReferenceEquals(x.Prefix, y.Prefix) && string.Equals(x.Key, y.Key, StringComparison.Ordinal);
+
+        public int GetHashCode((string Prefix, string Key) obj) =>
+            HashCode.Combine(RuntimeHelpers.GetHashCode(obj.Prefix), StringComparer.Ordinal.GetHashCode(obj.Key));
     }
 }

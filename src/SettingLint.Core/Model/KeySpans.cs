@@ -12,6 +12,12 @@ internal sealed class KeySpans
 
     private static readonly Comparison<Entry> ByPath = static (a, b) => string.CompareOrdinal(a.Path, b.Path);
 
+    [ThreadStatic]
+    private static List<Entry>? t_keys;
+
+    [ThreadStatic]
+    private static List<Entry>? t_scalars;
+
     private readonly Entry[] _keys;
 
     // Scalars that did not bind (a wrong type, an empty value): a bound one gives its value's span itself.
@@ -26,14 +32,23 @@ internal sealed class KeySpans
     /// <summary>Reads the key spans of a tree; a path that is bound takes the bound value's path string, any other the shared one.</summary>
     public static KeySpans Of(YMapping root, IReadOnlyDictionary<string, BoundValue> values)
     {
-        var keys = new List<Entry>();
-        var scalars = new List<Entry>();
-        Walk(root, null, values, keys, scalars);
-        var k = keys.ToArray();
-        var s = scalars.ToArray();
-        Array.Sort(k, ByPath);
-        Array.Sort(s, ByPath);
-        return new KeySpans(k, s);
+        // Lists kept per thread: a document's arrays are allocated once, at their size.
+        var keys = t_keys ??= new List<Entry>(256);
+        var scalars = t_scalars ??= new List<Entry>(16);
+        try
+        {
+            Walk(root, null, values, keys, scalars);
+            var k = keys.ToArray();
+            var s = scalars.ToArray();
+            Array.Sort(k, ByPath);
+            Array.Sort(s, ByPath);
+            return new KeySpans(k, s);
+        }
+        finally
+        {
+            keys.Clear();
+            scalars.Clear();
+        }
     }
 
     // Only mappings are walked: a path goes through keys, never into a list. A key with a dot in it cannot be
@@ -44,9 +59,9 @@ internal sealed class KeySpans
         foreach (var e in mapping.Entries)
         {
             if (e.Key.Value.Contains('.', StringComparison.Ordinal)) continue;
-            var path = prefix is null ? e.Key.Value : prefix + "." + e.Key.Value;
+            var path = KeyPaths.Join(prefix, e.Key.Value);
             var bound = values.TryGetValue(path, out var v) && v.Path == path;
-            path = bound ? v!.Path : KeyPaths.Shared(path);
+            if (bound) path = v!.Path;
             keys.Add(new Entry(path, e.Key.Span));
             if (e.Value is YScalar && !bound) scalars.Add(new Entry(path, e.Value.Span));
             if (e.Value is YMapping child) Walk(child, path, values, keys, scalars);

@@ -27,18 +27,28 @@ public static class UnitContexts
 /// <summary>The units accepted for a dimension in a context.</summary>
 public static class AcceptedUnits
 {
-    /// <summary>The unit symbols accepted, in the order they are suggested.</summary>
+    private static readonly string[] CurrentSetting = ["A pri", "A sec", "kA pri", "xFLC", "xCT"];
+    private static readonly string[] CurrentMotorData = ["A", "kA", "xFLC"];
+    private static readonly string[] Current = ["A", "kA"];
+    private static readonly string[] VoltageSetting = ["%", "V pri", "V sec", "kV pri"];
+    private static readonly string[] Voltage = ["V", "kV"];
+    private static readonly string[] Time = ["ms", "s", "min", "h"];
+    private static readonly string[] Power = ["hp", "kW"];
+    private static readonly string[] Fraction = ["%"];
+    private static readonly string[] Impedance = ["ohm"];
+
+    /// <summary>The unit symbols accepted, in the order they are suggested (the same list each time: every value read asks).</summary>
     public static IReadOnlyList<string> For(Dimension dimension, UnitContext context) => (dimension, context) switch
     {
-        (Dimension.Current, UnitContext.Setting) => ["A pri", "A sec", "kA pri", "xFLC", "xCT"],
-        (Dimension.Current, UnitContext.MotorData) => ["A", "kA", "xFLC"],
-        (Dimension.Current, _) => ["A", "kA"],
-        (Dimension.Voltage, UnitContext.Setting) => ["%", "V pri", "V sec", "kV pri"],
-        (Dimension.Voltage, _) => ["V", "kV"],
-        (Dimension.Time, _) => ["ms", "s", "min", "h"],
-        (Dimension.Power, _) => ["hp", "kW"],
-        (Dimension.Fraction, _) => ["%"],
-        (Dimension.Impedance, _) => ["ohm"],
+        (Dimension.Current, UnitContext.Setting) => CurrentSetting,
+        (Dimension.Current, UnitContext.MotorData) => CurrentMotorData,
+        (Dimension.Current, _) => Current,
+        (Dimension.Voltage, UnitContext.Setting) => VoltageSetting,
+        (Dimension.Voltage, _) => Voltage,
+        (Dimension.Time, _) => Time,
+        (Dimension.Power, _) => Power,
+        (Dimension.Fraction, _) => Fraction,
+        (Dimension.Impedance, _) => Impedance,
         _ => [],
     };
 }
