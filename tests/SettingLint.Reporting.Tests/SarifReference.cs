@@ -12,7 +12,8 @@ namespace SettingLint.Reporting.Tests;
 
 /// <summary>
 /// The SARIF log as the Sarif.Sdk object model builds it and Newtonsoft writes it: the implementation the product
-/// used before it wrote SARIF itself, kept as the reference that <see cref="SarifReporter"/> must match.
+/// used before it wrote SARIF itself, kept as the reference that <see cref="SarifReporter"/> must match. The two
+/// share only the reading of an exception's type from its text.
 /// </summary>
 internal static class SarifReference
 {
@@ -257,7 +258,7 @@ internal static class SarifReference
             {
                 if (notification.Exception is { } exception)
                 {
-                    sarif.Exception = new ExceptionData { Kind = ExceptionKind(exception), Message = exception };
+                    sarif.Exception = new ExceptionData { Kind = SarifReporter.ExceptionKind(exception), Message = exception };
                 }
                 execution.Add(sarif);
             }
@@ -280,19 +281,6 @@ internal static class SarifReference
             if (context.EndTimeUtc is { } end) invocation.EndTimeUtc = end.UtcDateTime;
         }
         return invocation;
-    }
-
-    // "System.IO.IOException: disk full\n   at ..." has its type before the first colon; anything else has no kind.
-    private static string? ExceptionKind(string exceptionText)
-    {
-        var colon = exceptionText.IndexOf(':', StringComparison.Ordinal);
-        if (colon <= 0) return null;
-        var head = exceptionText.AsSpan(0, colon);
-        foreach (var c in head)
-        {
-            if (!(char.IsAsciiLetterOrDigit(c) || c is '.' or '_' or '`' or '+')) return null;
-        }
-        return head.ToString();
     }
 
     private static FailureLevel FailureLevelOf(Level level) => level switch
