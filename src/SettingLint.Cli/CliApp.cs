@@ -14,14 +14,13 @@ public static class CliApp
     /// <summary>Runs the command line and returns the exit code (0 clean, 1 findings, 2 usage or configuration, 3 internal error).</summary>
     public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
     {
-        // Start-up: the YAML parser, the schemas, the built-in rules and for SARIF the serializer get ready on the thread pool while the rest starts.
+        // Start-up: the YAML parser, the schemas and the built-in rules get ready on the thread pool while the rest starts.
         if (args.Length > 0 && args[0] is "check" or "report" or "baseline" or "rules")
         {
             SettingLint.Core.Loading.YamlLoader.Warm();
             SettingLint.Core.Validation.SchemaSet.Shared.Warm();
             if (args[0] != "rules") SettingLint.Core.Rules.RuleLoader.Warm();
         }
-        if (args.Contains("sarif")) _ = Task.Run(SettingLint.Reporting.SarifReporter.Warm);
         var root = Build(stdout, stderr);
         ParseResult parse;
         try

@@ -1,6 +1,3 @@
-using System.Buffers;
-using System.Text;
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using SettingLint.Core.Findings;
 
@@ -9,14 +6,6 @@ namespace SettingLint.Reporting;
 /// <summary>The findings as plain JSON for scripts: stable key order, indented, no absolute paths.</summary>
 public sealed class JsonReporter : IReporter
 {
-    private static readonly JsonWriterOptions Options = new()
-    {
-        Indented = true,
-        NewLine = "\n",
-        // The report is a file, not HTML: keep non-ASCII text and symbols such as '<' and '+' readable.
-        Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
-    };
-
     /// <inheritdoc />
     public void Write(CheckResult result, ReportContext context, TextWriter output)
     {
@@ -24,13 +13,7 @@ public sealed class JsonReporter : IReporter
         ArgumentNullException.ThrowIfNull(context);
         ArgumentNullException.ThrowIfNull(output);
 
-        var buffer = new ArrayBufferWriter<byte>(4096);
-        using (var json = new Utf8JsonWriter(buffer, Options))
-        {
-            WriteReport(json, result, context);
-        }
-        output.Write(Encoding.UTF8.GetString(buffer.WrittenSpan));
-        output.Write('\n');
+        output.Write(JsonOutput.Render(json => WriteReport(json, result, context)));
     }
 
     private static void WriteReport(Utf8JsonWriter json, CheckResult result, ReportContext context)

@@ -5,7 +5,7 @@ namespace SettingLint.Reporting;
 /// <summary>The output formats by name; adding a format is one entry in <see cref="Table"/>.</summary>
 public static class Reporters
 {
-    // Factories, not instances: a format's dependencies (Newtonsoft, Sarif.Sdk) load only when it is chosen.
+    // Factories, not instances: only the chosen format's reporter is made, a new one for each call.
     private static readonly ImmutableArray<(string Name, Func<IReporter> Create)> Table =
     [
         ("text", static () => new TextReporter()),

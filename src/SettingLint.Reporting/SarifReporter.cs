@@ -1,23 +1,20 @@
+using System.Collections.Immutable;
 using System.Globalization;
-using Microsoft.CodeAnalysis.Sarif;
-using Newtonsoft.Json;
+using System.Text.Json;
+using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
-using SarifBaselineState = Microsoft.CodeAnalysis.Sarif.BaselineState;
-using SarifNotification = Microsoft.CodeAnalysis.Sarif.Notification;
-using SarifSuppression = Microsoft.CodeAnalysis.Sarif.Suppression;
 
 namespace SettingLint.Reporting;
 
-/// <summary>A SARIF 2.1.0 log (one run) for code scanning services, built with the Sarif.Sdk object model.</summary>
+/// <summary>A SARIF 2.1.0 log (one run) for code scanning services, written directly with <see cref="Utf8JsonWriter"/>.</summary>
+/// <remarks>
+/// The log keeps the shape that the Sarif.Sdk object model gave it before: the same properties in the same order;
+/// defaults written all the same (a level of "warning", an exit code of 0), so that consumers need not know them;
+/// and the SDK's omissions (empty lists, blank texts, a short description that repeats the full one). Sarif.Sdk is
+/// a test-only reference now, which the tests compare with this writer on many inputs.
+/// </remarks>
 public sealed class SarifReporter : IReporter
 {
-    /// <summary>Writes an empty log to nowhere, so that the serializer's first-use cost is paid on another thread while a check runs.</summary>
-    public static void Warm()
-    {
-        var empty = new CheckResult(Path.GetTempPath(), [], [], [], 0, [], Level.Error);
-        new SarifReporter().Write(empty, new ReportContext(Path.GetTempPath(), false, false, ToolInfo.ForVersion("0.0.0")), TextWriter.Null);
-    }
-
     /// <summary>The schema URI written as <c>$schema</c>.</summary>
     public const string SchemaUri = "https://json.schemastore.org/sarif-2.1.0.json";
 
@@ -27,12 +24,8 @@ public sealed class SarifReporter : IReporter
     // The result property that maps value names to their units.
     private const string UnitsProperty = "units";
 
-    private readonly JsonSerializer _serializer = JsonSerializer.Create(new JsonSerializerSettings
-    {
-        ContractResolver = new ExplicitDefaultsContractResolver(),
-        Formatting = Formatting.Indented,
-        Culture = CultureInfo.InvariantCulture,
-    });
+    // SARIF 3.9: UTC with a "Z"; milliseconds, truncated.
+    private const string TimestampFormat = "yyyy-MM-ddTHH:mm:ss.fffZ";
 
     /// <inheritdoc />
     public void Write(CheckResult result, ReportContext context, TextWriter output)
@@ -41,255 +34,327 @@ public sealed class SarifReporter : IReporter
         ArgumentNullException.ThrowIfNull(context);
         ArgumentNullException.ThrowIfNull(output);
 
-        var log = Build(result, context);
-        // Newtonsoft indents with the writer's NewLine: pin it so output is the same on every platform.
-        using var text = new StringWriter(CultureInfo.InvariantCulture) { NewLine = "\n" };
-        using (var json = new JsonTextWriter(text) { Formatting = Formatting.Indented, Indentation = 2 })
-        {
-            _serializer.Serialize(json, log);
-        }
-        output.Write(text.ToString());
-        output.Write('\n');
+        output.Write(JsonOutput.Render(json => WriteLog(json, result, context)));
     }
 
-    internal static SarifLog Build(CheckResult result, ReportContext context)
+    private static void WriteLog(Utf8JsonWriter json, CheckResult result, ReportContext context)
     {
-        var ruleIndex = new Dictionary<string, int>(StringComparer.Ordinal);
-        var rules = new List<ReportingDescriptor>(result.Rules.Length);
-        foreach (var rule in result.Rules)
-        {
-            ruleIndex.TryAdd(rule.Id, rules.Count);
-            rules.Add(Rule(rule, context.Tool));
-        }
+        json.WriteStartObject();
+        json.WriteString("$schema", SchemaUri);
+        json.WriteString("version", "2.1.0");
+        json.WriteStartArray("runs");
+        WriteRun(json, result, context);
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
 
-        var results = new List<Result>(result.Findings.Length);
+    private static void WriteRun(Utf8JsonWriter json, CheckResult result, ReportContext context)
+    {
+        // A result points at the first rule of its id; a result of an unknown rule has no ruleIndex.
+        var ruleIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var i = 0; i < result.Rules.Length; i++) ruleIndex.TryAdd(result.Rules[i].Id, i);
+        int IndexOf(string ruleId) => ruleIndex.TryGetValue(ruleId, out var index) ? index : -1;
+
+        json.WriteStartObject();
+        json.WriteStartObject("tool");
+        WriteDriver(json, result.Rules, context.Tool);
+        json.WriteEndObject();
+
+        json.WriteStartArray("invocations");
+        WriteInvocation(json, result, context);
+        json.WriteEndArray();
+
+        json.WriteStartObject("originalUriBaseIds");
+        json.WriteStartObject(SourceRootBaseId);
+        json.WriteString("uri", ReportPaths.DirectoryFileUri(result.RepositoryRoot));
+        json.WriteEndObject();
+        json.WriteEndObject();
+
+        json.WriteStartArray("results");
         foreach (var finding in result.Findings)
         {
             if (finding.Suppression is not null && context.OmitSuppressed) continue;
-            results.Add(Result(finding, ruleIndex.TryGetValue(finding.RuleId, out var index) ? index : -1));
+            WriteResult(json, finding, IndexOf(finding.RuleId));
         }
         // Code scanning would show an absent result as an open alert, so the code-scanning option leaves them out too.
         if (!context.OmitSuppressed && result.BaselineFile is { } baselineFile)
         {
-            foreach (var absent in result.Absent)
-            {
-                results.Add(Absent(absent, baselineFile, ruleIndex.TryGetValue(absent.RuleId, out var index) ? index : -1));
-            }
+            foreach (var absent in result.Absent) WriteAbsent(json, absent, baselineFile, IndexOf(absent.RuleId));
         }
+        json.WriteEndArray();
 
-        var run = new Run
-        {
-            Tool = new Tool
-            {
-                Driver = new ToolComponent
-                {
-                    Name = context.Tool.Name,
-                    Version = context.Tool.Version,
-                    SemanticVersion = context.Tool.Version,
-                    InformationUri = context.Tool.InformationUri,
-                    Rules = rules,
-                },
-            },
-            Invocations = [Invocation(result, context)],
-            OriginalUriBaseIds = new Dictionary<string, ArtifactLocation>(StringComparer.Ordinal)
-            {
-                [SourceRootBaseId] = new ArtifactLocation
-                {
-                    Uri = new Uri(ReportPaths.DirectoryFileUri(result.RepositoryRoot), UriKind.Absolute),
-                },
-            },
-            Results = results,
-            ColumnKind = ColumnKind.Utf16CodeUnits,
-        };
-
-        return new SarifLog
-        {
-            SchemaUri = new Uri(SchemaUri, UriKind.Absolute),
-            Version = SarifVersion.Current,
-            Runs = [run],
-        };
+        json.WriteString("columnKind", "utf16CodeUnits");
+        json.WriteEndObject();
     }
 
-    private static ReportingDescriptor Rule(RuleDescriptor rule, ToolInfo tool)
+    private static void WriteDriver(Utf8JsonWriter json, ImmutableArray<RuleDescriptor> rules, ToolInfo tool)
     {
-        var descriptor = new ReportingDescriptor
+        json.WriteStartObject("driver");
+        if (!string.IsNullOrWhiteSpace(tool.Name)) json.WriteString("name", tool.Name);
+        json.WriteString("version", tool.Version);
+        json.WriteString("semanticVersion", tool.Version);
+        json.WriteString("informationUri", tool.InformationUri.OriginalString);
+        if (rules.Length > 0)
         {
-            Id = rule.Id,
-            Name = rule.Name,
-            ShortDescription = new MultiformatMessageString { Text = rule.Title },
-            FullDescription = new MultiformatMessageString { Text = rule.Summary },
-            Help = new MultiformatMessageString { Text = rule.HelpText, Markdown = rule.HelpMarkdown },
-            HelpUri = tool.HelpUri(rule),
-            DefaultConfiguration = new ReportingConfiguration { Level = FailureLevelOf(rule.DefaultLevel) },
-        };
-        if (!rule.Tags.IsDefaultOrEmpty) descriptor.SetProperty("tags", rule.Tags.ToArray());
-        return descriptor;
+            json.WriteStartArray("rules");
+            foreach (var rule in rules) WriteRule(json, rule, tool);
+            json.WriteEndArray();
+        }
+        json.WriteEndObject();
     }
 
-    private static Result Result(Finding finding, int ruleIndex)
+    private static void WriteRule(Utf8JsonWriter json, RuleDescriptor rule, ToolInfo tool)
     {
-        var sarif = new Result
+        json.WriteStartObject();
+        json.WriteString("id", rule.Id);
+        json.WriteString("name", rule.Name);
+        if (!string.IsNullOrEmpty(rule.Summary)) WriteText(json, "fullDescription", rule.Summary);
+        WriteText(json, "help", rule.HelpText, rule.HelpMarkdown);
+        // A short description that only repeats the full one is left out (compared as the SDK compared them).
+        if (!string.Equals(rule.Summary.Trim(), rule.Title.Trim(), StringComparison.InvariantCultureIgnoreCase))
         {
-            RuleId = finding.RuleId,
-            RuleIndex = ruleIndex,
-            Level = FailureLevelOf(finding.Level),
-            Message = new Message { Text = finding.Message },
-            Locations = [Location(finding.File, finding.Span)],
-            PartialFingerprints = new Dictionary<string, string>(StringComparer.Ordinal)
-            {
-                [Fingerprints.Key] = finding.Fingerprint,
-            },
-        };
+            WriteText(json, "shortDescription", rule.Title);
+        }
+        json.WriteStartObject("defaultConfiguration");
+        json.WriteString("level", rule.DefaultLevel.Token());
+        json.WriteEndObject();
+        json.WriteString("helpUri", UriText(tool.HelpUri(rule)));
+        if (!rule.Tags.IsDefaultOrEmpty)
+        {
+            json.WriteStartObject("properties");
+            json.WriteStartArray("tags");
+            foreach (var tag in rule.Tags) json.WriteStringValue(tag);
+            json.WriteEndArray();
+            json.WriteEndObject();
+        }
+        json.WriteEndObject();
+    }
+
+    // A multiformatMessageString; blank texts are left out.
+    private static void WriteText(Utf8JsonWriter json, string name, string text, string? markdown = null)
+    {
+        json.WriteStartObject(name);
+        if (!string.IsNullOrWhiteSpace(text)) json.WriteString("text", text);
+        if (!string.IsNullOrWhiteSpace(markdown)) json.WriteString("markdown", markdown);
+        json.WriteEndObject();
+    }
+
+    private static void WriteResult(Utf8JsonWriter json, Finding finding, int ruleIndex)
+    {
+        json.WriteStartObject();
+        WriteRuleReference(json, finding.RuleId, ruleIndex);
+        json.WriteString("level", finding.Level.Token());
+        WriteMessage(json, finding.Message);
+        json.WriteStartArray("locations");
+        WriteLocation(json, finding.File, finding.Span);
+        json.WriteEndArray();
+        WriteFingerprint(json, finding.Fingerprint);
         if (finding.Suppression is { } suppression)
         {
-            sarif.Suppressions =
-            [
-                new SarifSuppression
-                {
-                    Kind = SuppressionKind.InSource,
-                    Justification = suppression.Justification,
-                    Location = Location(suppression.File, suppression.Span),
-                },
-            ];
+            json.WriteStartArray("suppressions");
+            json.WriteStartObject();
+            json.WriteString("kind", "inSource");
+            json.WriteString("justification", suppression.Justification);
+            json.WritePropertyName("location");
+            WriteLocation(json, suppression.File, suppression.Span);
+            json.WriteEndObject();
+            json.WriteEndArray();
         }
+        if (finding.BaselineState is { } state) json.WriteString("baselineState", state == BaselineState.Unchanged ? "unchanged" : "new");
+        WriteProperties(json, finding);
+        json.WriteEndObject();
+    }
 
-        if (finding.BaselineState is { } state)
-        {
-            sarif.BaselineState = state == Core.Findings.BaselineState.Unchanged ? SarifBaselineState.Unchanged : SarifBaselineState.New;
-        }
-
-        // The property bag keeps insertion order: keyPath first, then the values in their (ordinal) order.
-        sarif.SetProperty("keyPath", finding.KeyPath);
+    // The property bag keeps keyPath first, then the values in their (ordinal) order, then the units of the numbers.
+    private static void WriteProperties(Utf8JsonWriter json, Finding finding)
+    {
+        // A renamed value may meet one already called so ("keyPath" and "value.keyPath"): the name keeps its
+        // first place and the later value.
+        var names = new string[finding.Values.Count];
+        var values = new FindingValue[names.Length];
+        var count = 0;
+        SortedDictionary<string, string>? units = null;
         foreach (var (name, value) in finding.Values)
         {
             var key = PropertyName(name);
-            if (value.Number is { } number && double.IsFinite(number)) sarif.SetProperty(key, number);
-            else sarif.SetProperty(key, value.Text);
-        }
-        var units = new SortedDictionary<string, string>(StringComparer.Ordinal);
-        foreach (var (name, value) in finding.Values)
-        {
-            if (value.Unit is { } unit && value.Number is { } number && double.IsFinite(number)) units[name] = unit;
-        }
-        if (units.Count > 0) sarif.SetProperty(UnitsProperty, units);
-        return sarif;
-    }
-
-    // SARIF 2.1.0 3.27.24: a result of the baseline that this run no longer finds. It is placed on its baseline
-    // entry, the line to delete, with the setting file as a related location.
-    private static Result Absent(AbsentResult absent, string baselineFile, int ruleIndex)
-    {
-        var where = absent.KeyPath.Length == 0 ? absent.File : absent.File + " " + absent.KeyPath;
-        var text = "In the baseline but no longer found: " + absent.RuleId + " at " + where
-            + (absent.Message.Length > 0 ? " (" + absent.Message + ")" : "") + "; remove this entry from the baseline.";
-        var sarif = new Result
-        {
-            RuleId = absent.RuleId,
-            RuleIndex = ruleIndex,
-            Kind = ResultKind.Informational,
-            Level = FailureLevel.None,
-            Message = new Message { Text = text },
-            // A baseline outside the repository has no URI under the root: the setting file stands in.
-            Locations = [Path.IsPathRooted(baselineFile)
-                ? new Location { PhysicalLocation = new PhysicalLocation { ArtifactLocation = ArtifactLocation(absent.File) } }
-                : Location(baselineFile, Core.Documents.SourceSpan.At(absent.BaselineLine, 1))],
-            RelatedLocations = [new Location { Id = 1, PhysicalLocation = new PhysicalLocation { ArtifactLocation = ArtifactLocation(absent.File) } }],
-            PartialFingerprints = new Dictionary<string, string>(StringComparer.Ordinal)
+            var at = Array.IndexOf(names, key, 0, count);
+            if (at < 0)
             {
-                [Fingerprints.Key] = absent.Fingerprint,
-            },
-            BaselineState = SarifBaselineState.Absent,
-        };
-        sarif.SetProperty("keyPath", absent.KeyPath);
-        return sarif;
+                at = count++;
+                names[at] = key;
+            }
+            values[at] = value;
+            if (value.Unit is { } unit && value.Number is { } number && double.IsFinite(number))
+            {
+                (units ??= new SortedDictionary<string, string>(StringComparer.Ordinal))[name] = unit;
+            }
+        }
+
+        json.WriteStartObject("properties");
+        json.WriteString("keyPath", finding.KeyPath);
+        for (var i = 0; i < count; i++)
+        {
+            // JSON has no NaN or infinity: such a number is left to its text.
+            if (values[i].Number is { } number && double.IsFinite(number)) json.WriteNumber(names[i], number);
+            else json.WriteString(names[i], values[i].Text);
+        }
+        if (units is not null)
+        {
+            json.WriteStartObject(UnitsProperty);
+            foreach (var (name, unit) in units) json.WriteString(name, unit);
+            json.WriteEndObject();
+        }
+        json.WriteEndObject();
     }
 
     // A value may not take the name of our own properties, nor "tags", which SARIF reserves for a string array.
     private static string PropertyName(string valueName) =>
         valueName is "keyPath" or UnitsProperty or "tags" ? "value." + valueName : valueName;
 
-    private static Location Location(string file, Core.Documents.SourceSpan span) => new()
+    // SARIF 2.1.0 3.27.24: a result of the baseline that this run no longer finds. It is placed on its baseline
+    // entry, the line to delete, with the setting file as a related location.
+    private static void WriteAbsent(Utf8JsonWriter json, AbsentResult absent, string baselineFile, int ruleIndex)
     {
-        PhysicalLocation = new PhysicalLocation
-        {
-            ArtifactLocation = ArtifactLocation(file),
-            Region = Region(span),
-        },
-    };
+        var where = absent.KeyPath.Length == 0 ? absent.File : absent.File + " " + absent.KeyPath;
+        var text = "In the baseline but no longer found: " + absent.RuleId + " at " + where
+            + (absent.Message.Length > 0 ? " (" + absent.Message + ")" : "") + "; remove this entry from the baseline.";
 
-    private static ArtifactLocation ArtifactLocation(string file) => new()
+        json.WriteStartObject();
+        WriteRuleReference(json, absent.RuleId, ruleIndex);
+        json.WriteString("kind", "informational");
+        json.WriteString("level", "none");
+        WriteMessage(json, text);
+        json.WriteStartArray("locations");
+        // A baseline outside the repository has no URI under the root: the setting file stands in.
+        if (Path.IsPathRooted(baselineFile)) WriteLocation(json, absent.File, null);
+        else WriteLocation(json, baselineFile, SourceSpan.At(absent.BaselineLine, 1));
+        json.WriteEndArray();
+        WriteFingerprint(json, absent.Fingerprint);
+        json.WriteStartArray("relatedLocations");
+        WriteLocation(json, absent.File, null, id: 1);
+        json.WriteEndArray();
+        json.WriteString("baselineState", "absent");
+        json.WriteStartObject("properties");
+        json.WriteString("keyPath", absent.KeyPath);
+        json.WriteEndObject();
+        json.WriteEndObject();
+    }
+
+    private static void WriteRuleReference(Utf8JsonWriter json, string ruleId, int ruleIndex)
     {
-        Uri = new Uri(ReportPaths.UriReference(file), UriKind.Relative),
-        UriBaseId = SourceRootBaseId,
-    };
+        json.WriteString("ruleId", ruleId);
+        if (ruleIndex >= 0) json.WriteNumber("ruleIndex", ruleIndex);
+    }
+
+    private static void WriteMessage(Utf8JsonWriter json, string text)
+    {
+        json.WriteStartObject("message");
+        json.WriteString("text", text);
+        json.WriteEndObject();
+    }
+
+    private static void WriteFingerprint(Utf8JsonWriter json, string fingerprint)
+    {
+        json.WriteStartObject("partialFingerprints");
+        json.WriteString(Fingerprints.Key, fingerprint);
+        json.WriteEndObject();
+    }
+
+    // A location object, written where the caller has placed it (an array item or a named property).
+    private static void WriteLocation(Utf8JsonWriter json, string file, SourceSpan? span, int id = -1)
+    {
+        json.WriteStartObject();
+        if (id >= 0) json.WriteNumber("id", id);
+        json.WriteStartObject("physicalLocation");
+        WriteArtifactLocation(json, file);
+        if (span is { } region) WriteRegion(json, region);
+        json.WriteEndObject();
+        json.WriteEndObject();
+    }
+
+    private static void WriteArtifactLocation(Utf8JsonWriter json, string file)
+    {
+        json.WriteStartObject("artifactLocation");
+        json.WriteString("uri", ReportPaths.UriReference(file));
+        json.WriteString("uriBaseId", SourceRootBaseId);
+        json.WriteEndObject();
+    }
 
     // SARIF wants 1-based lines and columns and an end that is not before the start.
-    private static Region Region(Core.Documents.SourceSpan span)
+    private static void WriteRegion(Utf8JsonWriter json, SourceSpan span)
     {
         var startLine = Math.Max(1, span.StartLine);
         var startColumn = Math.Max(1, span.StartColumn);
         var endLine = Math.Max(startLine, span.EndLine);
         var endColumn = Math.Max(1, span.EndColumn);
         if (endLine == startLine && endColumn < startColumn) endColumn = startColumn;
-        return new Region { StartLine = startLine, StartColumn = startColumn, EndLine = endLine, EndColumn = endColumn };
+        json.WriteStartObject("region");
+        json.WriteNumber("startLine", startLine);
+        json.WriteNumber("startColumn", startColumn);
+        json.WriteNumber("endLine", endLine);
+        json.WriteNumber("endColumn", endColumn);
+        json.WriteEndObject();
     }
 
-    private static Invocation Invocation(CheckResult result, ReportContext context)
+    private static void WriteInvocation(Utf8JsonWriter json, CheckResult result, ReportContext context)
     {
-        var execution = new List<SarifNotification>();
-        var configuration = new List<SarifNotification>();
-        foreach (var notification in result.Notifications)
-        {
-            var sarif = new SarifNotification
-            {
-                Level = FailureLevel.Error,
-                Message = new Message { Text = notification.Message },
-            };
-            if (notification.File is { } file)
-            {
-                sarif.Locations =
-                [
-                    new Location
-                    {
-                        PhysicalLocation = new PhysicalLocation
-                        {
-                            ArtifactLocation = ArtifactLocation(file),
-                            Region = notification.Span is { } span ? Region(span) : null,
-                        },
-                    },
-                ];
-            }
-            if (notification.Kind == NotificationKind.Internal)
-            {
-                if (notification.Exception is { } exception)
-                {
-                    sarif.Exception = new ExceptionData { Kind = ExceptionKind(exception), Message = exception };
-                }
-                execution.Add(sarif);
-            }
-            else
-            {
-                configuration.Add(sarif);
-            }
-        }
-
-        var invocation = new Invocation
-        {
-            ExecutionSuccessful = result.Notifications.All(static n => n.Kind != NotificationKind.Internal),
-            ExitCode = result.ExitCode,
-            ToolExecutionNotifications = execution.Count > 0 ? execution : null,
-            ToolConfigurationNotifications = configuration.Count > 0 ? configuration : null,
-        };
+        json.WriteStartObject();
         if (context.Timestamps)
         {
-            if (context.StartTimeUtc is { } start) invocation.StartTimeUtc = start.UtcDateTime;
-            if (context.EndTimeUtc is { } end) invocation.EndTimeUtc = end.UtcDateTime;
+            WriteTimestamp(json, "startTimeUtc", context.StartTimeUtc);
+            WriteTimestamp(json, "endTimeUtc", context.EndTimeUtc);
         }
-        return invocation;
+        json.WriteNumber("exitCode", result.ExitCode);
+        WriteNotifications(json, "toolExecutionNotifications", result.Notifications, execution: true);
+        WriteNotifications(json, "toolConfigurationNotifications", result.Notifications, execution: false);
+        json.WriteBoolean("executionSuccessful", result.Notifications.All(static n => n.Kind != NotificationKind.Internal));
+        json.WriteEndObject();
+    }
+
+    // The earliest time there is stands for "not known" and is left out.
+    private static void WriteTimestamp(Utf8JsonWriter json, string name, DateTimeOffset? time)
+    {
+        if (time is not { } known || known.UtcDateTime == DateTime.MinValue) return;
+        json.WriteString(name, known.UtcDateTime.ToString(TimestampFormat, CultureInfo.InvariantCulture));
+    }
+
+    // Internal errors are execution notifications, everything else configuration ones; an empty list is left out.
+    private static void WriteNotifications(Utf8JsonWriter json, string name, ImmutableArray<Notification> notifications, bool execution)
+    {
+        var started = false;
+        foreach (var notification in notifications)
+        {
+            if ((notification.Kind == NotificationKind.Internal) != execution) continue;
+            if (!started) json.WriteStartArray(name);
+            started = true;
+            WriteNotification(json, notification);
+        }
+        if (started) json.WriteEndArray();
+    }
+
+    private static void WriteNotification(Utf8JsonWriter json, Notification notification)
+    {
+        json.WriteStartObject();
+        if (notification.File is { } file)
+        {
+            json.WriteStartArray("locations");
+            WriteLocation(json, file, notification.Span);
+            json.WriteEndArray();
+        }
+        WriteMessage(json, notification.Message);
+        json.WriteString("level", "error");
+        if (notification.Kind == NotificationKind.Internal && notification.Exception is { } exception)
+        {
+            json.WriteStartObject("exception");
+            if (ExceptionKind(exception) is { } kind) json.WriteString("kind", kind);
+            json.WriteString("message", exception);
+            json.WriteEndObject();
+        }
+        json.WriteEndObject();
     }
 
     // "System.IO.IOException: disk full\n   at ..." has its type before the first colon; anything else has no kind.
-    private static string? ExceptionKind(string exceptionText)
+    internal static string? ExceptionKind(string exceptionText)
     {
         var colon = exceptionText.IndexOf(':', StringComparison.Ordinal);
         if (colon <= 0) return null;
@@ -301,11 +366,9 @@ public sealed class SarifReporter : IReporter
         return head.ToString();
     }
 
-    private static FailureLevel FailureLevelOf(Level level) => level switch
-    {
-        Level.Error => FailureLevel.Error,
-        Level.Warning => FailureLevel.Warning,
-        Level.Note => FailureLevel.Note,
-        _ => FailureLevel.None,
-    };
+    // An absolute URI as SARIF wants it; a file URI made from a local path ("/opt/docs/...") is spelt as a file URI.
+    private static string UriText(Uri uri) =>
+        uri.IsAbsoluteUri && uri.Scheme == Uri.UriSchemeFile && !uri.OriginalString.StartsWith("file:", StringComparison.Ordinal)
+            ? uri.AbsoluteUri
+            : uri.OriginalString;
 }

@@ -9,7 +9,7 @@ public sealed class SarifValidationTests(ITestOutputHelper output)
 {
     public static TheoryData<string> Cases => ["findings", "clean", "notifications", "omit-suppressed"];
 
-    private static (CheckResult Result, ReportContext Context) Case(string name) => name switch
+    internal static (CheckResult Result, ReportContext Context) Case(string name) => name switch
     {
         "findings" => (Samples.Result(), Samples.Context("/r/motors")),
         "clean" => (Samples.Clean(), Samples.Context()),

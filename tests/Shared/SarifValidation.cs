@@ -33,7 +33,7 @@ public static class SarifValidation
         }
         throw new FileNotFoundException(
             "The SARIF schema of Sarif.Sdk " + SarifSdkVersion + " was not found under: " + string.Join(", ", candidates) +
-            ". Restore src/SettingLint.Reporting (it downloads the package) or set NUGET_PACKAGES.");
+            ". Restore the test project (it downloads the package) or set NUGET_PACKAGES.");
     }
 
     /// <summary>The schema errors of a SARIF log, one readable line each (empty when it is valid).</summary>

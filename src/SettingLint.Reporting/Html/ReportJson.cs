@@ -1,6 +1,3 @@
-using System.Buffers;
-using System.Text;
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Rules;
@@ -10,23 +7,11 @@ namespace SettingLint.Reporting.Html;
 /// <summary>The report's margins and setting windows as JSON (`report --format json` and report.json): stable order, no absolute paths.</summary>
 public static class ReportJson
 {
-    private static readonly JsonWriterOptions Options = new()
-    {
-        Indented = true,
-        NewLine = "\n",
-        Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
-    };
-
     /// <summary>The whole document, ending with a newline.</summary>
     public static string Render(ReportModel model)
     {
         ArgumentNullException.ThrowIfNull(model);
-        var buffer = new ArrayBufferWriter<byte>(16384);
-        using (var json = new Utf8JsonWriter(buffer, Options))
-        {
-            Write(json, model);
-        }
-        return Encoding.UTF8.GetString(buffer.WrittenSpan) + "\n";
+        return JsonOutput.Render(json => Write(json, model), 16384);
     }
 
     private static void Write(Utf8JsonWriter json, ReportModel model)
