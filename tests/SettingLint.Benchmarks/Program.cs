@@ -47,15 +47,19 @@ foreach (var n in sizes)
     var loader = new List<double>();
     var open = new List<double>();
     var cpu = new List<double>();
-    long heapPeak = 0;
+    long heapPeak = 0, livePeak = 0;
+    var floorAlloc = new List<double>();
+    var checkAlloc = new List<double>();
     int findings = 0, checkedFiles = 0, exit = 0, notes = 0;
     var gcBefore = GC.CollectionCount(0) + GC.CollectionCount(1) * 1000 + GC.CollectionCount(2) * 1000000;
     for (var r = 0; r < rounds; r++)
     {
         GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
+        var a0 = GC.GetTotalAllocatedBytes(true);
         var sw = Stopwatch.StartNew();
         ParseFloor(dir);
         floor.Add(sw.Elapsed.TotalMilliseconds);
+        floorAlloc.Add(GC.GetTotalAllocatedBytes(true) - a0);
 
         GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
         sw.Restart();
@@ -66,33 +70,41 @@ foreach (var n in sizes)
         using (var sampler = new HeapSampler())
         {
             var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
+            var c0 = GC.GetTotalAllocatedBytes(true);
             sw.Restart();
             var session = Session.Open([dir]);
             open.Add(sw.Elapsed.TotalMilliseconds);
             var result = session.Check([dir], null);
             check.Add(sw.Elapsed.TotalMilliseconds);
+            checkAlloc.Add(GC.GetTotalAllocatedBytes(true) - c0);
             cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalMilliseconds / sw.Elapsed.TotalMilliseconds);
             findings = result.Findings.Length;
             checkedFiles = result.FilesChecked;
             exit = result.ExitCode;
             notes = result.Notifications.Length;
             heapPeak = Math.Max(heapPeak, Math.Max(sampler.Peak, GC.GetGCMemoryInfo().HeapSizeBytes));
+            livePeak = Math.Max(livePeak, sampler.LivePeak);
             if (r == 0 && n == sizes[0]) PrintFindingSummary(result);
         }
     }
-    var row = new Row(n, files, checkedFiles, findings, notes, exit, Median(floor), Median(check), Process.GetCurrentProcess().PeakWorkingSet64, heapPeak, floor, check);
+    var row = new Row(n, files, checkedFiles, findings, notes, exit, Median(floor), Median(check), Process.GetCurrentProcess().PeakWorkingSet64, heapPeak, floor, check)
+    {
+        LivePeak = livePeak,
+        RoundRatio = Median([.. check.Zip(floor, (c, f) => c / f)]),
+    };
     rows.Add(row);
     Console.WriteLine($"N={n,6}: files={files} checked={checkedFiles} findings={findings} notifications={notes} exit={exit}  floor=[{string.Join(", ", floor.Select(x => x.ToString("F0")))}] ms  check=[{string.Join(", ", check.Select(x => x.ToString("F0")))}] ms");
+    Console.WriteLine($"           per round check/floor=[{string.Join(", ", check.Zip(floor, (c, f) => (c / f).ToString("F2")))}]  allocated per file: floor {Median(floorAlloc) / files / 1024:F1} KB, check {Median(checkAlloc) / files / 1024:F1} KB");
     Console.WriteLine($"           diagnostic: SettingLint YamlLoader.LoadFile only=[{string.Join(", ", loader.Select(x => x.ToString("F0")))}] ms (median {Median(loader):F0})  Session.Open part of check=[{string.Join(", ", open.Select(x => x.ToString("F0")))}] ms  check CPU/wall=[{string.Join(", ", cpu.Select(x => x.ToString("F2")))}] (max {Environment.ProcessorCount})");
     if (!keep) Directory.Delete(dir, true); else Console.WriteLine($"   kept {dir}");
 }
 
 Console.WriteLine();
-Console.WriteLine("| motors | yaml files | floor ms (median) | check ms (median) | check/floor | check files/s | floor files/s | peak WS MB (process) | peak GC heap MB (check) | findings |");
-Console.WriteLine("|-------:|-----------:|------------------:|------------------:|------------:|--------------:|--------------:|---------------------:|------------------------:|---------:|");
+Console.WriteLine("| motors | yaml files | floor ms (median) | check ms (median) | check/floor | check/floor (median of rounds) | check files/s | floor files/s | peak WS MB (process) | peak GC heap MB (check) | peak heap after a GC MB (check) | findings |");
+Console.WriteLine("|-------:|-----------:|------------------:|------------------:|------------:|------------:|--------------:|--------------:|---------------------:|------------------------:|------------------------:|---------:|");
 foreach (var r in rows)
 {
-    Console.WriteLine($"| {r.N,6} | {r.Files,10} | {r.Floor,17:F1} | {r.Check,17:F1} | {r.Check / r.Floor,11:F1}x | {r.Files / (r.Check / 1000),13:F0} | {r.Files / (r.Floor / 1000),13:F0} | {r.PeakWs / 1048576.0,20:F0} | {r.HeapPeak / 1048576.0,23:F0} | {r.Findings,8} |");
+    Console.WriteLine($"| {r.N,6} | {r.Files,10} | {r.Floor,17:F1} | {r.Check,17:F1} | {r.Check / r.Floor,11:F2}x | {r.RoundRatio,11:F2}x | {r.Files / (r.Check / 1000),13:F0} | {r.Files / (r.Floor / 1000),13:F0} | {r.PeakWs / 1048576.0,20:F0} | {r.HeapPeak / 1048576.0,23:F0} | {r.LivePeak / 1048576.0,23:F0} | {r.Findings,8} |");
 }
 var k1 = rows.FirstOrDefault(r => r.N == 1000);
 var k10 = rows.FirstOrDefault(r => r.N == 10000);
@@ -176,7 +188,14 @@ static int RunOnce(string exe, string[] a, string cwd)
     return p.ExitCode;
 }
 
-sealed record Row(int N, int Files, int Checked, int Findings, int Notes, int Exit, double Floor, double Check, long PeakWs, long HeapPeak, List<double> Floors, List<double> Checks);
+sealed record Row(int N, int Files, int Checked, int Findings, int Notes, int Exit, double Floor, double Check, long PeakWs, long HeapPeak, List<double> Floors, List<double> Checks)
+{
+    /// <summary>The largest heap left after any collection during the check: what it holds, without the garbage not yet collected.</summary>
+    public long LivePeak { get; init; }
+
+    /// <summary>The median of each round's check/floor: floor and check of a round share the machine's state, so it moves less on a busy VM.</summary>
+    public double RoundRatio { get; init; }
+}
 
 /// <summary>Samples the GC heap every 5 ms while a check runs, to catch its peak.</summary>
 sealed class HeapSampler : IDisposable
@@ -184,6 +203,8 @@ sealed class HeapSampler : IDisposable
     private readonly CancellationTokenSource _cts = new();
     private readonly Thread _thread;
     private long _peak;
+    private long _livePeak;
+    private readonly long _startIndex = GC.GetGCMemoryInfo(GCKind.Any).Index;
 
     public HeapSampler()
     {
@@ -193,6 +214,8 @@ sealed class HeapSampler : IDisposable
             {
                 var v = GC.GetTotalMemory(false);
                 if (v > Interlocked.Read(ref _peak)) Interlocked.Exchange(ref _peak, v);
+                var info = GC.GetGCMemoryInfo(GCKind.Any);
+                if (info.Index > _startIndex && info.HeapSizeBytes - info.FragmentedBytes > _livePeak) _livePeak = info.HeapSizeBytes - info.FragmentedBytes;
                 Thread.Sleep(5);
             }
         }) { IsBackground = true, Priority = ThreadPriority.AboveNormal };
@@ -200,6 +223,8 @@ sealed class HeapSampler : IDisposable
     }
 
     public long Peak => Math.Max(Interlocked.Read(ref _peak), GC.GetTotalMemory(false));
+
+    public long LivePeak => _livePeak;
 
     public void Dispose()
     {

@@ -1,3 +1,4 @@
+using System.IO.Enumeration;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 
@@ -23,12 +24,21 @@ public static class FileDiscovery
         name.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) || name.EndsWith(".yml", StringComparison.OrdinalIgnoreCase);
 
     /// <summary>Finds the files under the paths, sorted by relative path (ordinal), without duplicates.</summary>
+    /// <param name="root">The repository root (absolute).</param>
+    /// <param name="paths">Files and folders to look in.</param>
+    /// <param name="included">Whether a relative path is checked; it may be asked from several threads at once.</param>
     public static DiscoveryResult Find(string root, IEnumerable<string> paths, Func<string, bool>? included = null)
     {
-        var files = new SortedDictionary<string, DiscoveredFile>(StringComparer.Ordinal);
+        var files = new Dictionary<string, DiscoveredFile>(StringComparer.Ordinal);
         var findings = new List<Finding>();
         var missing = new List<string>();
         var outside = new List<string>();
+        var listed = new List<string>();
+        void Add((DiscoveredFile? File, IReadOnlyList<Finding> Findings) considered)
+        {
+            if (considered.File is { } f) files.TryAdd(f.RelativePath, f);
+            findings.AddRange(considered.Findings);
+        }
         foreach (var p in paths)
         {
             var full = Path.GetFullPath(p);
@@ -37,7 +47,7 @@ public static class FileDiscovery
                 outside.Add(p);
                 continue;
             }
-            if (File.Exists(full)) Consider(root, full, files, findings, included, explicitFile: true);
+            if (File.Exists(full)) Add(Consider(root, full, included, explicitFile: true));
             else if (Directory.Exists(full) && !RepositoryRoot.IsInside(root, full))
             {
                 var b = new FindingBuilder(RepositoryRoot.Relative(root, full));
@@ -46,55 +56,69 @@ public static class FileDiscovery
                     ("target", "a path outside the repository"));
                 findings.AddRange(b.Findings);
             }
-            else if (Directory.Exists(full)) Walk(root, full, files, findings, included);
+            else if (Directory.Exists(full)) Walk(root, full, listed);
             else missing.Add(p);
         }
-        return new DiscoveryResult([.. files.Values], findings.OrderBy(f => f, Finding.Order).ToList(), missing) { Outside = outside };
+        // Whether a listed file is a link takes a call to the file system for each: thousands of them go faster in parallel.
+        var considered = new (DiscoveredFile?, IReadOnlyList<Finding>)[listed.Count];
+        if (listed.Count >= ParallelFrom) Parallel.For(0, listed.Count, i => considered[i] = Consider(root, listed[i], included, explicitFile: false));
+        else for (var i = 0; i < listed.Count; i++) considered[i] = Consider(root, listed[i], included, explicitFile: false);
+        foreach (var c in considered) Add(c);
+        return new DiscoveryResult([.. files.Values.OrderBy(f => f.RelativePath, StringComparer.Ordinal)], findings.OrderBy(f => f, Finding.Order).ToList(), missing) { Outside = outside };
     }
 
-    private static void Walk(string root, string dir, SortedDictionary<string, DiscoveredFile> files, List<Finding> findings, Func<string, bool>? included)
+    private const int ParallelFrom = 256;
+
+    /// <summary>Lists the YAML files under a folder, skipping hidden and build folders and links out of the root or to an ancestor.</summary>
+    private static void Walk(string root, string dir, List<string> listed)
     {
+        // Hidden files are listed too (only folders starting with a dot are skipped, by name).
+        var options = new EnumerationOptions { AttributesToSkip = 0, IgnoreInaccessible = true, RecurseSubdirectories = false };
         var pending = new Stack<string>();
         pending.Push(dir);
         while (pending.Count > 0)
         {
             var current = pending.Pop();
-            IEnumerable<FileSystemInfo> entries;
+            List<(string FullPath, string Name, bool IsDirectory)> entries;
             try
             {
-                entries = new DirectoryInfo(current).EnumerateFileSystemInfos();
+                entries = [.. new FileSystemEnumerable<(string, string, bool)>(current, static (ref FileSystemEntry e) =>
+                    (e.ToFullPath(), e.FileName.ToString(), e.IsDirectory), options)];
             }
             catch (Exception ex) when (ex is UnauthorizedAccessException or IOException)
             {
                 continue;
             }
-            foreach (var entry in entries)
+            foreach (var (path, name, isDirectory) in entries)
             {
-                if (entry is DirectoryInfo d)
+                if (isDirectory)
                 {
-                    if (d.Name.StartsWith('.') || d.Name is "bin" or "obj" or "node_modules") continue;
+                    // A link to a folder lists as a folder; only folders have their attributes read here.
+                    if (name.StartsWith('.') || name is "bin" or "obj" or "node_modules") continue;
+                    var d = new DirectoryInfo(path);
                     if (d.Attributes.HasFlag(FileAttributes.ReparsePoint) && d.LinkTarget is not null)
                     {
                         var target = d.ResolveLinkTarget(returnFinalTarget: true)?.FullName;
                         if (target is null || !RepositoryRoot.Contains(root, target)) continue; // a link out of the root is never followed
                         if (RepositoryRoot.Contains(target, current)) continue; // a link to an ancestor would loop
                     }
-                    pending.Push(d.FullName);
+                    pending.Push(path);
                 }
-                else if (entry is FileInfo f && IsYaml(f.Name))
+                else if (IsYaml(name))
                 {
-                    Consider(root, f.FullName, files, findings, included, explicitFile: false);
+                    listed.Add(path);
                 }
             }
         }
     }
 
-    private static void Consider(string root, string full, SortedDictionary<string, DiscoveredFile> files, List<Finding> findings, Func<string, bool>? included, bool explicitFile)
+    /// <summary>A file to check, or the finding of a link that is not followed, or nothing (not YAML, not included).</summary>
+    private static (DiscoveredFile? File, IReadOnlyList<Finding> Findings) Consider(string root, string full, Func<string, bool>? included, bool explicitFile)
     {
-        if (!explicitFile && !IsYaml(full)) return;
+        if (!explicitFile && !IsYaml(full)) return (null, []);
         var rel = RepositoryRoot.Relative(root, full);
-        if (!RepositoryRoot.Contains(root, full)) return;
-        if (included is not null && !included(rel)) return;
+        if (!RepositoryRoot.Contains(root, full)) return (null, []);
+        if (included is not null && !included(rel)) return (null, []);
         var info = new FileInfo(full);
         if (info.Attributes.HasFlag(FileAttributes.ReparsePoint) && info.LinkTarget is not null)
         {
@@ -115,8 +139,7 @@ public static class FileDiscovery
                         "This file is a symbolic link to {target}, which does not exist; it is not followed.",
                         ("target", RepositoryRoot.Relative(root, target!)));
                 }
-                findings.AddRange(b.Findings);
-                return;
+                return (null, b.Findings);
             }
         }
         // A walked folder never leaves the root (links out are not followed); a named file may, through a linked folder.
@@ -127,9 +150,8 @@ public static class FileDiscovery
             b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
                 "This file lies in a folder that is a symbolic link to {target}, outside the repository root; it is not read.",
                 ("target", "a path outside the repository"));
-            findings.AddRange(b.Findings);
-            return;
+            return (null, b.Findings);
         }
-        files.TryAdd(rel, new DiscoveredFile(full, rel));
+        return (new DiscoveredFile(full, rel), []);
     }
 }

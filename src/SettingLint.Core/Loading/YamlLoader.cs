@@ -26,10 +26,22 @@ public static class YamlLoader
     /// <summary>Loads a file from disk; the size limit is checked before anything is read.</summary>
     public static LoadedFile LoadFile(string path, string relativePath, LoadLimits limits)
     {
-        var length = new FileInfo(path).Length;
-        return length > limits.MaxFileBytes
-            ? TooLarge(path, relativePath, length, limits)
-            : Load(File.ReadAllBytes(path), path, relativePath, limits);
+        // One open: the size comes from the open file, so that no second call to the file system asks for it by name.
+        using var handle = File.OpenHandle(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+        var length = RandomAccess.GetLength(handle);
+        if (length > limits.MaxFileBytes) return TooLarge(path, relativePath, length, limits);
+        // A size of zero may be a special file that has no size: read it to its end, and let Load check the limit.
+        if (length == 0) return Load(File.ReadAllBytes(path), path, relativePath, limits);
+        var bytes = new byte[length];
+        var read = 0;
+        while (read < bytes.Length)
+        {
+            var n = RandomAccess.Read(handle, bytes.AsSpan(read), read);
+            if (n == 0) break;
+            read += n;
+        }
+        // A file that shrank while it was read is taken as it was read.
+        return Load(read == bytes.Length ? bytes : bytes[..read], path, relativePath, limits);
     }
 
     /// <summary>Loads a file's bytes.</summary>
