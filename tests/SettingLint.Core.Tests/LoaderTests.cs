@@ -177,6 +177,21 @@ public sealed class LoaderTests
     [InlineData("a: caf\u00e9 \u2013 \U0001F600\n")]
     public void Printable_characters_are_fine(string text) => Assert.Empty(Load(text).Findings);
 
+    // YAML 1.2.2 spec 5.1, c-printable: in the 8-bit range x09, x0A, x0D, x20-x7E and xA0-xFF (x85 is a YAML 1.1
+    // line break, refused as above). Each character stands in a double-quoted value, where the parser takes any of them.
+    [Fact]
+    public void Every_character_of_the_8_bit_range_is_refused_exactly_when_YAML_does_not_allow_it()
+    {
+        for (var c = (char)0; c <= '\u00FF'; c++)
+        {
+            var printable = c is '\t' or '\n' or '\r' or (>= ' ' and <= '~') or (>= '\u00A0' and <= '\u00FF');
+            // The value is quoted and its quote and backslash escaped, so that only the character itself is in question.
+            var text = "a: \"x" + (c is '"' or '\\' ? "\\" + c : c.ToString()) + "y\"\n";
+            var refused = Load(text).Findings.Any(f => f.RuleId == EngineRules.Syntax && f.Message.Contains("U+" + ((int)c).ToString("X4", System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal));
+            Assert.True(printable != refused, $"U+{(int)c:X4}: printable {printable}, refused {refused}");
+        }
+    }
+
     // YAML 1.2.2 spec 5.4: only LF and CR break lines; YamlDotNet also breaks at NEL, LS and PS (the YAML 1.1 set).
     [Theory]
     [InlineData("title: x\u0085y\n", "0085")]

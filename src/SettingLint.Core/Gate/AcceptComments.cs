@@ -36,6 +36,10 @@ public static partial class AcceptComments
     /// <summary>The word that starts an acceptance comment, after '#'.</summary>
     public const string Marker = "settinglint-accept";
 
+    // Every file is searched for the marker, in any case: a vectorised search, set up once, does it in a fraction of the time.
+    private static readonly System.Buffers.SearchValues<string> MarkerSearch =
+        System.Buffers.SearchValues.Create([Marker], StringComparison.OrdinalIgnoreCase);
+
     /// <summary>The acceptance comments of a file, in line order; empty (and cheap) when no line holds the marker.</summary>
     public static ImmutableArray<AcceptComment> Find(LoadedFile file) => Find(file.Lines, file.Root);
 
@@ -44,7 +48,7 @@ public static partial class AcceptComments
     {
         // Most files hold no acceptance: a search of the whole text tells, without splitting it into lines.
         var marked = lines is LazyLines lazy
-            ? lazy.Contains(Marker, StringComparison.OrdinalIgnoreCase)
+            ? lazy.Contains(MarkerSearch)
             : lines.Any(l => l.Contains(Marker, StringComparison.OrdinalIgnoreCase));
         if (!marked) return [];
         var scalars = new List<SourceSpan>();

@@ -25,6 +25,9 @@ public sealed class LazyLines(string text) : IReadOnlyList<string>
     /// <summary>Whether the text holds a string, found without splitting it into lines.</summary>
     public bool Contains(string value, StringComparison comparison) => text.Contains(value, comparison);
 
+    /// <summary>Whether the text holds any of these strings, found without splitting it into lines.</summary>
+    public bool Contains(System.Buffers.SearchValues<string> values) => text.AsSpan().ContainsAny(values);
+
     public string this[int index] => Lines[index];
 
     public IEnumerator<string> GetEnumerator() => ((IEnumerable<string>)Lines).GetEnumerator();

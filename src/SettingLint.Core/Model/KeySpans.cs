@@ -23,10 +23,27 @@ internal sealed class KeySpans
     // Scalars that did not bind (a wrong type, an empty value): a bound one gives its value's span itself.
     private readonly Entry[] _unboundScalars;
 
-    private KeySpans(Entry[] keys, Entry[] unboundScalars)
+    // Both arrays are sorted by path when first searched: most documents never are, since a bound value has its own span.
+    private volatile bool _sorted;
+
+    private KeySpans(Entry[] keys, Entry[] unboundScalars, bool sorted)
     {
         _keys = keys;
         _unboundScalars = unboundScalars;
+        _sorted = sorted || (keys.Length <= 1 && unboundScalars.Length <= 1);
+    }
+
+    // The lock is the keys array, which is this object's own (an empty one is never locked: it is sorted from the start).
+    private void EnsureSorted()
+    {
+        if (_sorted) return;
+        lock (_keys)
+        {
+            if (_sorted) return;
+            Array.Sort(_keys, ByPath);
+            Array.Sort(_unboundScalars, ByPath);
+            _sorted = true;
+        }
     }
 
     /// <summary>Reads the key spans of a tree; a path that is bound takes the bound value's path string, any other the shared one.</summary>
@@ -38,11 +55,7 @@ internal sealed class KeySpans
         try
         {
             Walk(root, null, values, keys, scalars);
-            var k = keys.ToArray();
-            var s = scalars.ToArray();
-            Array.Sort(k, ByPath);
-            Array.Sort(s, ByPath);
-            return new KeySpans(k, s);
+            return new KeySpans(keys.ToArray(), scalars.ToArray(), sorted: false);
         }
         finally
         {
@@ -84,10 +97,17 @@ internal sealed class KeySpans
                 if (dot == 0) break;
             }
         }
-        // Both arrays are sorted already, and a subset of a sorted array in its order is sorted.
-        return new KeySpans(
+        // A subset of an array in its order is sorted when the array is; read under the lock, in case it is being sorted.
+        if (_sorted) return Filter();
+        lock (_keys)
+        {
+            return Filter();
+        }
+
+        KeySpans Filter() => new(
             [.. _keys.Where(e => onTheWay.Contains(e.Path))],
-            [.. _unboundScalars.Where(e => paths.Contains(e.Path))]);
+            [.. _unboundScalars.Where(e => paths.Contains(e.Path))],
+            _sorted);
     }
 
     /// <summary>
@@ -96,6 +116,7 @@ internal sealed class KeySpans
     /// </summary>
     public SourceSpan SpanOf(string path)
     {
+        EnsureSorted();
         if (Find(_unboundScalars, path) is { } scalar) return scalar;
         if (Find(_keys, path) is { } key) return key;
         var prefix = path.AsSpan();

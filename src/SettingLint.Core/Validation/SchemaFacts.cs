@@ -6,8 +6,7 @@ namespace SettingLint.Core.Validation;
 public static class SchemaFacts
 {
     /// <summary>The dimension of a schema node, when it is a quantity of a fixed dimension.</summary>
-    public static Dimension? DimensionOf(SchemaNode schema) =>
-        schema.Dimension is { } t ? Dimensions.Parse(t) : null;
+    public static Dimension? DimensionOf(SchemaNode schema) => schema.ParsedDimension;
 
     /// <summary>The schema of a dotted key path below a schema.</summary>
     public static SchemaNode? ResolvePath(SchemaNode root, string path)

@@ -94,6 +94,9 @@ public sealed class SchemaNode
     /// <summary>The dimension token of a quantity (current, voltage, ..., or "setting"); null for other values.</summary>
     public string? Dimension { get; private init; }
 
+    /// <summary>The dimension the token names, read once with the schema: the binder asks for it at every value.</summary>
+    public Quantities.Dimension? ParsedDimension { get; private init; }
+
     /// <summary>True when the node allows the type (no `type` keyword allows all).</summary>
     public bool Allows(JsonType type) => TypeMask == 0 || Names(type) || (type == JsonType.Integer && Names(JsonType.Number));
 
@@ -202,6 +205,7 @@ public sealed class SchemaNode
             Title = title,
             Description = description,
             Dimension = dimension,
+            ParsedDimension = dimension is null ? null : Quantities.Dimensions.Parse(dimension),
             TypeMask = typeMask,
             FirstType = firstType,
             PropertyList = named,
