@@ -47,6 +47,8 @@ foreach (var n in sizes)
     var loader = new List<double>();
     var open = new List<double>();
     var cpu = new List<double>();
+    var floorCpu = new List<double>();
+    var checkCpu = new List<double>();
     long heapPeak = 0, livePeak = 0;
     var floorAlloc = new List<double>();
     var checkAlloc = new List<double>();
@@ -56,8 +58,10 @@ foreach (var n in sizes)
     {
         GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
         var a0 = GC.GetTotalAllocatedBytes(true);
+        var f0 = Process.GetCurrentProcess().TotalProcessorTime;
         var sw = Stopwatch.StartNew();
         ParseFloor(dir);
+        floorCpu.Add((Process.GetCurrentProcess().TotalProcessorTime - f0).TotalMilliseconds);
         floor.Add(sw.Elapsed.TotalMilliseconds);
         floorAlloc.Add(GC.GetTotalAllocatedBytes(true) - a0);
 
@@ -77,7 +81,8 @@ foreach (var n in sizes)
             var result = session.Check([dir], null);
             check.Add(sw.Elapsed.TotalMilliseconds);
             checkAlloc.Add(GC.GetTotalAllocatedBytes(true) - c0);
-            cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalMilliseconds / sw.Elapsed.TotalMilliseconds);
+            checkCpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalMilliseconds);
+            cpu.Add(checkCpu[^1] / sw.Elapsed.TotalMilliseconds);
             findings = result.Findings.Length;
             checkedFiles = result.FilesChecked;
             exit = result.ExitCode;
@@ -94,7 +99,7 @@ foreach (var n in sizes)
     };
     rows.Add(row);
     Console.WriteLine($"N={n,6}: files={files} checked={checkedFiles} findings={findings} notifications={notes} exit={exit}  floor=[{string.Join(", ", floor.Select(x => x.ToString("F0")))}] ms  check=[{string.Join(", ", check.Select(x => x.ToString("F0")))}] ms");
-    Console.WriteLine($"           per round check/floor=[{string.Join(", ", check.Zip(floor, (c, f) => (c / f).ToString("F2")))}]  allocated per file: floor {Median(floorAlloc) / files / 1024:F1} KB, check {Median(checkAlloc) / files / 1024:F1} KB");
+    Console.WriteLine($"           per round check/floor=[{string.Join(", ", check.Zip(floor, (c, f) => (c / f).ToString("F2")))}]  allocated per file: floor {Median(floorAlloc) / files / 1024:F1} KB, check {Median(checkAlloc) / files / 1024:F1} KB  CPU ms: floor {Median(floorCpu):F0}, check {Median(checkCpu):F0} ({Median(checkCpu) / Median(floorCpu):F2}x)");
     Console.WriteLine($"           diagnostic: SettingLint YamlLoader.LoadFile only=[{string.Join(", ", loader.Select(x => x.ToString("F0")))}] ms (median {Median(loader):F0})  Session.Open part of check=[{string.Join(", ", open.Select(x => x.ToString("F0")))}] ms  check CPU/wall=[{string.Join(", ", cpu.Select(x => x.ToString("F2")))}] (max {Environment.ProcessorCount})");
     if (!keep) Directory.Delete(dir, true); else Console.WriteLine($"   kept {dir}");
 }

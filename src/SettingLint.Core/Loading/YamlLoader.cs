@@ -95,15 +95,25 @@ public static class YamlLoader
         }
     }
 
-    private static readonly System.Buffers.SearchValues<char> PrintableAscii =
-        System.Buffers.SearchValues.Create("\t\n\r !\"#$%&'()*+,-./0123456789:;<=>?@ABCDEFGHIJKLMNOPQRSTUVWXYZ[\\]^_`abcdefghijklmnopqrstuvwxyz{|}~");
+    // The runtime's own range search (ready at start, unlike a search set made for this), stepping over line breaks and tabs.
+    private static bool PrintableAsciiOnly(string text)
+    {
+        var rest = text.AsSpan();
+        while (true)
+        {
+            var i = rest.IndexOfAnyExceptInRange(' ', '~');
+            if (i < 0) return true;
+            if (rest[i] is not ('\n' or '\r' or '\t')) return false;
+            rest = rest[(i + 1)..];
+        }
+    }
 
     // YAML 1.2.2 spec 5.1 (c-printable): the parser would take a NUL for the end of the stream and drop the rest silently.
     // NEL, LS and PS are printable in 1.2 (5.4) but the parser breaks lines at them as YAML 1.1 did: refused as well.
     private static bool Printable(string text, FindingBuilder findings)
     {
-        // Most files are printable ASCII with line breaks and tabs, which one vectorised search tells.
-        if (!text.AsSpan().ContainsAnyExcept(PrintableAscii)) return true;
+        // Most files are printable ASCII with line breaks and tabs: a vectorised search from one line break to the next tells.
+        if (PrintableAsciiOnly(text)) return true;
         var line = 1;
         var lineStart = 0;
         for (var i = 0; i < text.Length; i++)

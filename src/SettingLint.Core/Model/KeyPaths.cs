@@ -1,5 +1,4 @@
 using System.Collections.Concurrent;
-using System.Runtime.CompilerServices;
 
 namespace SettingLint.Core.Model;
 
@@ -14,8 +13,9 @@ internal static class KeyPaths
 
     private static readonly ConcurrentDictionary<string, string> Pool = new(StringComparer.Ordinal);
 
-    // A shared path and a key below it, to the shared path of both: a path is found without being written out first.
-    private static readonly ConcurrentDictionary<(string Prefix, string Key), string> Joined = new(new JoinComparer());
+    // A shared path (by reference: it is one of the pool's strings), then a key below it, to the shared path of both: a
+    // path is found without being written out first. Dictionaries of strings only, whose code the runtime has ready at start.
+    private static readonly ConcurrentDictionary<string, ConcurrentDictionary<string, string>> Joined = new(ReferenceEqualityComparer.Instance);
 
     private static int _count;
 
@@ -36,20 +36,14 @@ internal static class KeyPaths
     public static string Join(string? prefix, string key)
     {
         if (prefix is null) return Shared(key);
-        if (Joined.TryGetValue((prefix, key), out var joined)) return joined;
+        if (Joined.TryGetValue(prefix, out var below) && below.TryGetValue(key, out var joined)) return joined;
         joined = Shared(prefix + "." + key);
         // Only shared paths are remembered: a prefix that is not one would never be asked for again by reference.
-        if (ReferenceEquals(Shared(prefix), prefix) && Volatile.Read(ref _count) < Capacity) Joined.TryAdd((prefix, key), joined);
+        if (ReferenceEquals(Shared(prefix), prefix) && Volatile.Read(ref _count) < Capacity)
+        {
+            below ??= Joined.GetOrAdd(prefix, static _ => new ConcurrentDictionary<string, string>(StringComparer.Ordinal));
+            below.TryAdd(key, joined);
+        }
         return joined;
-    }
-
-    // The prefix by reference (it is a shared string), the key by its text.
-    private sealed class JoinComparer : IEqualityComparer<(string Prefix, string Key)>
-    {
-        public bool Equals((string Prefix, string Key) x, (string Prefix, string Key) y) =>
-            ReferenceEquals(x.Prefix, y.Prefix) && string.Equals(x.Key, y.Key, StringComparison.Ordinal);
-
-        public int GetHashCode((string Prefix, string Key) obj) =>
-            HashCode.Combine(RuntimeHelpers.GetHashCode(obj.Prefix), StringComparer.Ordinal.GetHashCode(obj.Key));
     }
 }

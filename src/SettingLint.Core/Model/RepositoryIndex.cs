@@ -1,23 +1,25 @@
-using System.Collections.Frozen;
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 
 namespace SettingLint.Core.Model;
 
 /// <summary>The relations between setting files: a motor's bus, the motors on a bus, the users of a relay model.</summary>
 public sealed class RepositoryIndex
 {
-    private readonly FrozenDictionary<string, ImmutableArray<MotorProtection>> _byBus;
-    private readonly FrozenDictionary<string, ImmutableArray<MotorProtection>> _byRelayModel;
+    // Arrays, not immutable arrays, in plain dictionaries: their code is the runtime's own shared code, ready at start,
+    // and a frozen dictionary costs more to make (once per run) than a run's lookups save. Handed out as immutable arrays.
+    private readonly Dictionary<string, MotorProtection[]> _byBus;
+    private readonly Dictionary<string, MotorProtection[]> _byRelayModel;
 
     public RepositoryIndex(IEnumerable<MotorProtection> motors)
     {
         Motors = [.. motors.OrderBy(m => m.Document.RelativePath, StringComparer.Ordinal)];
         _byBus = Motors.Where(m => m.Bus is not null)
             .GroupBy(BusKey, StringComparer.Ordinal)
-            .ToFrozenDictionary(g => g.Key, g => g.ToImmutableArray(), StringComparer.Ordinal);
+            .ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
         _byRelayModel = Motors.Where(m => m.RelayModel is not null)
             .GroupBy(m => m.RelayModel!.Document.RelativePath, StringComparer.Ordinal)
-            .ToFrozenDictionary(g => g.Key, g => g.ToImmutableArray(), StringComparer.Ordinal);
+            .ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
     }
 
     /// <summary>Every motor, by file path.</summary>
@@ -25,7 +27,7 @@ public sealed class RepositoryIndex
 
     /// <summary>The motors fed from the same bus as this one, this one included.</summary>
     public ImmutableArray<MotorProtection> MotorsOnBusOf(MotorProtection motor) =>
-        motor.Bus is null ? [motor] : _byBus.GetValueOrDefault(BusKey(motor), [motor]);
+        motor.Bus is null ? [motor] : _byBus.TryGetValue(BusKey(motor), out var group) ? ImmutableCollectionsMarshal.AsImmutableArray(group) : [motor];
 
     /// <summary>The other motors on this motor's bus.</summary>
     public IEnumerable<MotorProtection> OthersOnBus(MotorProtection motor) =>
@@ -33,11 +35,11 @@ public sealed class RepositoryIndex
 
     /// <summary>The motors fed from a bus file (relative path).</summary>
     public ImmutableArray<MotorProtection> MotorsOnBus(string busRelativePath) =>
-        _byBus.GetValueOrDefault(busRelativePath + "#", []);
+        _byBus.TryGetValue(busRelativePath + "#", out var group) ? ImmutableCollectionsMarshal.AsImmutableArray(group) : [];
 
     /// <summary>The motors that use a relay model file (relative path).</summary>
     public ImmutableArray<MotorProtection> UsersOf(string relayModelRelativePath) =>
-        _byRelayModel.GetValueOrDefault(relayModelRelativePath, []);
+        _byRelayModel.TryGetValue(relayModelRelativePath, out var users) ? ImmutableCollectionsMarshal.AsImmutableArray(users) : [];
 
     // An inline bus is its motor's own: it is keyed by the motor file so it is shared with no other motor.
     private static string BusKey(MotorProtection m) =>

@@ -69,8 +69,6 @@ public static class QuantityParser
     /// <summary>A voltage setting in percent of the motor's rated voltage.</summary>
     public static Unit PercentOfRated { get; } = new("%", Dimension.Voltage, 0.01, UnitBasis.RatedVoltage);
 
-    private static readonly System.Buffers.SearchValues<char> NotDecimal = System.Buffers.SearchValues.Create("xonN");
-
     /// <summary>Reads a number by the YAML 1.2 core-schema float grammar; `1_000`, `0x10` and `.inf` are not numbers here.</summary>
     public static bool TryNumber(string text, out double value)
     {
@@ -78,7 +76,7 @@ public static class QuantityParser
         if (text.Length == 0) return false;
         if (Documents.CoreSchema.Resolve(text) is not (Documents.ScalarType.Int or Documents.ScalarType.Float)) return false;
         // Of the core schema's numbers, only hexadecimal (0x), octal (0o), infinity and NaN have an x, o, n or N in them.
-        if (text.AsSpan().IndexOfAny(NotDecimal) >= 0) return false;
+        if (text.AsSpan().IndexOfAny('x', 'o', 'n') >= 0 || text.Contains('N', StringComparison.Ordinal)) return false;
         return double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out value);
     }
 

@@ -1,4 +1,3 @@
-using System.Collections.Frozen;
 using System.Runtime.CompilerServices;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
@@ -68,24 +67,25 @@ internal enum LeafKind
 }
 
 /// <summary>What names a rule may use besides model paths: its parameters, its lets so far, and whether it runs per relay range.</summary>
-public sealed record Scope(FrozenDictionary<string, (int Index, ExprType Type, bool Percent)> Parameters, IReadOnlyDictionary<string, (int Index, ExprType Type, bool Percent)> Lets, bool HasItem);
+public sealed record Scope(IReadOnlyDictionary<string, (int Index, ExprType Type, bool Percent)> Parameters, IReadOnlyDictionary<string, (int Index, ExprType Type, bool Percent)> Lets, bool HasItem);
 
 /// <summary>Type-checks expressions against the schemas and compiles them into closures; every error carries its offset.</summary>
 public sealed class Compiler
 {
-    // Read with System.Text.Json, so that compiling rules does not wait for the validating schemas.
-    private readonly FrozenDictionary<string, ExprType> _motorPaths = PathTypes(SchemaSet.MotorProtection);
-    private readonly FrozenDictionary<string, ExprType> _busPaths = PathTypes(SchemaSet.Bus);
-    private readonly FrozenSet<string> _percentPaths =
+    // Read with System.Text.Json, so that compiling rules does not wait for the validating schemas. Plain dictionaries:
+    // a frozen one costs more to make than the few hundred lookups of compiling a pack save, at every start.
+    private readonly Dictionary<string, ExprType> _motorPaths = PathTypes(SchemaSet.MotorProtection);
+    private readonly Dictionary<string, ExprType> _busPaths = PathTypes(SchemaSet.Bus);
+    private readonly HashSet<string> _percentPaths =
         SchemaShapes.Leaves(SchemaSet.MotorProtection).Values.Where(l => l.Dimension == "percent").Select(l => l.Path)
             .Concat(SchemaShapes.Leaves(SchemaSet.Bus).Values.Where(l => l.Dimension == "percent").Select(l => "bus." + l.Path))
-            .ToFrozenSet(StringComparer.Ordinal);
+            .ToHashSet(StringComparer.Ordinal);
 
     /// <summary>Every path of the motor schema with its type (for docs and suggestions).</summary>
     public IEnumerable<string> MotorPaths => _motorPaths.Keys;
 
-    private static FrozenDictionary<string, ExprType> PathTypes(string schemaName) =>
-        SchemaShapes.Leaves(schemaName).Values.ToFrozenDictionary(
+    private static Dictionary<string, ExprType> PathTypes(string schemaName) =>
+        SchemaShapes.Leaves(schemaName).Values.ToDictionary(
             l => l.Path,
             l => l.Dimension is { } d ? ExprType.Num(Dim.Of(Quantities.Dimensions.Parse(d) ?? Quantities.Dimension.None))
                 : l.Type == "boolean" ? ExprType.Bool

@@ -171,7 +171,7 @@ public sealed class RuleLoader(SchemaSet schemas)
                 }
             }
             var values = parameters.Select(p => p.Default).ToArray();
-            var paramScope = parameters.ToFrozenDictionary(p => p.Name, p => (p.Index, ExprType.Num(p.Dim), p.Percent), StringComparer.Ordinal);
+            var paramScope = parameters.ToDictionary(p => p.Name, p => (p.Index, ExprType.Num(p.Dim), p.Percent), StringComparer.Ordinal);
             var forEach = r["for_each"] is YScalar;
             var lets = ImmutableArray.CreateBuilder<(string, Compiled)>();
             var letScope = new Dictionary<string, (int, ExprType, bool)>(StringComparer.Ordinal);

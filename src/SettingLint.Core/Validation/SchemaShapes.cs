@@ -1,4 +1,3 @@
-using System.Collections.Frozen;
 
 namespace SettingLint.Core.Validation;
 
@@ -8,13 +7,13 @@ public sealed record LeafShape(string Path, string Type, string? Dimension);
 /// <summary>The leaf keys of an embedded schema with their shapes, which rules are type-checked against.</summary>
 public static class SchemaShapes
 {
-    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, FrozenDictionary<string, LeafShape>> Cache = new(StringComparer.Ordinal);
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, IReadOnlyDictionary<string, LeafShape>> Cache = new(StringComparer.Ordinal);
 
     /// <summary>Every leaf path of an embedded schema (dots between keys), with its shape.</summary>
-    public static FrozenDictionary<string, LeafShape> Leaves(string schemaName) =>
+    public static IReadOnlyDictionary<string, LeafShape> Leaves(string schemaName) =>
         Cache.GetOrAdd(schemaName, static n => SchemaFacts.Leaves(SchemaSet.Shared.Get(n))
             .Select(l => new LeafShape(l.Path, TypeOf(l.Schema), l.Schema.Dimension))
-            .ToFrozenDictionary(l => l.Path, StringComparer.Ordinal));
+            .ToDictionary(l => l.Path, StringComparer.Ordinal));
 
     private static string TypeOf(SchemaNode s) =>
         s.Dimension is not null ? "string"
