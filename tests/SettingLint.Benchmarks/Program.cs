@@ -11,6 +11,7 @@ CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
 
 var sizes = new[] { 100, 1000, 10000 };
 string? cli = null;
+string? hello = null;
 var rounds = 3;
 var keep = false;
 for (var i = 0; i < args.Length; i++)
@@ -19,6 +20,7 @@ for (var i = 0; i < args.Length; i++)
     {
         case "--sizes": sizes = args[++i].Split(',', StringSplitOptions.RemoveEmptyEntries).Select(int.Parse).ToArray(); break;
         case "--cli": cli = args[++i]; break;
+        case "--hello": hello = args[++i]; break;
         case "--rounds": rounds = int.Parse(args[++i]); break;
         case "--keep": keep = true; break;
         default: Console.Error.WriteLine($"unknown argument {args[i]}"); return 2;
@@ -120,7 +122,7 @@ if (k1 is not null && k10 is not null)
 }
 Console.WriteLine("(peak WS is cumulative for the process: each row includes the sizes before it)");
 
-if (cli is not null) StartUp(cli);
+if (cli is not null) StartUp(cli, hello);
 return 0;
 
 static void ParseFloor(string dir)
@@ -154,29 +156,38 @@ static void PrintFindingSummary(SettingLint.Core.Findings.CheckResult result)
     foreach (var n in result.Notifications.Take(3)) Console.WriteLine("  notification: " + n.Message);
 }
 
-static void StartUp(string cli)
+static void StartUp(string cli, string? hello)
 {
     Console.WriteLine();
     var dir = Generator.Write(20);
     var motor = Path.Combine(dir, "motors", "p-00001.yaml");
-    Console.WriteLine($"start-up, one motor file, 10 runs each ({cli}):");
-    Console.WriteLine("| command | median ms | min ms | max ms | exit |");
-    Console.WriteLine("|---|---:|---:|---:|---:|");
-    foreach (var (label, a) in new[] {
-        ("settinglint --version (lower bound, ~hello world)", new[] { "--version" }),
-        ("settinglint check <motor> (text)", new[] { "check", motor }),
-        ("settinglint check <motor> --format sarif", new[] { "check", motor, "--format", "sarif" }) })
+    // Interleaved: each round runs every command once, so that a busy moment of the machine falls on all of them alike.
+    var commands = new List<(string Label, string Exe, string[] Args)>();
+    if (hello is not null) commands.Add(("hello world (" + hello + ")", hello, []));
+    commands.Add(("settinglint --version", cli, ["--version"]));
+    commands.Add(("settinglint check <motor> (text)", cli, ["check", motor]));
+    commands.Add(("settinglint check <motor> --format sarif", cli, ["check", motor, "--format", "sarif"]));
+    const int Runs = 15;
+    Console.WriteLine($"start-up, one motor file, {Runs} interleaved runs each ({cli}):");
+    Console.WriteLine("| command | median ms | min ms | max ms | x hello world | exit |");
+    Console.WriteLine("|---|---:|---:|---:|---:|---:|");
+    var times = commands.Select(_ => new List<double>()).ToArray();
+    var codes = new int[commands.Count];
+    foreach (var c in commands) RunOnce(c.Exe, c.Args, dir); // warm the disk cache
+    for (var i = 0; i < Runs; i++)
     {
-        var times = new List<double>();
-        var code = 0;
-        RunOnce(cli, a, dir); // warm the disk cache
-        for (var i = 0; i < 10; i++)
+        for (var k = 0; k < commands.Count; k++)
         {
             var sw = Stopwatch.StartNew();
-            code = RunOnce(cli, a, dir);
-            times.Add(sw.Elapsed.TotalMilliseconds);
+            codes[k] = RunOnce(commands[k].Exe, commands[k].Args, dir);
+            times[k].Add(sw.Elapsed.TotalMilliseconds);
         }
-        Console.WriteLine($"| {label} | {Median(times):F0} | {times.Min():F0} | {times.Max():F0} | {code} |");
+    }
+    var baseline = hello is null ? (double?)null : Median(times[0]);
+    for (var k = 0; k < commands.Count; k++)
+    {
+        var ratio = baseline is { } b ? (Median(times[k]) / b).ToString("F1") + " x" : "-";
+        Console.WriteLine($"| {commands[k].Label} | {Median(times[k]):F0} | {times[k].Min():F0} | {times[k].Max():F0} | {ratio} | {codes[k]} |");
     }
     Directory.Delete(dir, true);
 }
