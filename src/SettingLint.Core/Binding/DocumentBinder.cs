@@ -240,8 +240,18 @@ public sealed class DocumentBinder
     public static string CtOf(string element, string? groundConnection) =>
         element == GroundFault && groundConnection != "residual" ? "transformers.ground_ct" : "transformers.phase_ct";
 
-    private ConversionReferences References(string path, bool voltage) =>
-        SettingReferences.For(new Values(_values), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
+    // A document's settings refer to at most three sets of references (the VT, the phase CT, the ground CT): each is
+    // looked up once, after every value is bound, and kept for the other settings that use it.
+    private ConversionReferences? _vtRefs, _phaseRefs, _groundRefs;
+
+    private ConversionReferences References(string path, bool voltage)
+    {
+        var connection = (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value;
+        // As CtOf decides, without making the element's name.
+        var ground = !voltage && path.StartsWith("protection." + GroundFault + ".", StringComparison.Ordinal) && connection != "residual";
+        ref var memo = ref voltage ? ref _vtRefs : ref ground ? ref _groundRefs : ref _phaseRefs;
+        return memo ??= SettingReferences.For(new Values(_values), connection, path, voltage);
+    }
 
     private readonly struct Values(Dictionary<string, BoundValue> values) : SettingReferences.INumbers
     {
