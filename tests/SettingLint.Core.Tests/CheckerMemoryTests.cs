@@ -31,13 +31,7 @@ public sealed class CheckerMemoryTests
 
         public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
         {
-            if (Interlocked.Exchange(ref _first, 1) == 0)
-            {
-                GC.Collect();
-                GC.WaitForPendingFinalizers();
-                GC.Collect();
-                AliveAtEvaluation = loaded.Count(w => w.IsAlive);
-            }
+            if (Interlocked.Exchange(ref _first, 1) == 0) AliveAtEvaluation = Heap.Alive(loaded);
             foreach (var path in findingPaths)
             {
                 findings.Add(new Finding(Probe.Id, Level.Warning, motor.Document.RelativePath, motor.Document.SpanOf(path), path, "At {path}.",

@@ -26,53 +26,41 @@ public sealed class StagedEvaluationTests
         return dir;
     }
 
+    private static string Rule(string id, string summary, string severity, string tag, string body) => $"""
+        id: {id}
+        title: Test rule
+        summary: {summary}
+        rationale: Tests only.
+        basis: [common practice]
+        severity: {severity}
+        tags: [{tag}]
+        applies_to: motor-protection
+        {body}
+        """;
+
     // Aggregates in a let, in the guard and in the check, a subject that no expression reads, and a for_each rule beside them.
     private static readonly string[] TestRules =
     [
-        """
-        id: SL951
-        title: Test rule
-        summary: Longest other start against this motor's stall time.
-        rationale: Tests only.
-        basis: [common practice]
-        severity: warning
-        tags: [27]
-        applies_to: motor-protection
-        let:
-          longest_other: others_max(motor.acceleration_time)
-          count: others_count()
-        when: count > 0
-        check: motor.safe_stall_time_hot >= 2 * longest_other
-        subject: motor.safe_stall_time_cold
-        message: "{longest_other} of {count} others"
-        """,
-        """
-        id: SL952
-        title: Test rule
-        summary: Shortest other full-load current in the check itself.
-        rationale: Tests only.
-        basis: [common practice]
-        severity: note
-        tags: [27]
-        applies_to: motor-protection
-        check: motor.full_load_current <= 1.5 * others_min(motor.full_load_current)
-        subject: motor.full_load_current
-        message: "{actual} against {limit}"
-        """,
-        """
-        id: SL953
-        title: Test rule
-        summary: A relay range rule, which runs in the first step.
-        rationale: Tests only.
-        basis: [common practice]
-        severity: warning
-        tags: [50]
-        applies_to: motor-protection
-        for_each: relay_model.ranges
-        check: item.value >= item.min
-        subject: protection.{item.setting}
-        message: "{actual} below {limit}"
-        """,
+        Rule("SL951", "Longest other start against this motor's stall time.", "warning", "27", """
+            let:
+              longest_other: others_max(motor.acceleration_time)
+              count: others_count()
+            when: count > 0
+            check: motor.safe_stall_time_hot >= 2 * longest_other
+            subject: motor.safe_stall_time_cold
+            message: "{longest_other} of {count} others"
+            """),
+        Rule("SL952", "Shortest other full-load current in the check itself.", "note", "27", """
+            check: motor.full_load_current <= 1.5 * others_min(motor.full_load_current)
+            subject: motor.full_load_current
+            message: "{actual} against {limit}"
+            """),
+        Rule("SL953", "A relay range rule, which runs in the first step.", "warning", "50", """
+            for_each: relay_model.ranges
+            check: item.value >= item.min
+            subject: protection.{item.setting}
+            message: "{actual} below {limit}"
+            """),
     ];
 
     private static ImmutableArray<CompiledRule> Rules()
@@ -185,21 +173,13 @@ public sealed class StagedEvaluationTests
     [Fact]
     public void A_rule_over_the_bus_that_reads_relay_ranges_keeps_whole_documents()
     {
-        var rules = new RuleLoader(SchemaSet.Shared).Load([new RuleSource("test/r/rule.yaml", Encoding.UTF8.GetBytes("""
-            id: SL954
-            title: Test rule
-            summary: Ranges and other motors together.
-            rationale: Tests only.
-            basis: [common practice]
-            severity: warning
-            tags: [50]
-            applies_to: motor-protection
+        var rules = new RuleLoader(SchemaSet.Shared).Load([new RuleSource("test/r/rule.yaml", Encoding.UTF8.GetBytes(Rule("SL954", "Ranges and other motors together.", "warning", "50", """
             for_each: relay_model.ranges
             when: others_count() >= 0
             check: item.value <= item.max
             subject: protection.{item.setting}
             message: "{actual}"
-            """))]);
+            """)))]);
         Assert.Empty(rules.Problems);
         Assert.Null(new RuleSet(rules.Rules).LaterPaths);
     }
@@ -225,13 +205,7 @@ public sealed class StagedEvaluationTests
 
         public void EvaluateAcrossBus(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
         {
-            if (Interlocked.Exchange(ref _first, 1) == 0)
-            {
-                GC.Collect();
-                GC.WaitForPendingFinalizers();
-                GC.Collect();
-                AliveAtSecondStep = whole.Count(w => w.IsAlive);
-            }
+            if (Interlocked.Exchange(ref _first, 1) == 0) AliveAtSecondStep = Heap.Alive(whole);
             KeptValues.Add(motor.Document.Values.Count);
             inner.EvaluateAcrossBus(motor, index, findings, notify);
         }
