@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 using System.Text;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
@@ -179,36 +180,52 @@ public static class YamlLoader
     /// <summary>Builds the tree from parser events with an explicit stack, enforcing every limit as it goes.</summary>
     private sealed class TreeBuilder(FindingBuilder findings, LoadLimits limits)
     {
-        private sealed class Frame
+        // The entries and items of every open collection, each collection's on top of its parent's: a collection takes
+        // its own off the top when it ends (its children have ended before it), into an array of its exact size.
+        private readonly List<YEntry> _openEntries = new(64);
+        private readonly List<YNode> _openItems = new(16);
+
+        private sealed class Frame(List<YEntry> entries, List<YNode> items)
         {
             public required bool IsMapping;
             public required Mark Start;
             public bool Flow;
             public string? Anchor;
-            // Made when first needed: a frame is a mapping or a list, and most mappings are small enough that a scan
-            // of their keys finds a duplicate sooner than a dictionary would be built.
+            // Most mappings are small enough that a scan of their keys finds a duplicate sooner than a dictionary
+            // would be built: the dictionary is made only past this many keys.
             private const int ScanLimit = 16;
-            private ImmutableArray<YEntry>.Builder? _entries;
-            private ImmutableArray<YNode>.Builder? _items;
+            private readonly int _entriesStart = entries.Count;
+            private readonly int _itemsStart = items.Count;
             private Dictionary<string, YScalar>? _keys;
             public YScalar? PendingKey;
 
-            public void AddItem(YNode node) => (_items ??= ImmutableArray.CreateBuilder<YNode>()).Add(node);
+            private int EntryCount => entries.Count - _entriesStart;
 
-            public void AddEntry(YEntry entry) => (_entries ??= ImmutableArray.CreateBuilder<YEntry>()).Add(entry);
+            public void AddItem(YNode node) => items.Add(node);
 
-            public ImmutableArray<YEntry> TakeEntries() => _entries?.DrainToImmutable() ?? [];
+            public void AddEntry(YEntry entry) => entries.Add(entry);
 
-            public ImmutableArray<YNode> TakeItems() => _items?.DrainToImmutable() ?? [];
+            public ImmutableArray<YEntry> TakeEntries() => Take(entries, _entriesStart);
+
+            public ImmutableArray<YNode> TakeItems() => Take(items, _itemsStart);
+
+            private static ImmutableArray<T> Take<T>(List<T> open, int start)
+            {
+                var n = open.Count - start;
+                if (n == 0) return [];
+                var own = new T[n];
+                open.CopyTo(start, own, 0, n);
+                open.RemoveRange(start, n);
+                return ImmutableCollectionsMarshal.AsImmutableArray(own);
+            }
 
             /// <summary>The first key of this mapping with the same text, when there is one.</summary>
             public YScalar? FindKey(string key)
             {
                 if (_keys is not null) return _keys.GetValueOrDefault(key);
-                if (_entries is null) return null;
-                foreach (var e in _entries)
+                for (var i = _entriesStart; i < entries.Count; i++)
                 {
-                    if (e.Key.Value == key) return e.Key;
+                    if (entries[i].Key.Value == key) return entries[i].Key;
                 }
                 return null;
             }
@@ -216,10 +233,10 @@ public static class YamlLoader
             /// <summary>Records a key whose value is to come; past the scan limit the keys move into a dictionary.</summary>
             public void AddKey(YScalar key)
             {
-                if (_keys is null && _entries is { Count: >= ScanLimit } entries)
+                if (_keys is null && EntryCount >= ScanLimit)
                 {
-                    _keys = new Dictionary<string, YScalar>(entries.Count * 2, StringComparer.Ordinal);
-                    foreach (var e in entries) _keys[e.Key.Value] = e.Key;
+                    _keys = new Dictionary<string, YScalar>(EntryCount * 2, StringComparer.Ordinal);
+                    for (var i = _entriesStart; i < entries.Count; i++) _keys[entries[i].Key.Value] = entries[i].Key;
                 }
                 _keys?.Add(key.Value, key);
             }
@@ -404,7 +421,7 @@ public static class YamlLoader
                 return false;
             }
             if (anchor is not null) _openAnchors.Add(anchor);
-            _stack.Push(new Frame { IsMapping = mapping, Start = start, Anchor = anchor, Flow = flow });
+            _stack.Push(new Frame(_openEntries, _openItems) { IsMapping = mapping, Start = start, Anchor = anchor, Flow = flow });
             return true;
         }
 
