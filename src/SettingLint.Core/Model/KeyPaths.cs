@@ -19,6 +19,12 @@ internal static class KeyPaths
 
     private static int _count;
 
+    [ThreadStatic]
+    private static string? t_lastPrefix;
+
+    [ThreadStatic]
+    private static ConcurrentDictionary<string, string>? t_lastBelow;
+
     /// <summary>The shared string equal to a path.</summary>
     public static string Shared(string path)
     {
@@ -36,8 +42,14 @@ internal static class KeyPaths
     public static string Join(string? prefix, string key)
     {
         if (prefix is null) return Shared(key);
-        if (Joined.TryGetValue(prefix, out var below) && below.TryGetValue(key, out var joined)) return joined;
-        joined = Shared(prefix + "." + key);
+        // The keys of one mapping come one after another: this thread's last prefix spares the lookup of its keys' table.
+        var below = ReferenceEquals(t_lastPrefix, prefix) ? t_lastBelow : Joined.GetValueOrDefault(prefix);
+        if (below is not null)
+        {
+            (t_lastPrefix, t_lastBelow) = (prefix, below);
+            if (below.TryGetValue(key, out var found)) return found;
+        }
+        var joined = Shared(prefix + "." + key);
         // Only shared paths are remembered: a prefix that is not one would never be asked for again by reference.
         if (ReferenceEquals(Shared(prefix), prefix) && Volatile.Read(ref _count) < Capacity)
         {

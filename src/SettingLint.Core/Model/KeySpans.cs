@@ -73,10 +73,13 @@ internal sealed class KeySpans
         {
             if (e.Key.Value.Contains('.', StringComparison.Ordinal)) continue;
             var path = KeyPaths.Join(prefix, e.Key.Value);
-            var bound = values.TryGetValue(path, out var v) && v.Path == path;
-            if (bound) path = v!.Path;
+            // Only scalars bind: a bound one gives its value's span and its path string (so that both share one).
+            if (e.Value is YScalar)
+            {
+                if (values.TryGetValue(path, out var v) && v.Path == path) path = v.Path;
+                else scalars.Add(new Entry(path, e.Value.Span));
+            }
             keys.Add(new Entry(path, e.Key.Span));
-            if (e.Value is YScalar && !bound) scalars.Add(new Entry(path, e.Value.Span));
             if (e.Value is YMapping child) Walk(child, path, values, keys, scalars);
         }
     }
