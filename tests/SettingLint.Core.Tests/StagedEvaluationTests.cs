@@ -228,6 +228,36 @@ public sealed class StagedEvaluationTests
         Assert.Contains(result.Findings, f => f.RuleId == "SL951");
     }
 
+    /// <summary>The built-in rule set with later paths that leave out the tag.</summary>
+    private sealed class NoTag(RuleSet inner) : IStagedRuleSet
+    {
+        public ImmutableArray<RuleDescriptor> Descriptors => inner.Descriptors;
+
+        public IReadOnlySet<string>? LaterPaths { get; } = inner.LaterPaths!.Where(p => p != "tag").ToHashSet(StringComparer.Ordinal);
+
+        public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify) =>
+            inner.Evaluate(motor, index, findings, notify);
+
+        public void EvaluateOwn(MotorProtection motor, RepositoryIndex run, FindingBuilder findings, Action<Notification> notify) =>
+            inner.EvaluateOwn(motor, run, findings, notify);
+
+        public void EvaluateAcrossBus(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify) =>
+            inner.EvaluateAcrossBus(motor, index, findings, notify);
+    }
+
+    [Fact]
+    public void The_run_keeps_each_motors_tag_whatever_paths_the_rule_set_asks_for()
+    {
+        using var repo = Repository();
+        var rules = new RuleSet(Rules());
+        var staged = new Checker(new NoTag(rules)).Run(new CheckOptions([repo.Root], Parallel: false));
+        var oneStep = new Checker(rules) { OneStep = true }.Run(new CheckOptions([repo.Root], Parallel: false));
+        Assert.Equal(Describe(oneStep), Describe(staged));
+        // motors/x-twice.yaml takes the tag M-5 of motors/m-05.yaml; the motors are named by their tags, not their files.
+        Assert.Contains(staged.Findings, f => f.File == "motors/x-twice.yaml" && f.Message.Contains("already used by motors/m-05.yaml", StringComparison.Ordinal));
+        Assert.Contains("M-5", staged.Motors);
+    }
+
     [Fact]
     public void A_restricted_document_answers_for_its_paths_as_the_whole_one_does()
     {

@@ -139,7 +139,8 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         // A run that reports every file evaluates a motor's own rules as soon as it is bound, and keeps of it only what
         // the rules over its bus read once every motor is bound (a changed-files run needs the whole index to choose).
         var staged = !OneStep && rules is IStagedRuleSet { LaterPaths: { } later } stager && options.Changes is not { EverythingBecause: null }
-            ? (Rules: stager, Keep: later, Run: new RepositoryIndex([]))
+            // The run itself reads the tag of every motor afterwards (duplicate tags, the motors checked).
+            ? (Rules: stager, Keep: later.Contains("tag") ? later : new HashSet<string>(later, StringComparer.Ordinal) { "tag" }, Run: new RepositoryIndex([]))
             : default;
         ForEach(options.Parallel, discovered, lazy =>
         {
