@@ -107,10 +107,29 @@ internal sealed class KeySpans
             return Filter();
         }
 
-        KeySpans Filter() => new(
-            [.. _keys.Where(e => onTheWay.Contains(e.Path))],
-            [.. _unboundScalars.Where(e => paths.Contains(e.Path))],
-            _sorted);
+        // Plain loops into this thread's lists: their code is ready from Of, where a query over these structs is not.
+        KeySpans Filter()
+        {
+            var keys = t_keys ??= new List<Entry>(256);
+            var scalars = t_scalars ??= new List<Entry>(16);
+            try
+            {
+                foreach (var e in _keys)
+                {
+                    if (onTheWay.Contains(e.Path)) keys.Add(e);
+                }
+                foreach (var e in _unboundScalars)
+                {
+                    if (paths.Contains(e.Path)) scalars.Add(e);
+                }
+                return new KeySpans(keys.ToArray(), scalars.ToArray(), _sorted);
+            }
+            finally
+            {
+                keys.Clear();
+                scalars.Clear();
+            }
+        }
     }
 
     /// <summary>
