@@ -223,35 +223,19 @@ public sealed class DocumentBinder
     private bool IsReportedMissing(string path) =>
         _findings.Findings.Any(f => f.RuleId == EngineRules.MissingKey && (f.KeyPath == path || path.StartsWith(f.KeyPath + ".", StringComparison.Ordinal)));
 
-    /// <summary>The element a setting path belongs to (protection.ground_fault.pickup gives ground_fault).</summary>
-    public static string ElementOf(string path)
-    {
-        if (!path.StartsWith("protection.", StringComparison.Ordinal)) return "";
-        var rest = path.AsSpan("protection.".Length);
-        var dot = rest.IndexOf('.');
-        var element = dot < 0 ? rest : rest[..dot];
-        // The element that decides the CT, without a string for it; any other is named by its own text.
-        return element.SequenceEqual(GroundFault) ? GroundFault : element.ToString();
-    }
+    /// <summary>
+    /// Which CT a protection setting (a key path such as protection.ground_fault.pickup) is measured through: the ground
+    /// CT for a ground-fault setting unless it is residually connected, else the phase CT.
+    /// </summary>
+    public static string CtOf(string settingPath, string? groundConnection) =>
+        settingPath.StartsWith("protection.ground_fault.", StringComparison.Ordinal) && groundConnection != "residual"
+            ? SettingReferences.GroundCt : SettingReferences.PhaseCt;
 
-    private const string GroundFault = "ground_fault";
+    // Looked up once the values are bound, once per transformer, for every setting that converts through it.
+    private SettingReferences.ByTransformer _references;
 
-    /// <summary>Which CT an element measures through: the ground CT for ground fault unless residually connected.</summary>
-    public static string CtOf(string element, string? groundConnection) =>
-        element == GroundFault && groundConnection != "residual" ? "transformers.ground_ct" : "transformers.phase_ct";
-
-    // A document's settings refer to at most three sets of references (the VT, the phase CT, the ground CT): each is
-    // looked up once, after every value is bound, and kept for the other settings that use it.
-    private ConversionReferences? _vtRefs, _phaseRefs, _groundRefs;
-
-    private ConversionReferences References(string path, bool voltage)
-    {
-        var connection = (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value;
-        // As CtOf decides, without making the element's name.
-        var ground = !voltage && path.StartsWith("protection." + GroundFault + ".", StringComparison.Ordinal) && connection != "residual";
-        ref var memo = ref voltage ? ref _vtRefs : ref ground ? ref _groundRefs : ref _phaseRefs;
-        return memo ??= SettingReferences.For(new Values(_values), connection, path, voltage);
-    }
+    private ConversionReferences References(string path, bool voltage) =>
+        _references.Get(new Values(_values), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
 
     private readonly struct Values(Dictionary<string, BoundValue> values) : SettingReferences.INumbers
     {
@@ -260,7 +244,7 @@ public sealed class DocumentBinder
 
     private IEnumerable<string> ReferencePaths(string path, UnitBasis basis, bool voltage)
     {
-        var ct = CtOf(ElementOf(path), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var ct = CtOf(path, (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
         return basis switch
         {
             UnitBasis.FullLoadCurrent => ["motor.full_load_current"],
@@ -273,7 +257,7 @@ public sealed class DocumentBinder
 
     private string MissingReference(string path, UnitBasis basis, bool voltage)
     {
-        var ct = CtOf(ElementOf(path), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var ct = CtOf(path, (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
         return basis switch
         {
             UnitBasis.FullLoadCurrent => "xFLC needs motor.full_load_current in amperes",

@@ -174,7 +174,7 @@ public sealed class RuleSet : IStagedRuleSet
         if (motor.RelayModel is null) return;
         var ranges = motor.RelayModel.Ranges;
         var infos = ctx.Run!.Ranges(motor.RelayModel);
-        var refs = new ReferenceMemo();
+        var refs = new SettingReferences.ByTransformer();
         for (var k = 0; k < ranges.Length; k++)
         {
             // Shared by position with the other users of the model, unless this motor's ranges differ from theirs.
@@ -186,46 +186,13 @@ public sealed class RuleSet : IStagedRuleSet
     }
 
     /// <summary>A relay range converted for one motor: xFLC and xCT through its own data.</summary>
-    private static RangeItem Resolve(EvalContext ctx, RelayRange range, RangeInfo info, ref ReferenceMemo memo)
+    private static RangeItem Resolve(EvalContext ctx, RelayRange range, RangeInfo info, ref SettingReferences.ByTransformer memo)
     {
-        var refs = memo.Get(ctx, info);
+        // A motor's ranges share the references of the few transformers their settings are measured through.
+        var connection = ctx.ReadMotor(GroundConnection) is { Kind: ValKind.Text } g ? g.Text : null;
+        var refs = memo.Get(new SettingReferences.DocumentNumbers(ctx.Motor.Document), connection, info.Path.Path, info.Voltage);
         Val Conv(WrittenValue? w, in ConversionReferences r) => w?.Quantity.ToSi(r) is { } v ? Val.Of(v) : Val.Absent;
         return new RangeItem(range.Setting, ctx.ReadMotor(info.Path), Conv(range.Min, refs), Conv(range.Max, refs), Conv(range.Step, refs));
-    }
-
-    /// <summary>
-    /// The conversion references of a motor's ranges: they depend only on the transformer a setting is measured through
-    /// (the VT for voltages, else its element's CT), so a motor's ranges share a few.
-    /// </summary>
-    private struct ReferenceMemo
-    {
-        private bool _hasVoltage;
-        private ConversionReferences _voltage;
-        private string? _ct1;
-        private ConversionReferences _refs1;
-        private string? _ct2;
-        private ConversionReferences _refs2;
-
-        public ConversionReferences Get(EvalContext ctx, RangeInfo info)
-        {
-            var doc = ctx.Motor.Document;
-            if (info.Voltage)
-            {
-                if (!_hasVoltage)
-                {
-                    _voltage = SettingReferences.For(doc, info.Path.Path, true);
-                    _hasVoltage = true;
-                }
-                return _voltage;
-            }
-            var ct = DocumentBinder.CtOf(info.Element, ctx.ReadMotor(GroundConnection) is { Kind: ValKind.Text } g ? g.Text : null);
-            if (_ct1 == ct) return _refs1;
-            if (_ct2 == ct) return _refs2;
-            var refs = SettingReferences.For(doc, info.Path.Path, false);
-            if (_ct1 is null) (_ct1, _refs1) = (ct, refs);
-            else if (_ct2 is null) (_ct2, _refs2) = (ct, refs);
-            return refs;
-        }
     }
 
     /// <param name="lets">The lets to evaluate before the guard (the others are still valid, or are evaluated for a finding).</param>

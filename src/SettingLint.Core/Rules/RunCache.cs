@@ -106,9 +106,6 @@ internal sealed class RangeInfo(RelayRange range)
     /// <summary>The range is of a voltage setting (its references are the VT's).</summary>
     public bool Voltage { get; } = range.Min.Quantity.Unit.Dimension == Quantities.Dimension.Voltage;
 
-    /// <summary>The protection element, which decides the CT the setting is measured through.</summary>
-    public string Element { get; } = Binding.DocumentBinder.ElementOf("protection." + range.Setting);
-
     /// <summary>This was worked out from a range like this one: everything above follows from its setting and dimension.</summary>
     public bool Fits(RelayRange range) =>
         string.Equals(range.Setting, Setting, StringComparison.Ordinal) && (range.Min.Quantity.Unit.Dimension == Quantities.Dimension.Voltage) == Voltage;
