@@ -29,8 +29,9 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     internal bool OneStep { get; init; }
 
     /// <summary>
-    /// What a run keeps of one file once its own values are bound: its findings, bound values and acceptance comments.
-    /// Its YAML tree and text are not kept, so that a run's memory grows with the number of files only by these.
+    /// What a run keeps of one file once its own values are bound: its findings, bound values (of a motor in a full run,
+    /// only those its later rules read) and acceptance comments. Its YAML tree and text are not kept, so that a run's
+    /// memory grows with the number of files only by these.
     /// </summary>
     private sealed class FileState(string path, string relativePath, bool reported, bool isChecked, IReadOnlyList<Finding> loadFindings)
     {
@@ -140,7 +141,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         // the rules over its bus read once every motor is bound (a changed-files run needs the whole index to choose).
         var staged = !OneStep && rules is IStagedRuleSet { LaterPaths: { } later } stager && options.Changes is not { EverythingBecause: null }
             // The run itself reads the tag of every motor afterwards (duplicate tags, the motors checked).
-            ? (Rules: stager, Keep: later.Contains("tag") ? later : new HashSet<string>(later, StringComparer.Ordinal) { "tag" }, Run: new RepositoryIndex([]))
+            ? (Rules: stager, Keep: new PathSelection(later.Append("tag")), Run: new RepositoryIndex([]))
             : default;
         ForEach(options.Parallel, discovered, lazy =>
         {

@@ -22,9 +22,6 @@ public sealed class LazyLines(string text) : IReadOnlyList<string>
     /// <summary>Whether the lines have been split (for tests: a file that nobody reads a comment of is not).</summary>
     internal bool IsSplit => !_lines.IsDefault;
 
-    /// <summary>Whether the text holds a string, found without splitting it into lines.</summary>
-    public bool Contains(string value, StringComparison comparison) => text.Contains(value, comparison);
-
     /// <summary>Whether the text holds any of these strings, found without splitting it into lines.</summary>
     public bool Contains(System.Buffers.SearchValues<string> values) => text.AsSpan().ContainsAny(values);
 

@@ -88,18 +88,8 @@ internal sealed class KeySpans
     /// The key spans that <see cref="SpanOf"/> reads for these paths: a scalar at one of them, and the keys at each of
     /// them and on the way to each.
     /// </summary>
-    public KeySpans Restrict(IReadOnlySet<string> paths)
+    public KeySpans Restrict(PathSelection kept)
     {
-        var onTheWay = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var p in paths)
-        {
-            onTheWay.Add(p);
-            for (var dot = p.LastIndexOf('.'); dot >= 0; dot = p.LastIndexOf('.', dot - 1))
-            {
-                onTheWay.Add(p[..dot]);
-                if (dot == 0) break;
-            }
-        }
         // A subset of an array in its order is sorted when the array is; read under the lock, in case it is being sorted.
         if (_sorted) return Filter();
         lock (_keys)
@@ -116,11 +106,11 @@ internal sealed class KeySpans
             {
                 foreach (var e in _keys)
                 {
-                    if (onTheWay.Contains(e.Path)) keys.Add(e);
+                    if (kept.OnTheWay.Contains(e.Path)) keys.Add(e);
                 }
                 foreach (var e in _unboundScalars)
                 {
-                    if (paths.Contains(e.Path)) scalars.Add(e);
+                    if (kept.Paths.Contains(e.Path)) scalars.Add(e);
                 }
                 return new KeySpans(keys.ToArray(), scalars.ToArray(), _sorted);
             }
