@@ -9,7 +9,6 @@ using SettingLint.Core.Gate;
 using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
 using SettingLint.Reporting;
-using SettingLint.Reporting.Html;
 
 namespace SettingLint.Cli;
 
@@ -64,84 +63,50 @@ public static class FixCommand
             stderr.WriteLine("settinglint: --rule names a rule that is not loaded: " + string.Join(", ", unknown));
             return ExitCodes.Usage;
         }
-        var data = ReportData.Collect(session, options.Paths);
-        foreach (var n in data.Result.Notifications) stderr.WriteLine(Where(n) + (n.Kind == NotificationKind.Internal ? "internal error: " : "error: ") + n.Message);
-        if (data.Result.Notifications.Any(n => n.Kind == NotificationKind.Configuration)) return ExitCodes.Usage;
-        if (data.Result.Notifications.Any(n => n.Kind == NotificationKind.Internal)) return ExitCodes.Internal;
+        var result = session.Check(options.Paths, null);
+        foreach (var n in result.Notifications) stderr.WriteLine(Where(n) + (n.Kind == NotificationKind.Internal ? "internal error: " : "error: ") + n.Message);
+        if (result.Notifications.Any(n => n.Kind == NotificationKind.Configuration)) return ExitCodes.Usage;
+        if (result.Notifications.Any(n => n.Kind == NotificationKind.Internal)) return ExitCodes.Internal;
 
-        var root = data.Result.RepositoryRoot;
-        var files = new Dictionary<string, FileText?>(StringComparer.Ordinal);
-        string? Read(string relative)
-        {
-            if (!files.TryGetValue(relative, out var f)) files[relative] = f = FileText.Read(Path.Combine(root, relative));
-            return f?.Text;
-        }
-        var motors = data.Motors.ToDictionary(m => m.Document.RelativePath, StringComparer.Ordinal);
-        var plan = FixPlanner.Plan(data.Result.Findings, SettingWindows.Derive(data.Outcomes), motors, Read, options.Rules);
-        var (applied, refused) = Verify(session, options.Paths, root, data.Result.Findings, plan.Where(f => f.HasValue).ToList(), files);
-
+        var root = result.RepositoryRoot;
+        var set = Suggestions.Compute(session.Rules, root, session.Config.Includes, null, result.Findings, options.Rules);
         var changed = 0;
-        foreach (var group in applied.GroupBy(f => f.MotorFile, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal))
+        foreach (var (file, old, text) in set.NewTexts())
         {
-            var file = files[group.Key]!;
-            var newText = FixPlanner.Apply(file.Text, group);
             if (options.DryRun)
             {
-                stdout.Write(UnifiedDiff.Of(group.Key, file.Text, newText));
+                stdout.Write(UnifiedDiff.Of(file, old.Text, text));
                 continue;
             }
-            var full = Path.GetFullPath(Path.Combine(root, group.Key));
+            var full = Path.GetFullPath(Path.Combine(root, file));
             if (!Core.Discovery.RepositoryRoot.Contains(root, full))
             {
-                stderr.WriteLine($"settinglint: {group.Key} lies outside the repository; not written.");
+                stderr.WriteLine($"settinglint: {file} lies outside the repository; not written.");
                 continue;
             }
-            file.WriteAtomically(full, newText);
+            WriteAtomically(full, old.Encode(text));
             changed++;
         }
-        foreach (var f in applied)
+        foreach (var f in set.Applied)
         {
             stdout.WriteLine($"{f.MotorFile}:{f.Span.StartLine}:{f.Span.StartColumn}: {(options.DryRun ? "would set" : "set")} {f.Setting} {f.OldWritten} -> {f.Written}: {f.Shown(f.OldSi)} -> {f.Shown(f.NewSi)} [{string.Join(", ", f.RuleIds)}]");
         }
-        foreach (var (f, why) in refused.Concat(plan.Where(f => !f.HasValue).Select(f => (f, f.Reason!))).OrderBy(x => x.Item1.MotorFile, StringComparer.Ordinal).ThenBy(x => x.Item1.Span.StartLine))
+        foreach (var (f, why) in set.Refused)
         {
             stdout.WriteLine($"{f.MotorFile}:{f.Span.StartLine}:{f.Span.StartColumn}: no fix for {f.Setting} ({f.OldWritten}): {why}");
         }
-        var verb = options.DryRun ? "would change" : "changed";
-        stdout.WriteLine($"settinglint fix: {verb} {Count(applied.Count, "value")} in {Count(options.DryRun ? applied.Select(f => f.MotorFile).Distinct().Count() : changed, "file")}; {Count(refused.Count + plan.Count(f => !f.HasValue), "setting")} without a fix.");
+        var files = set.Applied.Select(f => f.MotorFile).Distinct(StringComparer.Ordinal).Count();
+        stdout.WriteLine($"settinglint fix: {(options.DryRun ? "would change" : "changed")} {Count(set.Applied.Length, "value")} in {Count(options.DryRun ? files : changed, "file")}; {Count(set.Refused.Length, "setting")} without a fix.");
         stdout.WriteLine(CliApp.Caution);
         return ExitCodes.Clean;
     }
 
-    /// <summary>
-    /// Checks the fixed files again, in memory: a fix stays only if no finding is left on its setting and its file gains
-    /// no finding it did not have. A file that gains one loses all its fixes (which one caused it cannot be told).
-    /// </summary>
-    private static (List<SettingFix> Applied, List<(SettingFix Fix, string Why)> Refused) Verify(
-        Session session, IReadOnlyList<string> paths, string root, ImmutableArray<Finding> before, List<SettingFix> fixes, Dictionary<string, FileText?> files)
+    /// <summary>Writes a temporary file beside the target and renames it over, so that an interrupted run leaves the old or the new file.</summary>
+    private static void WriteAtomically(string path, byte[] bytes)
     {
-        var refused = new List<(SettingFix, string)>();
-        var known = before.Select(f => (f.File, f.RuleId, f.KeyPath)).ToHashSet();
-        for (var round = 0; round < 3 && fixes.Count > 0; round++)
-        {
-            var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
-                .ToImmutableDictionary(g => g.Key, g => files[g.Key]!.Encode(FixPlanner.Apply(files[g.Key]!.Text, g)), StringComparer.Ordinal);
-            var overlay = new FileOverlay(contents, []);
-            var after = new Checker(session.Rules).Run(new CheckOptions(paths, Root: root, Include: session.Config.Includes, Overlay: overlay)).Findings;
-            var bad = new List<(SettingFix, string)>();
-            foreach (var fix in fixes)
-            {
-                var left = after.FirstOrDefault(f => f.File == fix.MotorFile && f.KeyPath == fix.Setting && f.Suppression is null);
-                var gained = after.FirstOrDefault(f => f.File == fix.MotorFile && f.Suppression is null && !known.Contains((f.File, f.RuleId, f.KeyPath)));
-                if (left is not null) bad.Add((fix, $"{fix.Written} still gets {left.RuleId}: {left.Message}"));
-                else if (gained is not null) bad.Add((fix, $"the file would gain {gained.RuleId} at {gained.KeyPath}: {gained.Message}"));
-            }
-            if (bad.Count == 0) break;
-            refused.AddRange(bad);
-            var drop = bad.Select(b => b.Item1).ToHashSet();
-            fixes = [.. fixes.Where(f => !drop.Contains(f))];
-        }
-        return (fixes, refused);
+        var temp = Path.Combine(Path.GetDirectoryName(path)!, "." + Path.GetFileName(path) + ".settinglint-fix-" + Environment.ProcessId.ToString(CultureInfo.InvariantCulture));
+        File.WriteAllBytes(temp, bytes);
+        File.Move(temp, path, overwrite: true);
     }
 
     private static string Where(Notification n) =>
@@ -150,39 +115,3 @@ public static class FixCommand
     private static string Count(int n, string noun) => n.ToString(CultureInfo.InvariantCulture) + " " + noun + (n == 1 ? "" : "s");
 }
 
-/// <summary>A file's text with what is needed to write it back byte for byte apart from the edits: its byte order mark.</summary>
-internal sealed class FileText(string text, bool bom)
-{
-    private static readonly UTF8Encoding Utf8 = new(false, true);
-
-    public string Text { get; } = text;
-
-    public static FileText? Read(string path)
-    {
-        if (!File.Exists(path)) return null;
-        var bytes = File.ReadAllBytes(path);
-        var bom = bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF;
-        try
-        {
-            return new FileText(Utf8.GetString(bytes, bom ? 3 : 0, bytes.Length - (bom ? 3 : 0)), bom);
-        }
-        catch (DecoderFallbackException)
-        {
-            return null;
-        }
-    }
-
-    public byte[] Encode(string text)
-    {
-        var body = Utf8.GetBytes(text);
-        return bom ? [0xEF, 0xBB, 0xBF, .. body] : body;
-    }
-
-    /// <summary>Writes a temporary file beside the target and renames it over, so that an interrupted run leaves the old or the new file.</summary>
-    public void WriteAtomically(string path, string text)
-    {
-        var temp = Path.Combine(Path.GetDirectoryName(path)!, "." + Path.GetFileName(path) + ".settinglint-fix-" + Environment.ProcessId.ToString(CultureInfo.InvariantCulture));
-        File.WriteAllBytes(temp, Encode(text));
-        File.Move(temp, path, overwrite: true);
-    }
-}

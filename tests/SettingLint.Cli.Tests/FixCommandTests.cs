@@ -39,6 +39,22 @@ public sealed class FixCommandTests
     }
 
     [Fact]
+    public void Check_shows_the_suggestion_in_text_and_json_and_leaves_the_file_alone()
+    {
+        using var repo = Repo(Samples.Motor);
+        var text = Cli.Run("check", repo.Root);
+        Assert.Contains("error SL201: ", text.Stdout, StringComparison.Ordinal);
+        Assert.Contains("[suggested: 44.6 A sec]", text.Stdout, StringComparison.Ordinal);
+        var json = Cli.CheckJson(repo).Json.GetProperty("findings")[0].GetProperty("suggested");
+        Assert.Equal("44.6 A sec", json.GetProperty("value").GetString());
+        Assert.Equal("669 A pri (44.6 A sec)", json.GetProperty("shown").GetString());
+        // "    pickup: 7.2 A sec" on line 28: the value is columns 13 to 22.
+        Assert.Equal((28, 13, 22), (json.GetProperty("line").GetInt32(), json.GetProperty("column").GetInt32(), json.GetProperty("endColumn").GetInt32()));
+        Assert.DoesNotContain("suggested", Cli.Run("check", repo.Root, "--no-suggest").Stdout, StringComparison.Ordinal);
+        Assert.Equal(Samples.Motor, File.ReadAllText(repo.PathOf("motors/m-1.yaml")));
+    }
+
+    [Fact]
     public void Crlf_flow_mappings_quotes_and_comments_are_kept_byte_for_byte()
     {
         var motor = Samples.MotorWith("  short_circuit:\n    enabled: true\n    pickup: 7.2 A sec\n",

@@ -49,6 +49,17 @@ public sealed record SettingFix(
     /// <summary>The present value as written.</summary>
     public string OldWritten => Unit.Length == 0 ? OldText : OldText + " " + Unit;
 
+    /// <summary>The region of the value as written in a text: its number and unit, without quotes.</summary>
+    public SourceSpan ValueRegion(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        if (ValueText.NumberAt(text, Span) is not { } at) return Span;
+        var start = ValueText.Offset(text, Span.StartLine, 1);
+        var column = at.Start - start + 1;
+        var length = at.Length + (Unit.Length == 0 ? 0 : text.AsSpan(at.Start + at.Length).IndexOf(Unit, StringComparison.Ordinal) + Unit.Length);
+        return new SourceSpan(Span.StartLine, column, Span.StartLine, column + length);
+    }
+
     /// <summary>A value in SI shown in the engine's usual unit, with its secondary when it has a transformer ("1.84 kA pri (46 A sec)").</summary>
     public string Shown(double si)
     {
