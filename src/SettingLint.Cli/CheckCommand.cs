@@ -120,7 +120,13 @@ public static class CheckCommand
         if (!options.Staged && options.Suggest)
         {
             var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty);
-            result = result with { Findings = set.Attach(result.Findings) };
+            // A conflict stands with the findings on its setting: unchanged from the baseline when they all are.
+            var conflicts = set.Conflicts().Select(c =>
+            {
+                var states = result.Findings.Where(f => f.File == c.File && f.KeyPath == c.KeyPath && f.Suppression is null).Select(f => f.BaselineState).ToList();
+                return states.Any(s => s is not null) ? c with { BaselineState = states.Any(s => s is not BaselineState.Unchanged) ? BaselineState.New : BaselineState.Unchanged } : c;
+            });
+            result = result with { Findings = [.. set.Attach(result.Findings).AddRange(conflicts).Order(Finding.Order)] };
         }
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {

@@ -107,6 +107,14 @@ public sealed class FixCommandTests
         Assert.Contains("no fix for protection.acceleration.time (9 s): no value satisfies every rule: SL701 needs above 11 s", run.Stdout, StringComparison.Ordinal);
         Assert.Contains("SL702 needs below 10.5 s", run.Stdout, StringComparison.Ordinal);
         Assert.Equal(motor, File.ReadAllText(repo.PathOf("motors/m-1.yaml")));
+
+        // check reports the conflict once, on the setting, with both bounds as numbers.
+        var json = Cli.CheckJson(repo).Json.GetProperty("findings").EnumerateArray().Single(f => f.GetProperty("ruleId").GetString() == "SL020");
+        Assert.Equal("protection.acceleration.time", json.GetProperty("keyPath").GetString());
+        Assert.Equal(11, json.GetProperty("values").GetProperty("lower").GetProperty("number").GetDouble(), 9);
+        Assert.Equal(10.5, json.GetProperty("values").GetProperty("upper").GetProperty("number").GetDouble(), 9);
+        Assert.Equal("SL701", json.GetProperty("values").GetProperty("lower_rule").GetProperty("text").GetString());
+        Assert.Equal("SL702", json.GetProperty("values").GetProperty("upper_rule").GetProperty("text").GetString());
     }
 
     [Fact]

@@ -16,6 +16,7 @@ public static class EngineRules
     public const string KindOrFormat = "SL009";
     public const string Suppression = "SL010";
     public const string GateChange = "SL011";
+    public const string NoCompliantValue = "SL020";
 
     private static readonly ImmutableArray<string> FileTags = ["file"];
 
@@ -56,6 +57,10 @@ public static class EngineRules
             "With --changed-since, the configuration, rule files, baseline and in-source acceptances are compared with the revision; each change that can let a finding through is reported at its line.",
             "The finding is for the reviewer of the change: confirm that the loosening is intended and justified. It never fails the run by itself, since the change it describes is the one under review; protect the configuration and the baseline with your code-review rules.",
             "the gate's own configuration (built into the engine)", Level.Warning, ["gate"]),
+        Make(NoCompliantValue, "NoCompliantValue", "No value of a setting satisfies every rule on it.",
+            "The rules that bound one setting leave an empty window: the highest lower bound lies above the lowest upper bound (for example an acceleration timer that must exceed 1.1 x a 10 s start and stay below a 10.5 s hot stall time). The finding names the two rules and their bounds.",
+            "No setting clears the findings: the motor data or the protection scheme must change (a speed switch or another stall detection, another CT, another starter), or the data is wrong. Check the data first.",
+            "the rules on the setting (derived from their own comparisons)", Level.Warning, ["fix"]),
     ];
 
     /// <summary>The engine rule of an id; throws for a non-engine id (a programming error).</summary>

@@ -117,7 +117,8 @@ public static class FixMaker
         return string.Join(", ", parts);
     }
 
-    private static string Show(SettingWindow window, double si) =>
+    /// <summary>A bound of a window for people, in the window's dimension.</summary>
+    public static string Show(SettingWindow window, double si) =>
         window.Percent ? Formats.Number(si * 100) + " %" : Formats.Si(si, window.Dim.Plain ?? Dimension.None);
 
     private static bool OnStep(double value, double min, double step)

@@ -5,6 +5,7 @@ using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Gate;
 using SettingLint.Core.Model;
+using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
 
 namespace SettingLint.Core.Fixes;
@@ -25,6 +26,34 @@ public sealed record SuggestionSet(ImmutableArray<SettingFix> Applied, Immutable
         return [.. findings.Select(f => f.Suppression is null && bySetting.TryGetValue((f.File, f.KeyPath), out var fix)
             ? f with { Fix = new FindingFix(fix.ValueRegion(Texts[fix.MotorFile].Text), fix.Written!, fix.Shown(fix.NewSi)) }
             : f)];
+    }
+
+    /// <summary>An SL020 finding for each setting whose rules leave no value, on the setting, naming the rules and their bounds.</summary>
+    public ImmutableArray<Finding> Conflicts()
+    {
+        var found = ImmutableArray.CreateBuilder<Finding>();
+        foreach (var (fix, _) in Refused)
+        {
+            if (!fix.Window.IsEmpty) continue;
+            var lo = fix.Window.TightestLower!;
+            var up = fix.Window.TightestUpper!;
+            var values = ImmutableSortedDictionary.CreateRange(StringComparer.Ordinal, new KeyValuePair<string, FindingValue>[]
+            {
+                new("setting", fix.Setting),
+                new("lower", new FindingValue(FixMaker.Show(fix.Window, lo.Limit), lo.Limit, fix.Window.Percent ? "" : (fix.Window.Dim.Plain ?? Dimension.None).SiSymbol())),
+                new("lower_rule", lo.RuleId),
+                new("lower_phrase", SettingWindows.Phrase(lo.Op)),
+                new("lower_label", lo.Label),
+                new("upper", new FindingValue(FixMaker.Show(fix.Window, up.Limit), up.Limit, fix.Window.Percent ? "" : (fix.Window.Dim.Plain ?? Dimension.None).SiSymbol())),
+                new("upper_rule", up.RuleId),
+                new("upper_phrase", SettingWindows.Phrase(up.Op)),
+                new("upper_label", up.Label),
+            });
+            found.Add(new Finding(EngineRules.NoCompliantValue, Level.Warning, fix.MotorFile, fix.Span, fix.Setting,
+                "No value of {setting} satisfies every rule on it: {lower_rule} needs it {lower_phrase} {lower} ({lower_label}), {upper_rule} {upper_phrase} {upper} ({upper_label}); the motor data or the scheme must change, not the setting.",
+                values));
+        }
+        return found.ToImmutable();
     }
 
     /// <summary>Each fixed file's new text.</summary>
