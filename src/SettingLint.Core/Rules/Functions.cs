@@ -42,6 +42,7 @@ public static class Functions
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
         yield return new("ct_limit", 2, 4, CtLimitType, CtLimit, TakesAbsent: true);
         yield return new("ct_saturation", 5, 7, CtSaturationType, CtSaturationValue, TakesAbsent: true);
+        yield return new("ct_class_complete", 2, 3, CtClassCompleteType, CtClassComplete, TakesAbsent: true);
         yield return new("coverage", 2, 2, t => Expect(t, Dim.None, Dim.Current, Dim.Current), a => Val.Of(GroundFaultCoverage.ProtectedPercent(a[0].Number, a[1].Number) / 100));
         yield return new("asym_factor", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(AsymmetricalCurrent.DecayingRmsFactor(a[0].Number)));
         yield return new("asym_factor_at", 3, 3, t => Expect(t, Dim.None, Dim.None, Dim.Of(Quantities.Dimension.Frequency), Dim.Time),
@@ -220,6 +221,18 @@ public static class Functions
         if (a[4].Number <= 0 || a[2].Number <= 0 || Accuracy(a, 3, 5) is not { } ct) return Val.Absent;
         return Val.Of(ct.CheckSaturation(a[0].Number, a[1].Number / a[2].Number, a[4].Number).Criterion);
     }
+
+    private static ExprType CtClassCompleteType(ExprType[] t)
+    {
+        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a CT class such as C100 or 5P20, not " + t[0]);
+        CtTail(t, 1);
+        return ExprType.Bool;
+    }
+
+    // Absent without a class or a secondary (nothing to judge); false when the class cannot give an accuracy (an IEC
+    // class without its rated burden), so that the CT checks that would skip it are not skipped in silence.
+    private static Val CtClassComplete(ReadOnlySpan<Val> a) =>
+        a[0].IsAbsent || a[1].IsAbsent ? Val.Absent : Val.Of(Accuracy(a, 0, 1) is not null);
 
     private static ExprType ChooseType(ExprType[] t)
     {
