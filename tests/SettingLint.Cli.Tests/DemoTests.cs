@@ -28,6 +28,15 @@ public sealed class DemoTests
     }
 
     [Fact]
+    public void A_setting_outside_the_relay_range_is_said_in_words()
+    {
+        // Reads as a sentence for the engineer, not as the rule's intermediate flags.
+        var finding = Check().Findings.Single(f => f.RuleId == "SL108" && f.File == "examples/motors/p-202.yaml");
+        Assert.Contains("it lies outside the range (200 A pri (5 A sec) to 4 kA pri (100 A sec)", finding.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain("in range:", finding.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Clean_motors_have_no_errors_or_warnings()
     {
         var result = Check();
