@@ -231,6 +231,7 @@ public sealed class Compiler
                 return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x / y) : Val.Absent, b);
             default:
                 if (l.Type != r.Type) throw new RuleSyntaxException($"'{b.Op}' compares {l.Type} with {r.Type}.", b.Offset);
+                if (l.Type.Kind == ValKind.StartProfile) throw new RuleSyntaxException($"'{b.Op}' cannot compare start profiles; compare what a function reads from them.", b.Offset);
                 if (l.Type.Kind != ValKind.Number && b.Op is not ("==" or "!=")) throw new RuleSyntaxException($"'{b.Op}' compares numbers, not {l.Type}.", b.Offset);
                 var op = Comparisons.Of(b.Op);
                 return new(ExprType.Bool, ctx => Compare(op, l.Get(ctx), r.Get(ctx)), b);

@@ -38,7 +38,14 @@ public static class Functions
             a => Val.Of(new ThermalModel(a[1].Number, a[2].Number, a[2].Number).TripTimeFrom(a[0].Number, a[3].Number).Seconds));
         yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true);
         yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
-            a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartProfile(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
+            a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartPoint(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
+        yield return new("start_profile", 6, 6, StartProfileType, StartProfileOf, TakesAbsent: true);
+        yield return new("start_longest", 1, 1, t => ProfileFirst(t, Dim.Time), a => Val.Of(a[0].Profile!.LongestDuration));
+        yield return new("stall_current", 1, 1, t => ProfileFirst(t, Dim.Current), a => Val.Of(a[0].Profile!.StallCurrent));
+        yield return new("stall_time", 2, 2, t => ProfileFirst(t, Dim.Time, Dim.Time), a => Val.Of(a[0].Profile!.StallTime(a[1].Number)));
+        yield return new("start_trip", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Trip.Seconds));
+        yield return new("start_time", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Point.Duration));
+        yield return new("start_current", 4, 4, t => ProfileFirst(t, Dim.Current, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Point.Current));
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
         yield return new("ct_limit", 2, 2, CtLimitType, a => CClassRating.TryParse(a[0].Text, out var r) && r is not null ? Val.Of(r.MaximumSecondaryCurrent(a[1].Number)) : Val.Absent);
         yield return new("ct_saturation", 5, 5, CtSaturationType, CtSaturationValue);
@@ -155,6 +162,46 @@ public static class Functions
         var r = a[0].Number / a[1].Number;
         return Val.Of(r * r);
     }
+
+    private static ExprType StartProfileType(ExprType[] t)
+    {
+        Expect(t.Take(4).ToArray(), Dim.None, Dim.Current, Dim.Time, Dim.Time, Dim.None);
+        if (t[4].Kind != ValKind.Text) throw new ArgumentException("argument 5 must be the starter type (text), not " + t[4]);
+        if (t[5] != ExprType.Num(Dim.Current)) throw new ArgumentException("argument 6 must be the soft starter's current limit, not " + t[5]);
+        return ExprType.StartProfile;
+    }
+
+    /// <summary>
+    /// start_profile(lrc, acceleration_time, acceleration_time_max, starting_voltage_min, starter_type, soft_start_current_limit):
+    /// absent without LRC or acceleration time; the other four may be absent (rated voltage, no soft start).
+    /// </summary>
+    private static Val StartProfileOf(ReadOnlySpan<Val> a)
+    {
+        if (a[0].IsAbsent || a[1].IsAbsent) return Val.Absent;
+        double? longest = a[2].IsAbsent ? null : a[2].Number;
+        var voltage = a[3].IsAbsent ? 1 : a[3].Number;
+        // A soft starter without a written limit is taken as a start at LRC, as before the limit was read.
+        double? limit = a[4].Text == "soft-starter" && !a[5].IsAbsent ? a[5].Number : null;
+        return Val.Of(StartProfile.For(a[0].Number, a[1].Number, longest, voltage, limit));
+    }
+
+    /// <summary>Checks a start profile first, then numeric arguments against dimensions; the first dimension given is the result's.</summary>
+    private static ExprType ProfileFirst(ExprType[] t, Dim result, params Dim[] args)
+    {
+        if (t[0].Kind != ValKind.StartProfile) throw new ArgumentException("argument 1 must be a start profile (from start_profile), not " + t[0]);
+        for (var i = 1; i < t.Length && i - 1 < args.Length; i++)
+        {
+            if (t[i].Kind != ValKind.Number || t[i].Dim != args[i - 1])
+            {
+                throw new ArgumentException($"argument {i + 1} must be {args[i - 1]}, not {t[i]}");
+            }
+        }
+        return ExprType.Num(result);
+    }
+
+    // start_trip, start_time, start_current (profile, pickup, tau, start level): the start with the least thermal room.
+    private static StartTrip Tightest(ReadOnlySpan<Val> a) =>
+        a[0].Profile!.Tightest(new ThermalModel(a[1].Number, a[2].Number, a[2].Number), a[3].Number);
 
     private static Val CoolingTime(ReadOnlySpan<Val> a)
     {
