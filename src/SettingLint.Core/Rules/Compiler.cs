@@ -134,6 +134,15 @@ public sealed class Compiler
                 _ => throw new RuleSyntaxException($"Unknown '{path}'; a relay range has item.value, item.min, item.max, item.step and item.setting.", p.Offset),
             };
         }
+        if (path.StartsWith("config.", StringComparison.Ordinal))
+        {
+            // The configuration's keys that rules may read; the value is per motor (the configuration of its file).
+            return path switch
+            {
+                "config.electrical_code" => new(ExprType.Text, ctx => ctx.Motor.ElectricalCode is { } code ? Val.Of(code) : Val.Absent, p),
+                _ => throw new RuleSyntaxException($"Unknown '{path}'; a rule may read config.electrical_code.", p.Offset),
+            };
+        }
         if (!path.Contains('.', StringComparison.Ordinal) && path != "tag")
         {
             if (!scope.Lets.TryGetValue(path, out var let))

@@ -33,7 +33,8 @@ public static class Functions
             a => Val.Of(LockedRotorCodes.ScaleToVoltage(a[0].Number, a[1].Number, a[2].Number)));
         yield return new("code_letter_min", 3, 3, CodeLetterType, a => CodeLetter(a, upper: false));
         yield return new("code_letter_max", 3, 3, CodeLetterType, a => CodeLetter(a, upper: true));
-        yield return new("nec_overload_limit", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].Number)));
+        yield return new("nec_overload_limit", 1, 1, t => Expect(t, Dim.None, Dim.None),
+            a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].IsAbsent ? null : a[0].Number)), TakesAbsent: true);
         yield return new("thermal_trip", 4, 4, t => Expect(t, Dim.Time, Dim.Current, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[1].Number, a[2].Number, a[2].Number).TripTimeFrom(a[0].Number, a[3].Number).Seconds));
         yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true);
