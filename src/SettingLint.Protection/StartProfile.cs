@@ -34,7 +34,19 @@ public sealed record StartProfile
     public bool IsSoftStart { get; }
 
     /// <summary>The longest of the starts, s.</summary>
-    public double LongestDuration => Points.Max(p => p.Duration);
+    public double LongestDuration
+    {
+        get
+        {
+            var longest = 0.0;
+            foreach (var p in Points)
+            {
+                longest = Math.Max(longest, p.Duration);
+            }
+
+            return longest;
+        }
+    }
 
     /// <summary>Ratio of the allowed stall time at <see cref="StallCurrent"/> to the safe stall time at LRC, (LRC / I)^2; common practice (constant I^2 t).</summary>
     public double StallTimeFactor

@@ -174,15 +174,18 @@ public static class Functions
 
     /// <summary>
     /// start_profile(lrc, acceleration_time, acceleration_time_max, starting_voltage_min, starter_type, soft_start_current_limit):
-    /// absent without LRC or acceleration time; the other four may be absent (rated voltage, no soft start).
+    /// absent without LRC or acceleration time, and for a soft starter without its current limit; the longest time,
+    /// the voltage and (for other starters) the limit may be absent (the rated-voltage start, no soft start).
     /// </summary>
     private static Val StartProfileOf(ReadOnlySpan<Val> a)
     {
         if (a[0].IsAbsent || a[1].IsAbsent) return Val.Absent;
         double? longest = a[2].IsAbsent ? null : a[2].Number;
         var voltage = a[3].IsAbsent ? 1 : a[3].Number;
-        // A soft starter without a written limit is taken as a start at LRC, as before the limit was read.
-        double? limit = a[4].Text == "soft-starter" && !a[5].IsAbsent ? a[5].Number : null;
+        var soft = a[4].Text == "soft-starter";
+        // A soft start at an unknown current is not a start at LRC: taking it so would report trips that are not there.
+        if (soft && a[5].IsAbsent) return Val.Absent;
+        double? limit = soft ? a[5].Number : null;
         return Val.Of(StartProfile.For(a[0].Number, a[1].Number, longest, voltage, limit));
     }
 
