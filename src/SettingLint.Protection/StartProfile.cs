@@ -130,6 +130,58 @@ public sealed record StartProfile
         return tightest!;
     }
 
+    /// <summary>Highest level any start of the profile ends at, from a start level; IEC 60255-149 thermal model.</summary>
+    public double PeakLevel(ThermalModel model, double startLevel)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        var peak = 0.0;
+        foreach (var point in Points)
+        {
+            peak = Math.Max(peak, model.CheckStart(point, startLevel).PeakLevel);
+        }
+
+        return peak;
+    }
+
+    /// <summary>
+    /// Highest level from which every start of the profile still fits: a start of current I for t from level h ends at
+    /// h d + p, with d = exp(-t / tau) and p = x (1 - d), which stays below 1 for h below (1 - p) / d; the least of
+    /// these over the starts. IEC 60255-149 thermal model.
+    /// </summary>
+    public double RestartLevel(ThermalModel model)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        var level = double.PositiveInfinity;
+        foreach (var point in Points)
+        {
+            var p = model.CheckStart(point, 0).PeakLevel;
+            level = Math.Min(level, (1 - p) * Math.Exp(point.Duration / model.HeatingTimeConstant));
+        }
+
+        return level;
+    }
+
+    /// <summary>
+    /// Shortest time from the beginning of one start to the beginning of the next that lets the next fit, with the motor
+    /// stopped in between: over each start from cold, its duration plus the cooling from where it ends to
+    /// <see cref="RestartLevel"/>; the longest of these. Infinite when some start does not fit even from cold.
+    /// IEC 60255-149 thermal model with the cooling time constant.
+    /// </summary>
+    public double TimeBetweenStarts(ThermalModel model)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        var restart = RestartLevel(model);
+        var needed = 0.0;
+        foreach (var point in Points)
+        {
+            var end = model.CheckStart(point, 0).EndLevel;
+            var cooling = model.CoolingTime(end, restart);
+            needed = Math.Max(needed, cooling is { } c ? point.Duration + c : double.PositiveInfinity);
+        }
+
+        return needed;
+    }
+
     /// <summary>The profile written out, e.g. "1960 A for 7 s; 1568 A for 12 s"; for messages.</summary>
     public override string ToString() =>
         string.Join("; ", Points.Select(p => FormattableString.Invariant($"{p.Current:0.###} A for {p.Duration:0.###} s")));

@@ -143,6 +143,41 @@ public sealed class StartProfileTests
         Assert.Equal(1.0, p.StallTimeFactor, 1e-12);
     }
 
+    // IEC 60255-149 model, by hand, a start from cold then a further start (cooling tau 1440 s): LRC 468 A for 11 s,
+    // pickup 89.7 A, tau 480 s: x = (468 / 89.7)^2 = 27.2212, d = exp(-11 / 480) = 0.977344, p = x (1 - d) = 0.6167;
+    // a further start fits from below (1 - p) / d = 0.3922; cooling 1440 ln(0.6167 / 0.3922) = 652.0 s; start to
+    // start 11 + 652.0 = 663.0 s. The one-start profile gives what the single-start algebra gave.
+    [Fact]
+    public void TimeBetweenStarts_DirectOnLine_Iec60255_149()
+    {
+        var model = new ThermalModel(89.7, 480, 1440);
+        var p = StartProfile.For(468, 11);
+        Assert.Equal(0.6167, p.PeakLevel(model, 0), 0.0001);
+        Assert.Equal(0.3922, p.RestartLevel(model), 0.0001);
+        Assert.Equal(663.0, p.TimeBetweenStarts(model), 0.1);
+    }
+
+    // IEC 60255-149 model, by hand, reduced voltage (cooling tau 1350 s):
+    // 1680 A for 7 s: x = 32.6531, d = exp(-7 / 450) = 0.984565, p = 0.5040, (1 - p) / d = 0.5038;
+    // 1344 A for 12 s: x = 20.8980, d = exp(-12 / 450) = 0.973686, p = 0.5499, (1 - p) / d = 0.4622.
+    // Every start fits from below 0.4622. After the 12 s start: 12 + 1350 ln(0.5499 / 0.4622) = 246.4 s; after the
+    // 7 s one: 7 + 1350 ln(0.5040 / 0.4622) = 123.8 s; the longer is needed. Taking LRC for the 12 s start instead
+    // (p = 0.8592, from below 0.1446) would ask for 12 + 1350 ln(0.8592 / 0.1446) = 2418 s, ten times as long.
+    [Fact]
+    public void TimeBetweenStarts_ReducedVoltage_Iec60255_149()
+    {
+        Assert.Equal(0.5499, ReducedStart.PeakLevel(ReducedModel, 0), 0.0001);
+        Assert.Equal(0.4622, ReducedStart.RestartLevel(ReducedModel), 0.0001);
+        Assert.Equal(246.4, ReducedStart.TimeBetweenStarts(ReducedModel), 0.1);
+        Assert.Equal(2418.1, StartProfile.For(1680, 12).TimeBetweenStarts(ReducedModel), 0.1);
+    }
+
+    // IEC 60255-149 model: a start that does not fit from cold leaves no level to cool to: 1680 A for 30 s with tau
+    // 450 s ends at 32.6531 (1 - exp(-30 / 450)) = 2.106 > 1, so no interval is long enough.
+    [Fact]
+    public void TimeBetweenStarts_IsInfinite_WhenAStartDoesNotFit_Iec60255_149() =>
+        Assert.True(double.IsPositiveInfinity(StartProfile.For(1680, 30).TimeBetweenStarts(ReducedModel)));
+
     // Common practice: bad inputs throw instead of giving NaN times.
     [Fact]
     public void InvalidInputs_Throw_CommonPractice()

@@ -47,6 +47,12 @@ public static class Functions
         yield return new("start_trip", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Trip.Seconds));
         yield return new("start_time", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Point.Duration));
         yield return new("start_current", 4, 4, t => ProfileFirst(t, Dim.Current, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Point.Current));
+        yield return new("profile_peak", 4, 4, t => ProfileFirst(t, Dim.None, Dim.Current, Dim.Time, Dim.None),
+            a => Val.Of(a[0].Profile!.PeakLevel(Model(a[1], a[2], a[2]), a[3].Number)));
+        yield return new("restart_level", 3, 3, t => ProfileFirst(t, Dim.None, Dim.Current, Dim.Time),
+            a => Val.Of(a[0].Profile!.RestartLevel(Model(a[1], a[2], a[2]))));
+        yield return new("restart_interval", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.Time),
+            a => Val.Of(a[0].Profile!.TimeBetweenStarts(Model(a[1], a[2], a[3]))));
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
         yield return new("ct_limit", 2, 2, CtLimitType, a => CClassRating.TryParse(a[0].Text, out var r) && r is not null ? Val.Of(r.MaximumSecondaryCurrent(a[1].Number)) : Val.Absent);
         yield return new("ct_saturation", 5, 5, CtSaturationType, CtSaturationValue);
@@ -202,6 +208,8 @@ public static class Functions
         }
         return ExprType.Num(result);
     }
+
+    private static ThermalModel Model(Val pickup, Val tau, Val coolingTau) => new(pickup.Number, tau.Number, coolingTau.Number);
 
     // start_trip, start_time, start_current (profile, pickup, tau, start level): the start with the least thermal room.
     private static StartTrip Tightest(ReadOnlySpan<Val> a) =>
