@@ -1,4 +1,6 @@
+using System.Collections.Immutable;
 using SettingLint.Core.Engine;
+using SettingLint.Core.Fixes;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 using SettingLint.Tests.Support;
@@ -57,6 +59,25 @@ public sealed class ElectricalCodeTests
         repo.Write(".settinglint.yaml", "electrical_code: NEC 2023\n");
         var session = Session.Open([repo.Root]);
         Assert.Contains(session.Problems, p => p.Message.Contains("electrical_code", StringComparison.Ordinal));
+    }
+
+    // A suggested value is found and verified by checks in memory; they must run under the code the check ran under.
+    // The sample motor's 50P pickup (7.2 A sec = 108 A) is below its asymmetrical start current and gets a suggested
+    // value (SL201); its thermal pickup of 1.3 x FLC draws no SL801 under IEC 60364. A verifying check that fell back to
+    // NFPA 70 would see SL801 appear in the file and refuse the 50P value as "gaining" it.
+    [Fact]
+    public void A_suggestion_is_verified_under_the_same_code()
+    {
+        using var repo = new TempRepo();
+        Samples.WriteMinimal(repo, HighPickup);
+        repo.Write(".settinglint.yaml", "electrical_code: IEC 60364\n");
+        var session = Session.Open([repo.Root]);
+        var result = session.Check([repo.Root], null, parallel: false);
+        Assert.Contains(result.Findings, f => f.RuleId == "SL201");
+        Assert.DoesNotContain(result.Findings, f => f.RuleId == "SL801");
+        var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
+        Assert.DoesNotContain(set.Refused, r => r.Why.Contains("SL801", StringComparison.Ordinal));
+        Assert.Contains(set.Applied, f => f.Setting == "protection.short_circuit.pickup");
     }
 
     private static List<Finding> Sl801(string? config)
