@@ -119,7 +119,7 @@ public static class CheckCommand
         // A staged check reads the index; the suggestions would read the working tree, so they wait for a plain check.
         if (!options.Staged && options.Suggest)
         {
-            var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty);
+            var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
             // A conflict stands with the findings on its setting: unchanged from the baseline when they all are.
             var conflicts = set.Conflicts().Select(c =>
             {

@@ -3,12 +3,16 @@ namespace SettingLint.Protection;
 /// <summary>Largest motor overload trip rating allowed by NFPA 70 (NEC) 430.32(A)(1), as a share of nameplate FLC.</summary>
 public static class NecOverloadLimit
 {
-    /// <summary>1.25 for service factor 1.15 or more or marked temperature rise 40 K (deg C) or less, else 1.15; NFPA 70 430.32(A)(1).</summary>
-    /// <param name="serviceFactor">Marked service factor, e.g. 1.0 or 1.15.</param>
+    /// <summary>1.25 for service factor 1.15 or more or marked temperature rise 40 K (deg C) or less, else 1.15 (no service factor marked included); NFPA 70 430.32(A)(1).</summary>
+    /// <param name="serviceFactor">Marked service factor, e.g. 1.0 or 1.15; null when none is marked (IEC motors).</param>
     /// <param name="temperatureRise">Marked temperature rise in K (equal to deg C rise), or null when not marked.</param>
-    public static double MaximumFraction(double serviceFactor, double? temperatureRise = null)
+    public static double MaximumFraction(double? serviceFactor, double? temperatureRise = null)
     {
-        Guard.Positive(serviceFactor);
+        if (serviceFactor is { } sf)
+        {
+            Guard.Positive(sf);
+        }
+
         if (temperatureRise is { } rise)
         {
             Guard.NonNegative(rise);
@@ -18,6 +22,6 @@ public static class NecOverloadLimit
     }
 
     /// <summary>Largest overload trip current in A, FLC x 1.25 or 1.15; NFPA 70 430.32(A)(1).</summary>
-    public static double MaximumCurrent(double fullLoadCurrent, double serviceFactor, double? temperatureRise = null) =>
+    public static double MaximumCurrent(double fullLoadCurrent, double? serviceFactor, double? temperatureRise = null) =>
         Guard.Positive(fullLoadCurrent) * MaximumFraction(serviceFactor, temperatureRise);
 }

@@ -132,14 +132,16 @@ public sealed record ThermalModel
         return CoolingTimeConstant * Math.Log(startLevel / targetLevel);
     }
 
-    /// <summary>Whether a start (LRC for the acceleration time, then load current) fits from a start level, with end level, peak and headroom; IEC 60255-149 thermal model, common practice for the start check.</summary>
-    public StartFit CheckStart(StartProfile profile, double startLevel)
+    /// <summary>Whether a start (its current for its duration, then an optional load current for a further time) fits from a start level, with end level, peak and headroom; IEC 60255-149 thermal model, common practice for the start check.</summary>
+    public StartFit CheckStart(StartPoint start, double startLevel, double loadCurrent = 0, double loadTime = 0)
     {
-        ArgumentNullException.ThrowIfNull(profile);
+        ArgumentNullException.ThrowIfNull(start);
         Guard.NonNegative(startLevel);
+        Guard.NonNegative(loadCurrent);
+        Guard.NonNegative(loadTime);
 
-        var afterAcceleration = LevelAfterRunning(startLevel, profile.LockedRotorCurrent, profile.AccelerationTime);
-        var end = LevelAfterRunning(afterAcceleration, profile.LoadCurrent, profile.LoadTime);
+        var afterAcceleration = LevelAfterRunning(startLevel, start.Current, start.Duration);
+        var end = LevelAfterRunning(afterAcceleration, loadCurrent, loadTime);
 
         // Each phase is an exponential approach to its steady level, so it is monotonic and
         // its extreme lies at one of its ends: the peak is the largest of the three end points.

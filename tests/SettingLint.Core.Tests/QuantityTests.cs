@@ -102,6 +102,14 @@ public sealed class QuantityTests
         Assert.Equal(250_000, Si("250 kW", Dimension.Power, UnitContext.MotorData), 9);
     }
 
+    // SI prefixes (BIPM SI Brochure, table 7): 1 MW = 10^6 W, so 6.3 MW = 6 300 kW; a rating of large IEC motors.
+    [Fact]
+    public void Megawatts_convert_to_watts()
+    {
+        Assert.Equal(6_300_000, Si("6.3 MW", Dimension.Power, UnitContext.MotorData), 6);
+        Assert.Contains("MW", AcceptedUnits.For(Dimension.Power, UnitContext.MotorData));
+    }
+
     [Theory]
     [InlineData("8 kA", Dimension.Current, UnitContext.Data, 8000)]
     [InlineData("4.16 kV", Dimension.Voltage, UnitContext.Data, 4160)]

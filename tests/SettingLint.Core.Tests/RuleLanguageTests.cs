@@ -37,6 +37,9 @@ public sealed class RuleLanguageTests
     [InlineData("protection.short_circuit.pickup >= sqrt(motor.full_load_current)", "plain number", 12, 43)]
     [InlineData("protection.short_circuit.pickup + param.margin > 1 A", "one dimension", 12, 8)]
     [InlineData("frobnicate(motor.full_load_current) > 1 A", "Unknown function", 12, 8)]
+    [InlineData("start_profile(motor.locked_rotor_current, motor.acceleration_time, motor.acceleration_time_max, motor.starting_voltage_min, starter.type, starter.soft_start_current_limit) == start_profile(motor.locked_rotor_current, motor.acceleration_time, motor.acceleration_time_max, motor.starting_voltage_min, starter.type, starter.soft_start_current_limit)", "cannot compare start profiles", 12, 8)]
+    [InlineData("start_trip(motor.locked_rotor_current, protection.thermal.pickup, protection.thermal.time_constant, 0) > 1 s", "must be a start profile", 12, 8)]
+    [InlineData("config.colour == 'red'", "config.electrical_code", 12, 8)]
     public void A_mistake_fails_the_load_at_its_position(string check, string expected, int line, int column)
     {
         var result = Load(Rule(check));
@@ -76,6 +79,16 @@ public sealed class RuleLanguageTests
         var rule = Assert.Single(result.Rules);
         Assert.Equal(1.7, rule.ParameterValues[0]);
         Assert.Equal(0.3, rule.ParameterValues[1]); // 0.3 s in SI seconds
+    }
+
+    // The start profile is a value of its own kind: made by start_profile, read by the functions that take one.
+    [Fact]
+    public void A_start_profile_is_passed_to_its_functions()
+    {
+        var result = Load(Rule("start_trip(start, protection.thermal.pickup, protection.thermal.time_constant, 0) >= 1.1 * start_time(start, protection.thermal.pickup, protection.thermal.time_constant, 0) and stall_time(start, motor.safe_stall_time_hot) > start_longest(start) and stall_current(start) <= motor.locked_rotor_current and config.electrical_code == 'NFPA 70'",
+            "let:\n  start: start_profile(motor.locked_rotor_current, motor.acceleration_time, motor.acceleration_time_max, motor.starting_voltage_min, starter.type, starter.soft_start_current_limit)\n"));
+        Assert.Empty(result.Problems);
+        Assert.Single(result.Rules);
     }
 
     [Fact]

@@ -14,6 +14,16 @@ public sealed class NecOverloadLimitTests
     public void ServiceFactor10_Is115Percent_Nfpa70_430_32_A_1() =>
         Assert.Equal(1.15, NecOverloadLimit.MaximumFraction(1.0));
 
+    // NFPA 70 430.32(A)(1): no service factor marked (an IEC motor) falls under "all other motors" -> 115 %,
+    // unless a marked rise of 40 C or less gives 125 %.
+    [Fact]
+    public void NoServiceFactorMarked_Is115Percent_Nfpa70_430_32_A_1()
+    {
+        Assert.Equal(1.15, NecOverloadLimit.MaximumFraction(null));
+        Assert.Equal(1.25, NecOverloadLimit.MaximumFraction(null, 40));
+        Assert.Equal(115.0, NecOverloadLimit.MaximumCurrent(100, null), 1e-9);
+    }
+
     // NFPA 70 430.32(A)(1): marked temperature rise 40 C or less -> 125 % even at SF 1.0.
     [Theory]
     [InlineData(40, 1.25)]

@@ -149,7 +149,7 @@ public sealed class ThermalModelTests
     [Fact]
     public void StartFits_FromCold_PeakAtEnd_Iec60255_149()
     {
-        var fit = Model.CheckStart(new StartProfile(600, 10, 100, 60), 0);
+        var fit = Model.CheckStart(new StartPoint(600, 10), 0, 100, 60);
         Assert.True(fit.Fits);
         Assert.Equal(0.3960, fit.PeakLevel, 0.0001);
         Assert.Equal(0.3960, fit.EndLevel, 0.0001);
@@ -161,7 +161,7 @@ public sealed class ThermalModelTests
     [Fact]
     public void StartFits_FromCold_PeakAtEndOfAcceleration_Iec60255_149()
     {
-        var fit = Model.CheckStart(new StartProfile(600, 10, 50, 60), 0);
+        var fit = Model.CheckStart(new StartPoint(600, 10), 0, 50, 60);
         Assert.True(fit.Fits);
         Assert.Equal(0.3608, fit.PeakLevel, 0.0001);
         Assert.Equal(0.3522, fit.EndLevel, 0.0001);
@@ -172,7 +172,7 @@ public sealed class ThermalModelTests
     [Fact]
     public void StartDoesNotFit_FromHot_Iec60255_149()
     {
-        var fit = Model.CheckStart(new StartProfile(600, 10), Model.HotStartLevel(100));
+        var fit = Model.CheckStart(new StartPoint(600, 10), Model.HotStartLevel(100));
         Assert.False(fit.Fits);
         Assert.True(fit.Headroom < 0);
         Assert.Equal(fit.EndLevel, fit.PeakLevel, 1e-12);

@@ -21,6 +21,12 @@ public sealed record SettingsConfig(
 {
     public const string FileName = ".settinglint.yaml";
 
+    /// <summary>`electrical_code`: the electrical code that governs the repository's installations; null when not declared.</summary>
+    public string? ElectricalCode { get; init; }
+
+    /// <summary>The electrical code declared for a root-relative file (today one per repository; a folder's own configuration may refine it).</summary>
+    public string? ElectricalCodeOf(string relativePath) => ElectricalCode;
+
     public static SettingsConfig Default { get; } = new(null, null, [], [], ["builtin"], new RuleOverrides(new Dictionary<string, RuleOverride>()));
 
     /// <summary>Whether a root-relative path passes the include and exclude globs.</summary>
@@ -114,7 +120,8 @@ public sealed record SettingsConfig(
                 }
             }
         }
-        return (new SettingsConfig(rel, failOn, List("include"), List("exclude"), packs.ToImmutable(), new RuleOverrides(overrides)), [.. problems]);
+        var code = m["electrical_code"] is YScalar ec ? ec.Value : null;
+        return (new SettingsConfig(rel, failOn, List("include"), List("exclude"), packs.ToImmutable(), new RuleOverrides(overrides)) { ElectricalCode = code }, [.. problems]);
     }
 }
 

@@ -11,6 +11,7 @@ namespace SettingLint.Core.Engine;
 /// <param name="Accept">Apply the acceptance comments in the files (off for audits: --no-suppress).</param>
 /// <param name="Changes">Report only the changed files and their dependants; null reports every file.</param>
 /// <param name="Overlay">File contents to read instead of the disk (the staged ones, for a pre-commit check).</param>
+/// <param name="ElectricalCode">The electrical code the configuration declares for a root-relative file, or null; null for none anywhere.</param>
 public sealed record CheckOptions(
     IReadOnlyList<string> Paths,
     Level FailOn = Level.Error,
@@ -20,7 +21,8 @@ public sealed record CheckOptions(
     string? Root = null,
     bool Accept = true,
     Gate.ChangeSet? Changes = null,
-    Gate.FileOverlay? Overlay = null)
+    Gate.FileOverlay? Overlay = null,
+    Func<string, string?>? ElectricalCode = null)
 {
     public LoadLimits EffectiveLimits => Limits ?? LoadLimits.Default;
 }

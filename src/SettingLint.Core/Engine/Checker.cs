@@ -147,7 +147,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             var s = lazy.Value;
             if (s.Kind != SchemaSet.MotorProtection) return;
-            Guard(() => BindMotor(s, resolver), s.RelativePath, notifications);
+            Guard(() => BindMotor(s, resolver, options.ElectricalCode), s.RelativePath, notifications);
             if (staged.Rules is null || s.Motor is not { } motor || !s.Reported) return;
             Guard(() => staged.Rules.EvaluateOwn(motor, staged.Run, s.Findings, notifications.Add), s.RelativePath, notifications, "a rule failed on this motor");
             var kept = motor.Document.Restrict(staged.Keep);
@@ -306,7 +306,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>Resolves a motor's bus and relay model (loading and binding them on first use) and makes the motor.</summary>
-    private static void BindMotor(FileState s, ReferenceResolver<FileState> resolver)
+    private static void BindMotor(FileState s, ReferenceResolver<FileState> resolver, Func<string, string?>? declaredCode)
     {
         var doc = s.Document;
         if (doc is null) return;
@@ -320,7 +320,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             relay = resolver.Resolve(doc, relayRef, SchemaSet.RelayModel, s.Findings)?.AsRelayModel;
         }
-        s.Motor = new MotorProtection(doc, bus, relay);
+        s.Motor = new MotorProtection(doc, bus, relay) { ElectricalCode = ElectricalCodes.Governing(declaredCode?.Invoke(s.RelativePath), bus?.Frequency) };
     }
 
     // In the order of the file, which only its tree still knows.

@@ -43,6 +43,6 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
             return new CheckResult(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], Problems, 0, [], threshold);
         }
         if (gate is not null) return GatedCheck.Run(this, paths, threshold, parallel, gate);
-        return new Checker(Rules).Run(new CheckOptions(paths, threshold, Parallel: parallel, Include: Config.Includes));
+        return new Checker(Rules).Run(new CheckOptions(paths, threshold, Parallel: parallel, Include: Config.Includes, ElectricalCode: Config.ElectricalCodeOf));
     }
 }

@@ -104,7 +104,8 @@ public static class Suggestions
     /// <param name="overlay">Contents read instead of the disk (staged files, editor buffers), when the check had them.</param>
     /// <param name="findings">The check's findings.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
-    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, FileOverlay? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules)
+    /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
+    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, FileOverlay? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null)
     {
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(onlyRules);
@@ -118,7 +119,7 @@ public static class Suggestions
         var outcomes = new ConcurrentQueue<RuleOutcome>();
         var motors = new ConcurrentDictionary<string, MotorProtection>(StringComparer.Ordinal);
         var listening = new RuleSet(rules.Rules) { Outcomes = outcomes.Enqueue, Motors = m => motors.TryAdd(m.Document.RelativePath, m) };
-        Run(listening, root, include, overlay, files);
+        Run(listening, root, include, overlay, files, electricalCode);
 
         var texts = new Dictionary<string, SourceText>(StringComparer.Ordinal);
         string? Read(string rel)
@@ -140,7 +141,7 @@ public static class Suggestions
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
             var merged = overlay is null ? new FileOverlay(contents, []) : overlay with { Contents = overlay.Contents.SetItems(contents) };
-            var after = Run(rules, root, include, merged, [.. contents.Keys]).Findings;
+            var after = Run(rules, root, include, merged, [.. contents.Keys], electricalCode).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
             {
@@ -158,9 +159,9 @@ public static class Suggestions
     }
 
     // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
-    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, FileOverlay? overlay, ImmutableSortedSet<string> files)
+    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, FileOverlay? overlay, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
     {
         var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
-        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Overlay: overlay, Changes: changes));
+        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Overlay: overlay, Changes: changes, ElectricalCode: electricalCode));
     }
 }

@@ -70,7 +70,7 @@ public static class GatedCheck
         }
 
         var options = new CheckOptions(paths, threshold, Parallel: parallel, Include: session.Config.Includes,
-            Accept: gate.Accept, Changes: gate.AllFiles ? null : changes, Overlay: overlay);
+            Accept: gate.Accept, Changes: gate.AllFiles ? null : changes, Overlay: overlay, ElectricalCode: session.Config.ElectricalCodeOf);
         var result = new Checker(session.Rules).Run(options);
 
         if (changes is not null)

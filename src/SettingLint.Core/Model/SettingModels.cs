@@ -21,6 +21,15 @@ public sealed record Bus(BoundDocument Document)
     public string? Grounding => Document.Text("grounding");
 
     public MeasureValue? GroundFaultCurrent => Document.Measure("ground_fault_current");
+
+    /// <summary>The supply frequency in Hz when the bus states one (`frequency: 50 Hz`), else null.</summary>
+    public double? Frequency => Document["frequency"] switch
+    {
+        MeasureValue m => m.Value,
+        // Read from text too, so that the default of the electrical code does not depend on how the key is bound.
+        TextValue t when double.TryParse(t.Value.Replace("Hz", "", StringComparison.Ordinal).Trim(), System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out var f) => f,
+        _ => null,
+    };
 }
 
 /// <summary>One settable range of a relay model, kept as written because xFLC and xCT depend on the motor.</summary>
@@ -43,6 +52,9 @@ public sealed record RelayModel(BoundDocument Document, ImmutableArray<RelayRang
 public sealed record MotorProtection(BoundDocument Document, Bus? Bus, RelayModel? RelayModel)
 {
     public string Tag => Document.Tag;
+
+    /// <summary>The electrical code that governs the motor (<see cref="ElectricalCodes.Governing"/>); null when none is declared or implied.</summary>
+    public string? ElectricalCode { get; init; }
 
     public MeasureValue? FullLoadCurrent => Document.Measure("motor.full_load_current");
 

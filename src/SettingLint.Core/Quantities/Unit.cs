@@ -54,6 +54,7 @@ public sealed record Unit(string Symbol, Dimension Dimension, double Factor, Uni
         new("h", Dimension.Time, 3600, UnitBasis.Absolute),
         new("hp", Dimension.Power, 745.699872, UnitBasis.Absolute),
         new("kW", Dimension.Power, 1000, UnitBasis.Absolute),
+        new("MW", Dimension.Power, 1e6, UnitBasis.Absolute),
         new("%", Dimension.Fraction, 0.01, UnitBasis.Absolute),
         new("ohm", Dimension.Impedance, 1, UnitBasis.Absolute),
         new("VA", Dimension.Impedance, 1, UnitBasis.CtSecondaryPower),

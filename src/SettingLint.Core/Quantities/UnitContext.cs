@@ -33,7 +33,7 @@ public static class AcceptedUnits
     private static readonly string[] VoltageSetting = ["%", "V pri", "V sec", "kV pri", "xVT"];
     private static readonly string[] Voltage = ["V", "kV"];
     private static readonly string[] Time = ["ms", "s", "min", "h"];
-    private static readonly string[] Power = ["hp", "kW"];
+    private static readonly string[] Power = ["hp", "kW", "MW"];
     private static readonly string[] Fraction = ["%"];
     private static readonly string[] Impedance = ["ohm", "VA"];
     private static readonly string[] Frequency = ["Hz"];

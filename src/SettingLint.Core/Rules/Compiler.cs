@@ -134,6 +134,15 @@ public sealed class Compiler
                 _ => throw new RuleSyntaxException($"Unknown '{path}'; a relay range has item.value, item.min, item.max, item.step and item.setting.", p.Offset),
             };
         }
+        if (path.StartsWith("config.", StringComparison.Ordinal))
+        {
+            // The configuration's keys that rules may read; the value is per motor (the configuration of its file).
+            return path switch
+            {
+                "config.electrical_code" => new(ExprType.Text, ctx => ctx.Motor.ElectricalCode is { } code ? Val.Of(code) : Val.Absent, p),
+                _ => throw new RuleSyntaxException($"Unknown '{path}'; a rule may read config.electrical_code.", p.Offset),
+            };
+        }
         if (!path.Contains('.', StringComparison.Ordinal) && path != "tag")
         {
             if (!scope.Lets.TryGetValue(path, out var let))
@@ -231,6 +240,7 @@ public sealed class Compiler
                 return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x / y) : Val.Absent, b);
             default:
                 if (l.Type != r.Type) throw new RuleSyntaxException($"'{b.Op}' compares {l.Type} with {r.Type}.", b.Offset);
+                if (l.Type.Kind == ValKind.StartProfile) throw new RuleSyntaxException($"'{b.Op}' cannot compare start profiles; compare what a function reads from them.", b.Offset);
                 if (l.Type.Kind != ValKind.Number && b.Op is not ("==" or "!=")) throw new RuleSyntaxException($"'{b.Op}' compares numbers, not {l.Type}.", b.Offset);
                 var op = Comparisons.Of(b.Op);
                 return new(ExprType.Bool, ctx => Compare(op, l.Get(ctx), r.Get(ctx)), b);

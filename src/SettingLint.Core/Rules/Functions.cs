@@ -33,12 +33,26 @@ public static class Functions
             a => Val.Of(LockedRotorCodes.ScaleToVoltage(a[0].Number, a[1].Number, a[2].Number)));
         yield return new("code_letter_min", 3, 3, CodeLetterType, a => CodeLetter(a, upper: false));
         yield return new("code_letter_max", 3, 3, CodeLetterType, a => CodeLetter(a, upper: true));
-        yield return new("nec_overload_limit", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].Number)));
+        yield return new("nec_overload_limit", 1, 1, t => Expect(t, Dim.None, Dim.None),
+            a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].IsAbsent ? null : a[0].Number)), TakesAbsent: true);
         yield return new("thermal_trip", 4, 4, t => Expect(t, Dim.Time, Dim.Current, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[1].Number, a[2].Number, a[2].Number).TripTimeFrom(a[0].Number, a[3].Number).Seconds));
         yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true);
         yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
-            a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartProfile(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
+            a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartPoint(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
+        yield return new("start_profile", 6, 6, StartProfileType, StartProfileOf, TakesAbsent: true);
+        yield return new("start_longest", 1, 1, t => ProfileFirst(t, Dim.Time), a => Val.Of(a[0].Profile!.LongestDuration));
+        yield return new("stall_current", 1, 1, t => ProfileFirst(t, Dim.Current), a => Val.Of(a[0].Profile!.StallCurrent));
+        yield return new("stall_time", 2, 2, t => ProfileFirst(t, Dim.Time, Dim.Time), a => Val.Of(a[0].Profile!.StallTime(a[1].Number)));
+        yield return new("start_trip", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Trip.Seconds));
+        yield return new("start_time", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Point.Duration));
+        yield return new("start_current", 4, 4, t => ProfileFirst(t, Dim.Current, Dim.Current, Dim.Time, Dim.None), a => Val.Of(Tightest(a).Point.Current));
+        yield return new("profile_peak", 4, 4, t => ProfileFirst(t, Dim.None, Dim.Current, Dim.Time, Dim.None),
+            a => Val.Of(a[0].Profile!.PeakLevel(Model(a[1], a[2], a[2]), a[3].Number)));
+        yield return new("restart_level", 3, 3, t => ProfileFirst(t, Dim.None, Dim.Current, Dim.Time),
+            a => Val.Of(a[0].Profile!.RestartLevel(Model(a[1], a[2], a[2]))));
+        yield return new("restart_interval", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.Time),
+            a => Val.Of(a[0].Profile!.TimeBetweenStarts(Model(a[1], a[2], a[3]))));
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
         yield return new("ct_limit", 2, 4, CtLimitType, CtLimit, TakesAbsent: true);
         yield return new("ct_saturation", 5, 7, CtSaturationType, CtSaturationValue, TakesAbsent: true);
@@ -159,6 +173,51 @@ public static class Functions
         var r = a[0].Number / a[1].Number;
         return Val.Of(r * r);
     }
+
+    private static ExprType StartProfileType(ExprType[] t)
+    {
+        Expect(t.Take(4).ToArray(), Dim.None, Dim.Current, Dim.Time, Dim.Time, Dim.None);
+        if (t[4].Kind != ValKind.Text) throw new ArgumentException("argument 5 must be the starter type (text), not " + t[4]);
+        if (t[5] != ExprType.Num(Dim.Current)) throw new ArgumentException("argument 6 must be the soft starter's current limit, not " + t[5]);
+        return ExprType.StartProfile;
+    }
+
+    /// <summary>
+    /// start_profile(lrc, acceleration_time, acceleration_time_max, starting_voltage_min, starter_type, soft_start_current_limit):
+    /// absent without LRC or acceleration time, and for a soft starter without its current limit; the longest time,
+    /// the voltage and (for other starters) the limit may be absent (the rated-voltage start, no soft start).
+    /// </summary>
+    private static Val StartProfileOf(ReadOnlySpan<Val> a)
+    {
+        if (a[0].IsAbsent || a[1].IsAbsent) return Val.Absent;
+        double? longest = a[2].IsAbsent ? null : a[2].Number;
+        var voltage = a[3].IsAbsent ? 1 : a[3].Number;
+        var soft = a[4].Text == "soft-starter";
+        // A soft start at an unknown current is not a start at LRC: taking it so would report trips that are not there.
+        if (soft && a[5].IsAbsent) return Val.Absent;
+        double? limit = soft ? a[5].Number : null;
+        return Val.Of(StartProfile.For(a[0].Number, a[1].Number, longest, voltage, limit));
+    }
+
+    /// <summary>Checks a start profile first, then numeric arguments against dimensions; the first dimension given is the result's.</summary>
+    private static ExprType ProfileFirst(ExprType[] t, Dim result, params Dim[] args)
+    {
+        if (t[0].Kind != ValKind.StartProfile) throw new ArgumentException("argument 1 must be a start profile (from start_profile), not " + t[0]);
+        for (var i = 1; i < t.Length && i - 1 < args.Length; i++)
+        {
+            if (t[i].Kind != ValKind.Number || t[i].Dim != args[i - 1])
+            {
+                throw new ArgumentException($"argument {i + 1} must be {args[i - 1]}, not {t[i]}");
+            }
+        }
+        return ExprType.Num(result);
+    }
+
+    private static ThermalModel Model(Val pickup, Val tau, Val coolingTau) => new(pickup.Number, tau.Number, coolingTau.Number);
+
+    // start_trip, start_time, start_current (profile, pickup, tau, start level): the start with the least thermal room.
+    private static StartTrip Tightest(ReadOnlySpan<Val> a) =>
+        a[0].Profile!.Tightest(new ThermalModel(a[1].Number, a[2].Number, a[2].Number), a[3].Number);
 
     private static Val CoolingTime(ReadOnlySpan<Val> a)
     {

@@ -255,6 +255,7 @@ public sealed class RuleSet : IStagedRuleSet
                 ValKind.Number => Value(v.Number, Shown(c.Type.Dim), c.Percent, c.Type.Dim == Dim.ItemValue ? sideRatio : null),
                 ValKind.Bool => new FindingValue(v.Flag ? "true" : "false"),
                 ValKind.Text => new FindingValue(v.Text ?? ""),
+                ValKind.StartProfile => new FindingValue(v.Profile!.ToString()),
                 _ => new FindingValue("(absent)"),
             };
         }
