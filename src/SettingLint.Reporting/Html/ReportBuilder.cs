@@ -22,6 +22,7 @@ public static class ReportBuilder
         var windows = SettingWindows.Derive(data.Outcomes).ToLookup(w => w.MotorFile, StringComparer.Ordinal);
         var outcomes = data.Outcomes.ToLookup(o => o.MotorFile, StringComparer.Ordinal);
         var findings = data.Result.Findings.ToLookup(f => f.File, StringComparer.Ordinal);
+        var notRun = data.Result.NotRun.ToLookup(n => n.File, StringComparer.Ordinal);
         var slugs = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
         var motors = ImmutableArray.CreateBuilder<MotorReport>();
         foreach (var motor in data.Motors)
@@ -37,6 +38,7 @@ public static class ReportBuilder
                 RelayModel = motor.RelayModel?.Tag,
                 Slug = UniqueSlug(motor.Tag, slugs),
                 Findings = own,
+                NotRun = [.. notRun[file]],
                 Margins = Margins(outcomes[file], motor, own, titles, nearMiss),
                 Windows = [.. windows[file].Select(w => View(w, motor.Document))],
                 Plot = MotorPlotData.From(motor),
