@@ -134,10 +134,10 @@ public sealed record MotorPlotData
         var acc = Positive("motor.acceleration_time");
         var accMax = Positive("motor.acceleration_time_max");
         var grounding = motor.Bus?.Grounding;
-        // A soft starter holds the start at its current limit for the acceleration time (common practice); a start
-        // profile of the protection library replaces this when it gives one.
+        // A soft starter holds the start at its current limit along its ramp, the longest acceleration time (common
+        // practice; the same start as the protection library's start profile, which replaces this once it is on main).
         var limit = d.Text("starter.type") == "soft-starter" ? Positive("starter.soft_start_current_limit") : null;
-        ImmutableArray<StartStep> Steps(double? time) => limit is { } l && time is { } t ? [new StartStep(l, t)] : [];
+        ImmutableArray<StartStep> soft = limit is { } l && (accMax ?? acc) is { } ramp ? [new StartStep(l, ramp)] : [];
         return new MotorPlotData
         {
             Motor = motor.Tag,
@@ -145,8 +145,8 @@ public sealed record MotorPlotData
             LockedRotorCurrent = lrc,
             AccelerationTime = acc,
             AccelerationTimeMax = accMax,
-            StartSteps = Steps(acc),
-            LongestStartSteps = Steps(accMax),
+            StartSteps = soft,
+            LongestStartSteps = soft,
             StartKind = limit is null ? null : "soft-start limit",
             AsymmetricalStartCurrent = AsymmetricalStart(lrc, Positive("motor.rated_voltage"), BusNum("max_voltage")),
             AsymmetryFactor = lrc is null ? null : DefaultAsymmetryFactor,
