@@ -171,6 +171,26 @@ public sealed class HtmlPlotMarkTests
         Assert.False(TimeCurrent(p503.Plot).Has("start-longest"));
     }
 
+    [Fact]
+    public void The_thermal_level_plot_follows_a_soft_start_at_its_limit()
+    {
+        // A 10 s ramp at 400 A (3.3 x FLC) instead of 720 A LRC: IEC 60255-149 level h(t) = x (1 - exp(-t / tau)) from
+        // cold, x = (I / (k IB))^2, through the engineering library.
+        var data = Motor() with { AccelerationTimeMax = 10, StartSteps = [new StartStep(400, 10)], LongestStartSteps = [new StartStep(400, 10)] };
+        var plot = new SvgPlot(ThermalLevelPlot.Render(data, "l", HtmlReport.Caution)!);
+        var model = new ThermalModel(138, 480, 1440);
+        var cold = plot.Series("level-cold");
+        Assert.True(cold.Count > 100);
+        foreach (var (t, h) in cold.Where(p => p.X <= 10))
+        {
+            Assert.True(Math.Abs(model.LevelAfterRunning(0, 400, t) - h) <= 0.01 * Math.Max(h, 0.01), $"at {t:R} s: {h:R}");
+        }
+        // At the end of the ramp the level is far below what a 10 s start at LRC would give.
+        var end = cold.Last(p => p.X <= 10).Y;
+        Assert.True(end < 0.5 * model.LevelAfterRunning(0, 720, 10));
+        Close(10, plot.VerticalAt("start-end"));
+    }
+
     private static void Close(double expected, double actual) =>
         Assert.True(Math.Abs(actual - expected) <= 0.01 * Math.Abs(expected), $"expected {expected:R}, plotted {actual:R}");
 }
