@@ -235,6 +235,18 @@ public sealed class NotRunTests
     }
 
     [Fact]
+    public void A_soft_starter_without_its_current_limit_names_the_limit_and_no_optional_key()
+    {
+        // Every rule stopped here is stopped by the missing limit alone: acceleration_time_max and the other optional
+        // inputs of a start are not what is missing (a function's optional arguments are not traced).
+        var motor = Samples.Replace(Motor(Protection(Thermal, ShortCircuit, GroundFault, "  acceleration:\n    enabled: true\n    time: 8 s\n")),
+            "  type: circuit-breaker\n", "  type: soft-starter\n");
+        var result = Run(motor);
+        Assert.Contains(result.NotRun, n => n.RuleId == "SL703");
+        Assert.All(result.NotRun, n => Assert.Equal("starter.soft_start_current_limit", n.MissingText));
+    }
+
+    [Fact]
     public void Undercurrent_without_the_minimum_load_current_is_not_run()
     {
         var notRun = NotRun(Run(Motor(Protection(Thermal, ShortCircuit, GroundFault, "  undercurrent:\n    enabled: true\n    pickup: 0.4 xFLC\n    delay: 5 s\n"))));

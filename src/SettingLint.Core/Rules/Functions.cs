@@ -9,8 +9,8 @@ namespace SettingLint.Core.Rules;
 /// <param name="MaxArgs">Most arguments (int.MaxValue for variadic).</param>
 /// <param name="Type">Checks argument types and gives the result type, or throws with the problem.</param>
 /// <param name="Body">Computes the result from present arguments (absent arguments make the result absent, except for coalesce and present).</param>
-/// <param name="OptionalFrom">For a function that takes absent arguments: the first argument whose absence alone never makes the result absent (hot_level's full-load level), so that a missing optional key is not reported as the reason a rule was not run.</param>
-public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false, int OptionalFrom = int.MaxValue);
+/// <param name="OptionalArgs">For a function that takes absent arguments: the positions (from 0) of the arguments whose absence alone never makes the result absent (hot_level's full-load level), so that a missing optional key is not reported as the reason a rule was not run.</param>
+public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false, int[]? OptionalArgs = null);
 
 /// <summary>A function's body over its evaluated arguments (a span, so that a call needs no array).</summary>
 public delegate Val FunctionBody(ReadOnlySpan<Val> args);
@@ -37,7 +37,7 @@ public static class Functions
         yield return new("nec_overload_limit", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].Number)));
         yield return new("thermal_trip", 4, 4, t => Expect(t, Dim.Time, Dim.Current, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[1].Number, a[2].Number, a[2].Number).TripTimeFrom(a[0].Number, a[3].Number).Seconds));
-        yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true, OptionalFrom: 2);
+        yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true, OptionalArgs: [2]);
         yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartProfile(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);

@@ -88,8 +88,11 @@ internal static class MissingData
                 return;
         }
         if (c.Operands is not { } operands) return;
-        var optionalFrom = c.Source is Call call && Functions.All.TryGetValue(call.Name, out var fn) ? fn.OptionalFrom : int.MaxValue;
-        for (var i = 0; i < operands.Length && i < optionalFrom; i++) Trace(operands[i], rule, ctx, found, depth + 1);
+        var optional = c.Source is Call call && Functions.All.TryGetValue(call.Name, out var fn) ? fn.OptionalArgs : null;
+        for (var i = 0; i < operands.Length; i++)
+        {
+            if (optional is null || Array.IndexOf(optional, i) < 0) Trace(operands[i], rule, ctx, found, depth + 1);
+        }
     }
 
     /// <summary>A missing motor path: a gap, unless it is a setting of an element that is absent or out of service.</summary>
