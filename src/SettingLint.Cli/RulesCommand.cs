@@ -139,6 +139,7 @@ public static class RulesCommand
             foreach (var m in r.Missed) stdout.WriteLine($"      missed:     {m}");
             foreach (var u in r.Unexpected) stdout.WriteLine($"      unexpected: {u}");
             foreach (var w in r.WrongValues) stdout.WriteLine($"      value:      {w}");
+            foreach (var w in r.WrongNotRun) stdout.WriteLine($"      not run:    {w}");
             foreach (var p in r.Problems) stdout.WriteLine($"      problem:    {p}");
         }
         stdout.WriteLine($"{results.Length - failed} rules passed, {failed} failed");

@@ -42,6 +42,7 @@ public sealed class JsonReporter : IReporter
         json.WriteNumber("motors", summary.Motors);
         json.WriteNumber("configurationErrors", summary.ConfigurationErrors);
         json.WriteNumber("internalErrors", summary.InternalErrors);
+        json.WriteNumber("notRun", summary.NotRun);
         json.WriteString("failOn", result.FailOn.Token());
         json.WriteNumber("exitCode", result.ExitCode);
         json.WriteEndObject();
@@ -65,6 +66,22 @@ public sealed class JsonReporter : IReporter
         foreach (var motor in result.Motors)
         {
             json.WriteStringValue(motor);
+        }
+        json.WriteEndArray();
+
+        // Always written (empty when every rule that applied was evaluated), so that a script can rely on it.
+        json.WriteStartArray("notRun");
+        foreach (var notRun in result.NotRun)
+        {
+            json.WriteStartObject();
+            json.WriteString("ruleId", notRun.RuleId);
+            json.WriteString("level", notRun.Level.Token());
+            json.WriteString("file", notRun.File);
+            json.WriteString("motor", notRun.Motor);
+            json.WriteStartArray("missing");
+            foreach (var path in notRun.MissingPaths) json.WriteStringValue(path);
+            json.WriteEndArray();
+            json.WriteEndObject();
         }
         json.WriteEndArray();
 

@@ -51,7 +51,8 @@ public sealed class MarkdownReporter : IReporter
         var findings = result.Findings.Where(f => f.RuleId != EngineRules.GateChange).ToList();
         var open = findings.Where(f => f.Suppression is null && f.BaselineState != BaselineState.Unchanged).ToList();
         var failing = open.Count(result.Fails);
-        md.Append(Invariant($"{Count(failing, "finding")} at or above fail-on level {FailOnToken(result.FailOn)}; {Count(result.FilesChecked, "setting file")} checked ({Count(result.Motors.Length, "motor")}); exit code {exit}.\n\n"));
+        var notRun = result.NotRun.IsEmpty ? "" : "; " + Count(result.NotRun.Length, "check") + " not run for missing data";
+        md.Append(Invariant($"{Count(failing, "finding")} at or above fail-on level {FailOnToken(result.FailOn)}; {Count(result.FilesChecked, "setting file")} checked ({Count(result.Motors.Length, "motor")}){notRun}; exit code {exit}.\n\n"));
 
         md.Append(baseline ? "| level | new | in the baseline | accepted in source |\n|---|---:|---:|---:|\n" : "| level | found | accepted in source |\n|---|---:|---:|\n");
         foreach (var level in (Level[])[Level.Error, Level.Warning, Level.Note])
@@ -104,6 +105,21 @@ public sealed class MarkdownReporter : IReporter
             {
                 md.Append("| ").Append(f.Level.Token()).Append(" | ").Append(Link(f.File, f.Span.StartLine)).Append(" | ").Append(Cell(f.Message)).Append(" |\n");
             }
+            md.Append('\n');
+        }
+
+        if (!result.NotRun.IsEmpty)
+        {
+            // A gate that passes must not read as "checked" where a rule could not run.
+            md.Append("### Checks not run for missing data\n\n");
+            md.Append(Invariant($"{Count(result.NotRun.Length, "check")} could not be evaluated because input data is missing; the gate does not cover them.\n\n"));
+            md.Append("| motor | rule | missing |\n|---|---|---|\n");
+            foreach (var n in result.NotRun.Take(MaxRows))
+            {
+                md.Append("| ").Append(Cell(n.Motor)).Append(' ').Append(Link(n.File, null)).Append(" | ").Append(n.RuleId).Append(" | ")
+                    .Append(Cell(string.Join(", ", n.MissingPaths.Select(p => "`" + p + "`")))).Append(" |\n");
+            }
+            if (result.NotRun.Length > MaxRows) md.Append(Invariant($"\n{result.NotRun.Length - MaxRows} more not shown; the JSON report has them all.\n"));
             md.Append('\n');
         }
 

@@ -21,6 +21,9 @@ public sealed record ReportSummary(
     int ConfigurationErrors,
     int InternalErrors)
 {
+    /// <summary>Rules that applied to a motor but were not evaluated because input data is missing.</summary>
+    public int NotRun { get; init; }
+
     /// <summary>Counts the findings and notifications of a result.</summary>
     public static ReportSummary Of(CheckResult result)
     {
@@ -38,16 +41,21 @@ public sealed record ReportSummary(
         }
         var configuration = result.Notifications.Count(static n => n.Kind == NotificationKind.Configuration);
         var internalErrors = result.Notifications.Count(static n => n.Kind == NotificationKind.Internal);
-        return new ReportSummary(errors, warnings, notes, suppressed, result.FilesChecked, result.Motors.Length, configuration, internalErrors);
+        return new ReportSummary(errors, warnings, notes, suppressed, result.FilesChecked, result.Motors.Length, configuration, internalErrors)
+        {
+            NotRun = result.NotRun.Length,
+        };
     }
 
-    /// <summary>One line for people, such as "3 errors, 1 warning, 0 notes in 12 files (7 motors); 1 suppressed".</summary>
+    /// <summary>One line for people, such as "3 errors, 1 warning, 0 notes in 12 files (7 motors); 1 suppressed; 2 checks not run for missing data".</summary>
     public string ToSentence()
     {
         var text = $"{Count(Errors, "error")}, {Count(Warnings, "warning")}, {Count(Notes, "note")} in {Count(Files, "file")} ({Count(Motors, "motor")})";
         if (Suppressed > 0) text += "; " + Suppressed.ToString(System.Globalization.CultureInfo.InvariantCulture) + " suppressed";
         if (ConfigurationErrors > 0) text += "; " + Count(ConfigurationErrors, "configuration error");
         if (InternalErrors > 0) text += "; " + Count(InternalErrors, "internal error");
+        // Clean must not silently mean "not checked": the count is there whenever a rule could not run.
+        if (NotRun > 0) text += "; " + Count(NotRun, "check") + " not run for missing data";
         return text;
     }
 

@@ -61,7 +61,7 @@ public sealed class SarifReporter : IReporter
         json.WriteEndObject();
 
         json.WriteStartArray("invocations");
-        WriteInvocation(json, result, context);
+        WriteInvocation(json, result, context, IndexOf);
         json.WriteEndArray();
 
         json.WriteStartObject("originalUriBaseIds");
@@ -333,7 +333,7 @@ public sealed class SarifReporter : IReporter
         json.WriteEndObject();
     }
 
-    private static void WriteInvocation(Utf8JsonWriter json, CheckResult result, ReportContext context)
+    private static void WriteInvocation(Utf8JsonWriter json, CheckResult result, ReportContext context, Func<string, int> ruleIndex)
     {
         json.WriteStartObject();
         if (context.Timestamps)
@@ -342,8 +342,8 @@ public sealed class SarifReporter : IReporter
             WriteTimestamp(json, "endTimeUtc", context.EndTimeUtc);
         }
         json.WriteNumber("exitCode", result.ExitCode);
-        WriteNotifications(json, "toolExecutionNotifications", result.Notifications, execution: true);
-        WriteNotifications(json, "toolConfigurationNotifications", result.Notifications, execution: false);
+        WriteNotifications(json, "toolExecutionNotifications", result.Notifications, execution: true, result.NotRun, ruleIndex);
+        WriteNotifications(json, "toolConfigurationNotifications", result.Notifications, execution: false, [], ruleIndex);
         json.WriteBoolean("executionSuccessful", result.Notifications.All(static n => n.Kind != NotificationKind.Internal));
         json.WriteEndObject();
     }
@@ -356,7 +356,11 @@ public sealed class SarifReporter : IReporter
     }
 
     // Internal errors are execution notifications, everything else configuration ones; an empty list is left out.
-    private static void WriteNotifications(Utf8JsonWriter json, string name, ImmutableArray<Notification> notifications, bool execution)
+    // A rule not evaluated for missing data is an execution notification too (level note, with its rule as
+    // associatedRule, SARIF 2.1.0 3.58.7): it says what the run could not do, and is not a result, which code
+    // scanning would show as an alert and a baseline would have to track.
+    private static void WriteNotifications(Utf8JsonWriter json, string name, ImmutableArray<Notification> notifications, bool execution,
+        ImmutableArray<CheckNotRun> notRun, Func<string, int> ruleIndex)
     {
         var started = false;
         foreach (var notification in notifications)
@@ -366,7 +370,33 @@ public sealed class SarifReporter : IReporter
             started = true;
             WriteNotification(json, notification);
         }
+        foreach (var n in notRun)
+        {
+            if (!started) json.WriteStartArray(name);
+            started = true;
+            WriteNotRun(json, n, ruleIndex(n.RuleId));
+        }
         if (started) json.WriteEndArray();
+    }
+
+    private static void WriteNotRun(Utf8JsonWriter json, CheckNotRun notRun, int ruleIndex)
+    {
+        json.WriteStartObject();
+        json.WriteStartArray("locations");
+        WriteLocation(json, notRun.File, null);
+        json.WriteEndArray();
+        WriteMessage(json, notRun.Sentence);
+        json.WriteString("level", "note");
+        json.WriteStartObject("associatedRule");
+        json.WriteString("id", notRun.RuleId);
+        if (ruleIndex >= 0) json.WriteNumber("index", ruleIndex);
+        json.WriteEndObject();
+        json.WriteStartObject("properties");
+        json.WriteStartArray("missingKeyPaths");
+        foreach (var path in notRun.MissingPaths) json.WriteStringValue(path);
+        json.WriteEndArray();
+        json.WriteEndObject();
+        json.WriteEndObject();
     }
 
     private static void WriteNotification(Utf8JsonWriter json, Notification notification)

@@ -59,7 +59,20 @@ public sealed class TextReporter : IReporter
                 WriteLine(output, $"  {id}  {title}  (settinglint rules show {id})");
             }
         }
+        WriteNotRun(result, context, output);
         WriteLine(output, ReportSummary.Of(result).ToSentence());
+    }
+
+    /// <summary>The rules not evaluated for missing data, one line per motor: "  motors/p-1.yaml (P-1): SL202 (bus.fault_current_min)".</summary>
+    private static void WriteNotRun(CheckResult result, ReportContext context, TextWriter output)
+    {
+        if (result.NotRun.IsEmpty) return;
+        WriteLine(output, "Checks not run for missing data:");
+        foreach (var motor in result.NotRun.GroupBy(n => (n.File, n.Motor)))
+        {
+            var path = ReportPaths.FromCurrentDirectory(result.RepositoryRoot, motor.Key.File, context.CurrentDirectory);
+            WriteLine(output, "  " + path + " (" + OneLine(motor.Key.Motor) + "): " + string.Join(", ", motor.Select(n => n.RuleId + " (" + n.MissingText + ")")));
+        }
     }
 
     /// <summary>The line that says what a changed-files run checked.</summary>

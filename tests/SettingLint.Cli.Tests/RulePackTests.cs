@@ -38,7 +38,7 @@ public sealed class RulePackTests
         var (results, problems) = FixtureRunner.Run(Path.Combine(RepositoryPaths.Root(), "rules"));
         Assert.Empty(problems.Select(p => $"{p.File}:{p.Span}: {p.Message}"));
         var failures = results.Where(r => !r.Passed)
-            .Select(r => r.RuleId + ": " + string.Join("; ", r.Missed.Select(m => "missed " + m).Concat(r.Unexpected.Select(u => "unexpected " + u)).Concat(r.WrongValues).Concat(r.Problems)))
+            .Select(r => r.RuleId + ": " + string.Join("; ", r.Missed.Select(m => "missed " + m).Concat(r.Unexpected.Select(u => "unexpected " + u)).Concat(r.WrongValues).Concat(r.WrongNotRun).Concat(r.Problems)))
             .ToList();
         Assert.Empty(failures);
         Assert.Equal(RuleLoader.BuiltIn().Count, results.Length);
@@ -65,6 +65,35 @@ public sealed class RulePackTests
             var result = Assert.Single(results, r => r.RuleId == "SL805");
             Assert.False(result.Passed);
             Assert.Contains(result.WrongValues, w => w.Contains("actual expected 6.53 s, found 6.51 s", StringComparison.Ordinal));
+        }
+        finally
+        {
+            Directory.Delete(pack, true);
+        }
+    }
+
+    [Theory]
+    [InlineData("# not-run: SL202 bus.fault_current_min\n", "", "SL202 was not run for missing bus.fault_current_min")]
+    [InlineData("# not-run: SL202 bus.fault_current_min\n", "# not-run: SL202 bus.fault_current_max\n", "SL202 expected not run for bus.fault_current_max, found bus.fault_current_min")]
+    public void A_check_not_run_must_match_its_marker(string marker, string replacement, string expected)
+    {
+        // SL202's fixture of a bus without its minimum fault current: the rule cannot be evaluated (no silent pass).
+        var pack = Path.Combine(Path.GetTempPath(), "sl-not-run-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            var rule = Path.Combine(pack, "SL202");
+            Directory.CreateDirectory(Path.Combine(rule, "fixtures"));
+            var source = Path.Combine(RepositoryPaths.Root(), "rules", "SL202");
+            File.Copy(Path.Combine(source, "rule.yaml"), Path.Combine(rule, "rule.yaml"));
+            foreach (var f in Directory.GetFiles(Path.Combine(source, "fixtures")))
+            {
+                File.WriteAllText(Path.Combine(rule, "fixtures", Path.GetFileName(f)), File.ReadAllText(f).Replace(marker, replacement, StringComparison.Ordinal));
+            }
+            var (results, problems) = FixtureRunner.Run(rule);
+            Assert.Empty(problems);
+            var result = Assert.Single(results, r => r.RuleId == "SL202");
+            Assert.False(result.Passed);
+            Assert.Contains(result.WrongNotRun, w => w.Contains(expected, StringComparison.Ordinal));
         }
         finally
         {

@@ -13,11 +13,36 @@ public sealed class JsonReporterTests
     {
         using var doc = Parse(Samples.Result(), Samples.Context());
         Assert.Equal(
-            ["tool", "root", "summary", "findings", "notifications", "motors"],
+            ["tool", "root", "summary", "findings", "notifications", "motors", "notRun"],
             doc.RootElement.EnumerateObject().Select(static p => p.Name));
         Assert.Equal("SettingLint", doc.RootElement.GetProperty("tool").GetProperty("name").GetString());
         Assert.Equal("0.1.0", doc.RootElement.GetProperty("tool").GetProperty("version").GetString());
         Assert.Equal(["K-201", "P-101A", "P-102"], doc.RootElement.GetProperty("motors").EnumerateArray().Select(static m => m.GetString()));
+    }
+
+    [Fact]
+    public void Checks_not_run_are_listed_with_their_missing_paths_and_counted()
+    {
+        var result = Samples.Result() with
+        {
+            NotRun =
+            [
+                new CheckNotRun("SL202", Level.Warning, "motors/P-101A.yaml", "P-101A", ["bus.fault_current_min"]),
+                new CheckNotRun("SL205", Level.Warning, "motors/P-101A.yaml", "P-101A", ["bus.upstream", "protection.short_circuit.delay"]),
+            ],
+        };
+        using var doc = Parse(result, Samples.Context());
+        Assert.Equal(2, doc.RootElement.GetProperty("summary").GetProperty("notRun").GetInt32());
+        var entries = doc.RootElement.GetProperty("notRun").EnumerateArray().ToList();
+        Assert.Equal(["ruleId", "level", "file", "motor", "missing"], entries[0].EnumerateObject().Select(static p => p.Name));
+        Assert.Equal(["SL202", "SL205"], entries.Select(static e => e.GetProperty("ruleId").GetString()));
+        Assert.Equal(["bus.upstream", "protection.short_circuit.delay"], entries[1].GetProperty("missing").EnumerateArray().Select(static p => p.GetString()));
+        Assert.Equal("P-101A", entries[0].GetProperty("motor").GetString());
+        Assert.Equal("warning", entries[0].GetProperty("level").GetString());
+
+        using var clean = Parse(Samples.Clean(), Samples.Context());
+        Assert.Equal(0, clean.RootElement.GetProperty("summary").GetProperty("notRun").GetInt32());
+        Assert.Empty(clean.RootElement.GetProperty("notRun").EnumerateArray());
     }
 
     [Theory]

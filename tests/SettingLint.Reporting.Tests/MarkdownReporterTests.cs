@@ -56,6 +56,21 @@ public sealed class MarkdownReporterTests
     }
 
     [Fact]
+    public void Checks_not_run_get_a_section_and_a_count_even_when_the_gate_passes()
+    {
+        var result = Samples.Clean() with
+        {
+            NotRun = [new CheckNotRun("SL202", Level.Warning, "motors/K-201.yaml", "K-201", ["bus.fault_current_min", "bus.upstream"])],
+        };
+        var md = Render(result);
+        Assert.StartsWith("## SettingLint: the gate passes\n", md, StringComparison.Ordinal);
+        Assert.Contains("(1 motor); 1 check not run for missing data; exit code 0.", md, StringComparison.Ordinal);
+        Assert.Contains("### Checks not run for missing data\n", md, StringComparison.Ordinal);
+        Assert.Contains("| K-201 [motors/K-201.yaml](motors/K-201.yaml) | SL202 | `bus.fault_current_min`, `bus.upstream` |\n", md, StringComparison.Ordinal);
+        Assert.DoesNotContain("not run", Render(Samples.Clean()), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Links_take_a_base_and_encode_the_path()
     {
         var md = Render(Known(), "https://git.example.invalid/plant/blob/0123abc/");

@@ -294,6 +294,22 @@ internal static class SarifReference
             }
         }
 
+        // Rules not evaluated for missing data: notes after the internal errors, each with its rule and missing paths.
+        var ruleIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var i = 0; i < result.Rules.Length; i++) ruleIndex.TryAdd(result.Rules[i].Id, i);
+        foreach (var notRun in result.NotRun)
+        {
+            var note = new SarifNotification
+            {
+                Level = FailureLevel.Note,
+                Message = new Message { Text = notRun.Sentence },
+                Locations = [new Location { PhysicalLocation = new PhysicalLocation { ArtifactLocation = ArtifactLocation(notRun.File) } }],
+                AssociatedRule = new ReportingDescriptorReference { Id = notRun.RuleId, Index = ruleIndex.TryGetValue(notRun.RuleId, out var index) ? index : -1 },
+            };
+            note.SetProperty("missingKeyPaths", notRun.MissingPaths.ToList());
+            execution.Add(note);
+        }
+
         var invocation = new Invocation
         {
             ExecutionSuccessful = result.Notifications.All(static n => n.Kind != NotificationKind.Internal),

@@ -73,6 +73,14 @@ public sealed class SarifReferenceTests
             new Notification(NotificationKind.Internal, "odd exception", Exception: "not a type: boom"),
             new Notification(NotificationKind.Configuration, "configuration with exception text", Span: new SourceSpan(1, 1, 1, 2), Exception: "System.Exception: x")),
             Samples.Context()),
+        ["not-run"] = () => (Samples.Result(Samples.Crash) with
+        {
+            NotRun =
+            [
+                new CheckNotRun("SL201", Level.Error, "motors/p-101a.yaml", "P-101A", ["bus.fault_current_min"]),
+                new CheckNotRun("SL999", Level.Warning, "motors/Pümpe 3.yaml", "P-3", ["bus", "relay_model"]),
+            ],
+        }, Samples.Context()),
         ["another-tool"] = () => (Samples.Result(), Samples.Context() with { Tool = new ToolInfo(" ", "", new Uri("/opt/settinglint/docs", UriKind.Absolute)) }),
     };
 
@@ -242,6 +250,14 @@ public sealed class SarifReferenceTests
             "Not A Type: x", "A.B`1+C_d: y", "Ä: z")).Null(0.3)
         select new Notification(kind, message, file, span, exception);
 
+    private static readonly Gen<CheckNotRun> NotRunGen =
+        from ruleId in RuleId
+        from level in Gen.Enum<Level>()
+        from file in File
+        from motor in Text
+        from paths in Gen.OneOf(Text, Gen.OneOf("bus", "relay_model", "bus.upstream", "motor.no_load_current")).Array[1, 3]
+        select new CheckNotRun(ruleId, level, file, motor, [.. paths]);
+
     private static readonly Gen<AbsentResult> Absent =
         from ruleId in RuleId
         from file in File
@@ -271,6 +287,7 @@ public sealed class SarifReferenceTests
         from failOn in Gen.Enum<Level>()
         from baselineFile in Gen.OneOf(".settinglint-baseline.yaml", "/etc/settinglint/baseline.yaml", "base line.yaml").Null(0.4)
         from absent in Absent.Array[0, 3]
+        from notRun in NotRunGen.Array[0, 3]
         from timestamps in Gen.Bool
         from omitSuppressed in Gen.Bool
         from start in Time
@@ -280,6 +297,7 @@ public sealed class SarifReferenceTests
             {
                 BaselineFile = baselineFile,
                 Absent = [.. absent],
+                NotRun = [.. notRun],
             },
             new ReportContext("/r", timestamps, omitSuppressed, tool) { StartTimeUtc = start, EndTimeUtc = end });
 }

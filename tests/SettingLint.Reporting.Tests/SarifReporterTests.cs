@@ -201,6 +201,27 @@ public sealed class SarifReporterTests
     }
 
     [Fact]
+    public void Checks_not_run_are_execution_notes_with_their_rule_and_missing_paths_not_results()
+    {
+        var result = Samples.Clean() with
+        {
+            NotRun = [new CheckNotRun(Samples.Clean().Rules[1].Id, Level.Warning, "motors/K-201.yaml", "K-201", ["bus.fault_current_min"])],
+        };
+        using var doc = Parse(result);
+        var run = Run(doc);
+        Assert.Empty(run.GetProperty("results").EnumerateArray());
+        var invocation = run.GetProperty("invocations")[0];
+        Assert.True(invocation.GetProperty("executionSuccessful").GetBoolean());
+        Assert.Equal(ExitCodes.Clean, invocation.GetProperty("exitCode").GetInt32());
+        var n = Assert.Single(invocation.GetProperty("toolExecutionNotifications").EnumerateArray());
+        Assert.Equal("note", n.GetProperty("level").GetString());
+        Assert.Equal(Samples.Clean().Rules[1].Id, n.GetProperty("associatedRule").GetProperty("id").GetString());
+        Assert.Equal(1, n.GetProperty("associatedRule").GetProperty("index").GetInt32());
+        Assert.Equal("motors/K-201.yaml", n.GetProperty("locations")[0].GetProperty("physicalLocation").GetProperty("artifactLocation").GetProperty("uri").GetString());
+        Assert.Equal(["bus.fault_current_min"], n.GetProperty("properties").GetProperty("missingKeyPaths").EnumerateArray().Select(static p => p.GetString()));
+    }
+
+    [Fact]
     public void Timestamps_are_written_only_when_asked_for()
     {
         var start = new DateTimeOffset(2025, 3, 1, 8, 30, 0, TimeSpan.Zero);

@@ -7,12 +7,17 @@ namespace SettingLint.Reporting.Tests;
 /// <summary>The SARIF output against the schema shipped in the Sarif.Sdk package and against the SDK's own validator.</summary>
 public sealed class SarifValidationTests(ITestOutputHelper output)
 {
-    public static TheoryData<string> Cases => ["findings", "clean", "notifications", "omit-suppressed"];
+    public static TheoryData<string> Cases => ["findings", "clean", "notifications", "omit-suppressed", "not-run"];
 
     internal static (CheckResult Result, ReportContext Context) Case(string name) => name switch
     {
         "findings" => (Samples.Result(), Samples.Context("/r/motors")),
         "clean" => (Samples.Clean(), Samples.Context()),
+        // Rules not evaluated for missing data: notes among the execution notifications, with their rule.
+        "not-run" => (Samples.Clean() with
+        {
+            NotRun = [new CheckNotRun(Samples.Clean().Rules[0].Id, Level.Warning, "motors/p-101a.yaml", "P-101A", ["bus.fault_current_min", "bus.upstream"])],
+        }, Samples.Context()),
         "notifications" => (Samples.Result(Samples.BadConfig, Samples.Crash,
             new Notification(NotificationKind.Configuration, "rule file is empty", "rules/SL900.yaml")),
             Samples.Context() with { Timestamps = true, StartTimeUtc = DateTimeOffset.UnixEpoch, EndTimeUtc = DateTimeOffset.UnixEpoch.AddSeconds(1) }),

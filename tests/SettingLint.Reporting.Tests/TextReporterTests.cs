@@ -96,6 +96,33 @@ public sealed class TextReporterTests
         Assert.Equal(expected, new ReportSummary(errors, warnings, notes, suppressed, files, motors, configuration, internalErrors).ToSentence());
     }
 
+    [Theory]
+    [InlineData(1, "0 errors, 0 warnings, 0 notes in 1 file (1 motor); 1 check not run for missing data")]
+    [InlineData(3, "0 errors, 0 warnings, 0 notes in 1 file (1 motor); 3 checks not run for missing data")]
+    public void The_summary_says_how_many_checks_were_not_run(int notRun, string expected)
+    {
+        Assert.Equal(expected, (new ReportSummary(0, 0, 0, 0, 1, 1, 0, 0) { NotRun = notRun }).ToSentence());
+    }
+
+    [Fact]
+    public void A_clean_run_with_checks_not_run_lists_them_per_motor_with_the_missing_keys()
+    {
+        var result = Samples.Clean() with
+        {
+            NotRun =
+            [
+                new CheckNotRun("SL202", Level.Warning, "motors/K-201.yaml", "K-201", ["bus.fault_current_min"]),
+                new CheckNotRun("SL301", Level.Error, "motors/K-201.yaml", "K-201", ["bus.ground_fault_current"]),
+            ],
+        };
+        Assert.Equal(
+        [
+            "Checks not run for missing data:",
+            "  ../motors/K-201.yaml (K-201): SL202 (bus.fault_current_min), SL301 (bus.ground_fault_current)",
+            "0 errors, 0 warnings, 0 notes in 1 file (1 motor); 2 checks not run for missing data",
+        ], Lines(result, Samples.Context("/r/ci")));
+    }
+
     [Fact]
     public void Summary_counts_levels_of_unsuppressed_findings_only()
     {

@@ -196,6 +196,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             options.FailOn)
         {
             CheckedFiles = [.. reported.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
+            NotRun = [.. reported.SelectMany(s => s.Findings.NotRun).Order(CheckNotRun.Order)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
         };
     }

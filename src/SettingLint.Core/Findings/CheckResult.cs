@@ -47,6 +47,9 @@ public sealed record CheckResult(
     /// <summary>Root-relative paths of the setting files whose findings are reported, sorted.</summary>
     public ImmutableArray<string> CheckedFiles { get; init; } = [];
 
+    /// <summary>Rules that applied to a motor but were not evaluated because input data is missing, in <see cref="CheckNotRun.Order"/>.</summary>
+    public ImmutableArray<CheckNotRun> NotRun { get; init; } = [];
+
     /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
     public ChangeScope? Scope { get; init; }
 }

@@ -8,6 +8,9 @@ public sealed class FindingBuilder(string file)
 {
     private readonly List<Finding> _findings = [];
 
+    // Few: only rules stopped by missing data; made on first use.
+    private List<CheckNotRun>? _notRun;
+
     public string File { get; } = file;
 
     public IReadOnlyList<Finding> Findings => _findings;
@@ -25,6 +28,24 @@ public sealed class FindingBuilder(string file)
 
     /// <summary>Adds a finding made elsewhere (a rule's).</summary>
     public void Add(Finding finding) => _findings.Add(finding);
+
+    /// <summary>The rules not evaluated on this file's motor for missing data, one entry per rule.</summary>
+    public IReadOnlyList<CheckNotRun> NotRun => (IReadOnlyList<CheckNotRun>?)_notRun ?? [];
+
+    /// <summary>Records a rule not evaluated for missing data; a rule stopped again (at another relay range) adds its paths to its entry.</summary>
+    public void AddNotRun(CheckNotRun notRun)
+    {
+        ArgumentNullException.ThrowIfNull(notRun);
+        _notRun ??= [];
+        var at = _notRun.FindIndex(n => n.RuleId == notRun.RuleId);
+        if (at < 0)
+        {
+            _notRun.Add(notRun);
+            return;
+        }
+        var merged = _notRun[at].MissingPaths.Union(notRun.MissingPaths, StringComparer.Ordinal).Order(StringComparer.Ordinal);
+        _notRun[at] = _notRun[at] with { MissingPaths = [.. merged] };
+    }
 
     /// <summary>Whether a finding of a rule is already recorded at a span (avoids reporting one fault twice).</summary>
     public bool Has(string ruleId, SourceSpan span) => _findings.Exists(f => f.RuleId == ruleId && f.Span == span);

@@ -30,6 +30,12 @@ public sealed record Compiled(ExprType Type, Func<EvalContext, Val> Eval, Expr S
     internal Compiled[]? JunctionOperands { get; init; }
 
     /// <summary>
+    /// The expressions this one is computed from (operands, arguments), so that an absent value can be traced to the
+    /// absent key paths that made it absent; null for a leaf and for an aggregate over other motors.
+    /// </summary>
+    internal Compiled[]? Operands { get; init; }
+
+    /// <summary>
     /// The same value as <see cref="Eval"/>: leaves are read in place, since a delegate call costs more than what most
     /// leaves do (an array read), and every operator has leaves below it.
     /// </summary>
@@ -192,10 +198,10 @@ public sealed class Compiler
         if (u.Op == "not")
         {
             if (x.Type.Kind != ValKind.Bool) throw new RuleSyntaxException($"'not' needs true/false, not {x.Type}.", u.Offset);
-            return new(ExprType.Bool, ctx => x.Get(ctx) is { IsAbsent: false } v ? Val.Of(!v.Flag) : Val.Absent, u);
+            return new(ExprType.Bool, ctx => x.Get(ctx) is { IsAbsent: false } v ? Val.Of(!v.Flag) : Val.Absent, u) { Operands = [x] };
         }
         if (x.Type.Kind != ValKind.Number) throw new RuleSyntaxException($"'-' needs a number, not {x.Type}.", u.Offset);
-        return new(x.Type, ctx => x.Get(ctx) is { IsAbsent: false } v ? Val.Of(-v.Number) : Val.Absent, u) { Percent = x.Percent };
+        return new(x.Type, ctx => x.Get(ctx) is { IsAbsent: false } v ? Val.Of(-v.Number) : Val.Absent, u) { Percent = x.Percent, Operands = [x] };
     }
 
     private Compiled CompileBinary(Binary b, Scope scope)
@@ -224,26 +230,26 @@ public sealed class Compiler
                         else if (v.Flag == decisive) return decisive ? True : False;
                     }
                     return absent ? Val.Absent : decisive ? False : True;
-                }, b) { Junction = b.Op, JunctionOperands = operands };
+                }, b) { Junction = b.Op, JunctionOperands = operands, Operands = operands };
             }
             case "+" or "-":
                 Numbers(l, r, b);
                 if (l.Type.Dim != r.Type.Dim) throw new RuleSyntaxException($"'{b.Op}' needs values of one dimension, not {l.Type} and {r.Type}.", b.Offset);
                 return b.Op == "+"
-                    ? new(l.Type, ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x + y) : Val.Absent, b) { Percent = l.Percent || r.Percent }
-                    : new(l.Type, ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x - y) : Val.Absent, b) { Percent = l.Percent || r.Percent };
+                    ? new(l.Type, ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x + y) : Val.Absent, b) { Percent = l.Percent || r.Percent, Operands = [l, r] }
+                    : new(l.Type, ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x - y) : Val.Absent, b) { Percent = l.Percent || r.Percent, Operands = [l, r] };
             case "*":
                 Numbers(l, r, b);
-                return new(ExprType.Num(l.Type.Dim * r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x * y) : Val.Absent, b) { Percent = l.Percent ^ r.Percent && l.Type.Dim == Dim.None && r.Type.Dim == Dim.None };
+                return new(ExprType.Num(l.Type.Dim * r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x * y) : Val.Absent, b) { Percent = l.Percent ^ r.Percent && l.Type.Dim == Dim.None && r.Type.Dim == Dim.None, Operands = [l, r] };
             case "/":
                 Numbers(l, r, b);
-                return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x / y) : Val.Absent, b);
+                return new(ExprType.Num(l.Type.Dim / r.Type.Dim), ctx => Arith(l.Get(ctx), r.Get(ctx), out var x, out var y) ? Val.Of(x / y) : Val.Absent, b) { Operands = [l, r] };
             default:
                 if (l.Type != r.Type) throw new RuleSyntaxException($"'{b.Op}' compares {l.Type} with {r.Type}.", b.Offset);
                 if (l.Type.Kind == ValKind.StartProfile) throw new RuleSyntaxException($"'{b.Op}' cannot compare start profiles; compare what a function reads from them.", b.Offset);
                 if (l.Type.Kind != ValKind.Number && b.Op is not ("==" or "!=")) throw new RuleSyntaxException($"'{b.Op}' compares numbers, not {l.Type}.", b.Offset);
                 var op = Comparisons.Of(b.Op);
-                return new(ExprType.Bool, ctx => Compare(op, l.Get(ctx), r.Get(ctx)), b);
+                return new(ExprType.Bool, ctx => Compare(op, l.Get(ctx), r.Get(ctx)), b) { Operands = [l, r] };
         }
     }
 
@@ -347,7 +353,7 @@ public sealed class Compiler
                 // Data outside a method's domain (a zero time constant) is reported by the file checks, not by a crash here.
                 return Val.Absent;
             }
-        }, c) { Percent = percent };
+        }, c) { Percent = percent, Operands = args };
     }
 
     private Compiled CompileAggregate(Call c, Scope scope)

@@ -25,19 +25,27 @@ public sealed record FixtureResult(string RuleId, string Folder, ImmutableArray<
     /// <summary>How many named values the markers checked (and found right).</summary>
     public int CheckedValues { get; init; }
 
-    public bool Passed => Missed.IsEmpty && Unexpected.IsEmpty && Problems.IsEmpty && WrongValues.IsEmpty;
+    /// <summary>Checks not run for missing data that differ from the `# not-run:` markers, one line each.</summary>
+    public ImmutableArray<string> WrongNotRun { get; init; } = [];
+
+    public bool Passed => Missed.IsEmpty && Unexpected.IsEmpty && Problems.IsEmpty && WrongValues.IsEmpty && WrongNotRun.IsEmpty;
 }
 
 /// <summary>
 /// Runs rule fixtures. A `# expect: SL201 SL202` comment says those rules must fire on the next line;
 /// every other line of the folder's files must be clean for the folder's own rule. A rule id may be followed by
 /// named values, `# expect: SL201 limit=858 A actual=750 A`, which the finding must carry to the precision written
-/// (half a unit of the last digit).
+/// (half a unit of the last digit). A `# not-run: SL202 bus.fault_current_min` comment anywhere in a file says that the
+/// rule applies to the file's motor but cannot be evaluated, for exactly those missing key paths; the folder's own rule
+/// may be "not run" on no other file.
 /// </summary>
 public static partial class FixtureRunner
 {
     [GeneratedRegex(@"^\s*#\s*expect:\s*(?<ids>.*)$", RegexOptions.CultureInvariant)]
     private static partial Regex Marker();
+
+    [GeneratedRegex(@"^\s*#\s*not-run:\s*(?<body>.*)$", RegexOptions.CultureInvariant)]
+    private static partial Regex NotRunMarker();
 
     [GeneratedRegex(@"^[A-Z]{2,8}[0-9]{3}$", RegexOptions.CultureInvariant)]
     private static partial Regex RuleId();
@@ -78,6 +86,7 @@ public static partial class FixtureRunner
         foreach (var n in result.Notifications) problems.Add((n.File is null ? "" : n.File + ": ") + n.Message);
         var expected = new HashSet<FixtureLine>();
         var expectedValues = new Dictionary<FixtureLine, (int MarkerLine, ImmutableArray<MarkerValue> Values)>();
+        var expectedNotRun = new Dictionary<(string File, string RuleId), string>();
         var files = Directory.EnumerateFiles(fixtures, "*.yaml", SearchOption.AllDirectories).OrderBy(f => f, StringComparer.Ordinal);
         foreach (var file in files)
         {
@@ -85,6 +94,17 @@ public static partial class FixtureRunner
             var lines = File.ReadAllLines(file);
             for (var i = 0; i < lines.Length; i++)
             {
+                if (NotRunMarker().Match(lines[i]) is { Success: true } nr)
+                {
+                    var words = nr.Groups["body"].Value.Split([' ', ',', '\t'], StringSplitOptions.RemoveEmptyEntries);
+                    if (words.Length < 2 || !RuleId().IsMatch(words[0]) || !known.Contains(words[0]))
+                    {
+                        problems.Add($"{rel}:{i + 1}: a not-run marker names a known rule and the missing key paths: '# not-run: SL202 bus.fault_current_min'.");
+                        continue;
+                    }
+                    expectedNotRun[(rel, words[0])] = string.Join(", ", words.Skip(1).Order(StringComparer.Ordinal));
+                    continue;
+                }
                 var m = Marker().Match(lines[i]);
                 if (!m.Success) continue;
                 var target = i + 1;
@@ -120,7 +140,31 @@ public static partial class FixtureRunner
             }
         }
         var (wrong, checkedValues) = CompareValues(result.Findings, expectedValues);
-        return new FixtureResult(ruleId, fixtures, missed, unexpected, problems.ToImmutable(), expected.Count) { WrongValues = wrong, CheckedValues = checkedValues };
+        return new FixtureResult(ruleId, fixtures, missed, unexpected, problems.ToImmutable(), expected.Count)
+        {
+            WrongValues = wrong,
+            CheckedValues = checkedValues,
+            WrongNotRun = CompareNotRun(ruleId, result.NotRun, expectedNotRun),
+        };
+    }
+
+    /// <summary>The checks not run of the folder's rule and of the rules the markers name, against the markers.</summary>
+    private static ImmutableArray<string> CompareNotRun(string ruleId, ImmutableArray<CheckNotRun> notRun, Dictionary<(string File, string RuleId), string> expected)
+    {
+        var wrong = ImmutableArray.CreateBuilder<string>();
+        var named = expected.Keys.Select(k => k.RuleId).Append(ruleId).ToHashSet(StringComparer.Ordinal);
+        var actual = notRun.Where(n => named.Contains(n.RuleId) && (n.RuleId == ruleId || expected.ContainsKey((n.File, n.RuleId))))
+            .ToDictionary(n => (n.File, n.RuleId), n => n.MissingText);
+        foreach (var (key, paths) in expected.OrderBy(e => e.Key.File, StringComparer.Ordinal))
+        {
+            if (!actual.TryGetValue(key, out var got)) wrong.Add($"{key.File}: {key.RuleId} expected not run for {paths}, but it was evaluated or did not apply");
+            else if (got != paths) wrong.Add($"{key.File}: {key.RuleId} expected not run for {paths}, found {got}");
+        }
+        foreach (var (key, paths) in actual.OrderBy(a => a.Key.File, StringComparer.Ordinal))
+        {
+            if (!expected.ContainsKey(key)) wrong.Add($"{key.File}: {key.RuleId} was not run for missing {paths} (add '# not-run: {key.RuleId} {paths.Replace(",", "", StringComparison.Ordinal)}' if that is intended)");
+        }
+        return wrong.ToImmutable();
     }
 
     private static (ImmutableArray<string> Wrong, int Checked) CompareValues(

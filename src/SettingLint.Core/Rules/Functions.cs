@@ -9,7 +9,8 @@ namespace SettingLint.Core.Rules;
 /// <param name="MaxArgs">Most arguments (int.MaxValue for variadic).</param>
 /// <param name="Type">Checks argument types and gives the result type, or throws with the problem.</param>
 /// <param name="Body">Computes the result from present arguments (absent arguments make the result absent, except for coalesce and present).</param>
-public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false);
+/// <param name="OptionalArgs">For a function that takes absent arguments: the positions (from 0) of the arguments whose absence alone never makes the result absent (hot_level's full-load level), so that a missing optional key is not reported as the reason a rule was not run.</param>
+public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false, int[]? OptionalArgs = null);
 
 /// <summary>A function's body over its evaluated arguments (a span, so that a call needs no array).</summary>
 public delegate Val FunctionBody(ReadOnlySpan<Val> args);
@@ -37,10 +38,10 @@ public static class Functions
             a => Val.Of(NecOverloadLimit.MaximumFraction(a[0].IsAbsent ? null : a[0].Number)), TakesAbsent: true);
         yield return new("thermal_trip", 4, 4, t => Expect(t, Dim.Time, Dim.Current, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[1].Number, a[2].Number, a[2].Number).TripTimeFrom(a[0].Number, a[3].Number).Seconds));
-        yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true);
+        yield return new("hot_level", 2, 3, HotLevelType, HotLevel, TakesAbsent: true, OptionalArgs: [2]);
         yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartPoint(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
-        yield return new("start_profile", 6, 6, StartProfileType, StartProfileOf, TakesAbsent: true);
+        yield return new("start_profile", 6, 6, StartProfileType, StartProfileOf, TakesAbsent: true, OptionalArgs: [2, 3]);
         yield return new("start_longest", 1, 1, t => ProfileFirst(t, Dim.Time), a => Val.Of(a[0].Profile!.LongestDuration));
         yield return new("stall_current", 1, 1, t => ProfileFirst(t, Dim.Current), a => Val.Of(a[0].Profile!.StallCurrent));
         yield return new("stall_time", 2, 2, t => ProfileFirst(t, Dim.Time, Dim.Time), a => Val.Of(a[0].Profile!.StallTime(a[1].Number)));
@@ -54,9 +55,9 @@ public static class Functions
         yield return new("restart_interval", 4, 4, t => ProfileFirst(t, Dim.Time, Dim.Current, Dim.Time, Dim.Time),
             a => Val.Of(a[0].Profile!.TimeBetweenStarts(Model(a[1], a[2], a[3]))));
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
-        yield return new("ct_limit", 2, 4, CtLimitType, CtLimit, TakesAbsent: true);
-        yield return new("ct_saturation", 5, 7, CtSaturationType, CtSaturationValue, TakesAbsent: true);
-        yield return new("ct_class_complete", 2, 3, CtClassCompleteType, CtClassComplete, TakesAbsent: true);
+        yield return new("ct_limit", 2, 4, CtLimitType, CtLimit, TakesAbsent: true, OptionalArgs: [3]);
+        yield return new("ct_saturation", 5, 7, CtSaturationType, CtSaturationValue, TakesAbsent: true, OptionalArgs: [6]);
+        yield return new("ct_class_complete", 2, 3, CtClassCompleteType, CtClassComplete, TakesAbsent: true, OptionalArgs: [2]);
         yield return new("coverage", 2, 2, t => Expect(t, Dim.None, Dim.Current, Dim.Current), a => Val.Of(GroundFaultCoverage.ProtectedPercent(a[0].Number, a[1].Number) / 100));
         yield return new("asym_factor", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(AsymmetricalCurrent.DecayingRmsFactor(a[0].Number)));
         yield return new("asym_factor_at", 3, 3, t => Expect(t, Dim.None, Dim.None, Dim.Of(Quantities.Dimension.Frequency), Dim.Time),

@@ -171,7 +171,12 @@ public sealed class RuleSet : IStagedRuleSet
             return;
         }
         var motor = ctx.Motor;
-        if (motor.RelayModel is null) return;
+        if (motor.RelayModel is null)
+        {
+            // The rule reads the relay's ranges, and the motor names no relay model (or one that is not there).
+            findings.AddNotRun(new CheckNotRun(rule.Id, rule.Level, motor.Document.RelativePath, motor.Tag, ["relay_model"]));
+            return;
+        }
         var ranges = motor.RelayModel.Ranges;
         var infos = ctx.Run!.Ranges(motor.RelayModel);
         var refs = new SettingReferences.ByTransformer();
@@ -202,9 +207,22 @@ public sealed class RuleSet : IStagedRuleSet
         {
             if (lets[i]) ctx.Lets[i] = rule.Lets[i].Value.Get(ctx);
         }
-        if (rule.When is not null && rule.When.Get(ctx) is not { IsAbsent: false, Flag: true }) return;
+        if (rule.When is not null)
+        {
+            var guard = rule.When.Get(ctx);
+            if (guard.IsAbsent)
+            {
+                NotRun(rule, ctx, rule.When, null, findings);
+                return;
+            }
+            if (!guard.Flag) return;
+        }
         var result = Check(rule.Check, ctx, out var numbers);
-        if (result.IsAbsent) return;
+        if (result.IsAbsent)
+        {
+            NotRun(rule, ctx, null, rule.Check, findings);
+            return;
+        }
         var passed = result.Flag;
         // The subject, the bounds and every number shown are made only for a report that listens or for a finding.
         if (Outcomes is not null)
@@ -214,6 +232,15 @@ public sealed class RuleSet : IStagedRuleSet
         }
         if (passed) return;
         AddFinding(rule, ctx, range, plan, numbers, findings);
+    }
+
+    /// <summary>Records a rule stopped by missing data, with the key paths that are missing; a rule that does not apply is not recorded.</summary>
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private static void NotRun(CompiledRule rule, EvalContext ctx, Compiled? when, CheckNode? check, FindingBuilder findings)
+    {
+        var missing = MissingData.Of(rule, ctx, when, check);
+        if (missing.IsEmpty) return;
+        findings.AddNotRun(new CheckNotRun(rule.Id, rule.Level, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, missing));
     }
 
     // Apart from EvaluateOnce, which runs for every rule and motor: most checks pass, and this is what a failed one costs.

@@ -46,6 +46,8 @@ internal static class HtmlPage
         .b-fixed { background: var(--pass-bg); color: var(--pass); }
         .b-added { background: #4b3a8f; color: #fff; }
         .b-removed, .b-empty { background: #5b6573; color: #fff; }
+        .b-notrun { background: #fff; color: #6a4a00; border: 1px dashed #6a4a00; }
+        td.notrun { color: #6a4a00; font-weight: 600; }
         .was { color: var(--muted); font-size: 12px; display: block; }
         .path { white-space: nowrap; }
         figure { margin: 12px 0 20px; background: var(--panel); border: 1px solid var(--line); padding: 8px; overflow-x: auto; }

@@ -75,10 +75,12 @@ public static class HtmlReport
         sb.Append("</p>\n");
         sb.Append("<div class=\"chips\">").Append(Chip(summary.Errors, "errors", "b-error")).Append(Chip(summary.Warnings, "warnings", "b-warning"))
             .Append(Chip(summary.Notes, "notes", "b-note")).Append(Chip(model.Motors.Sum(m => m.NearMisses), "near misses", "b-near"))
-            .Append(Chip(summary.Suppressed, "suppressed", "b-passed")).Append("</div>\n");
+            .Append(Chip(summary.Suppressed, "suppressed", "b-passed"));
+        if (summary.NotRun > 0) sb.Append(Chip(summary.NotRun, "checks not run for missing data", "b-notrun"));
+        sb.Append("</div>\n");
 
         sb.Append("<h2 id=\"motors\">Motors</h2>\n<table class=\"motors\">\n<thead><tr><th>Motor</th><th>Title</th><th>Bus</th><th class=\"num\">Errors</th><th class=\"num\">Warnings</th>")
-            .Append("<th class=\"num\">Notes</th><th class=\"num\">Near misses</th><th class=\"num\">Rules passed</th><th>Worst margin</th>");
+            .Append("<th class=\"num\">Notes</th><th class=\"num\">Near misses</th><th class=\"num\">Rules passed</th><th class=\"num\">Not run</th><th>Worst margin</th>");
         if (model.ChangedSince is not null) sb.Append("<th>Change</th>");
         sb.Append("</tr></thead>\n<tbody>\n");
         foreach (var m in model.Motors)
@@ -93,6 +95,8 @@ public static class HtmlReport
                 .Append("<td class=\"num\">").Append(Int(m.Count(Level.Note))).Append("</td>")
                 .Append("<td class=\"num\">").Append(Int(m.NearMisses)).Append("</td>")
                 .Append("<td class=\"num\">").Append(Int(m.Passed)).Append(" / ").Append(Int(m.Margins.Length)).Append("</td>")
+                .Append("<td class=\"num").Append(m.NotRun.IsEmpty ? "" : " notrun").Append("\" title=\"").Append(Escape(string.Join("; ", m.NotRun.Select(n => n.RuleId + ": " + n.MissingText))))
+                .Append("\">").Append(Int(m.NotRun.Length)).Append("</td>")
                 .Append("<td>").Append(WorstText(m)).Append("</td>");
             if (model.ChangedSince is not null) sb.Append("<td>").Append(ChangeBadge(m.Change)).Append("</td>");
             sb.Append("</tr>\n");
@@ -141,13 +145,17 @@ public static class HtmlReport
         sb.Append("<div class=\"chips\">").Append(Chip(m.Count(Level.Error), "errors", "b-error")).Append(Chip(m.Count(Level.Warning), "warnings", "b-warning"))
             .Append(Chip(m.Count(Level.Note), "notes", "b-note")).Append(Chip(m.NearMisses, "near misses", "b-near"))
             .Append(Chip(m.Passed, "of " + Int(m.Margins.Length) + " rules passed", "b-passed"));
+        if (!m.NotRun.IsEmpty) sb.Append(Chip(m.NotRun.Length, "not run for missing data", "b-notrun"));
         if (m.Change is { } ch) sb.Append("<span class=\"chip\">").Append(ChangeBadge(ch)).Append(" since <code>").Append(Escape(model.ChangedSince)).Append("</code></span>");
         sb.Append("</div>\n");
         sb.Append("<nav class=\"toc\">");
         if (m.Change is not null) sb.Append("<a href=\"#changes\">Changes</a>");
+        if (!m.NotRun.IsEmpty) sb.Append("<a href=\"#not-run\">Not run</a>");
         sb.Append("<a href=\"#findings\">Findings</a><a href=\"#plots\">Plots</a><a href=\"#windows\">Setting windows</a><a href=\"#margins\">Margins</a></nav>\n");
 
         if (m.Change is { } change) Changes(sb, model, change);
+
+        NotRunSection(sb, model, m);
 
         sb.Append("<h2 id=\"findings\">Findings</h2>\n");
         if (m.Findings.IsEmpty) sb.Append("<p>No findings.</p>\n");
@@ -228,6 +236,24 @@ public static class HtmlReport
         }
         var links = " <a href=\"../index.html\">All motors</a>";
         return HtmlPage.Render(m.Tag + ": settings review", links, sb.ToString(), model.Tool, Caution);
+    }
+
+    // Before the findings: a motor with no findings must not read as checked where a rule could not run.
+    private static void NotRunSection(StringBuilder sb, ReportModel model, MotorReport m)
+    {
+        if (m.NotRun.IsEmpty) return;
+        sb.Append("<h2 id=\"not-run\">Checks not run for missing data</h2>\n");
+        sb.Append("<p class=\"meta\">These rules apply to this motor but could not be evaluated, because the data they need is missing. ")
+            .Append("Give the data, or know that these points are not checked.</p>\n");
+        sb.Append("<table class=\"not-run\">\n<thead><tr><th>Rule</th><th>Level</th><th>Missing</th></tr></thead>\n<tbody>\n");
+        var titles = model.Result.Rules.ToLookup(r => r.Id, r => r.Title, StringComparer.Ordinal);
+        foreach (var n in m.NotRun)
+        {
+            sb.Append("<tr data-rule=\"").Append(Escape(n.RuleId)).Append("\"><td><b>").Append(Escape(n.RuleId)).Append("</b> ").Append(Escape(titles[n.RuleId].FirstOrDefault() ?? ""))
+                .Append("</td><td>").Append(Escape(n.Level.Token())).Append("</td><td>")
+                .Append(string.Join(", ", n.MissingPaths.Select(p => "<code>" + Escape(p) + "</code>"))).Append("</td></tr>\n");
+        }
+        sb.Append("</tbody>\n</table>\n");
     }
 
     private static void Changes(StringBuilder sb, ReportModel model, MotorChange c)

@@ -22,6 +22,7 @@ public static class ReportBuilder
         var windows = SettingWindows.Derive(data.Outcomes).ToLookup(w => w.MotorFile, StringComparer.Ordinal);
         var outcomes = data.Outcomes.ToLookup(o => o.MotorFile, StringComparer.Ordinal);
         var findings = data.Result.Findings.ToLookup(f => f.File, StringComparer.Ordinal);
+        var notRun = data.Result.NotRun.ToLookup(n => n.File, StringComparer.Ordinal);
         var slugs = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
         var motors = ImmutableArray.CreateBuilder<MotorReport>();
         foreach (var motor in data.Motors)
@@ -37,12 +38,27 @@ public static class ReportBuilder
                 RelayModel = motor.RelayModel?.Tag,
                 Slug = UniqueSlug(motor.Tag, slugs),
                 Findings = own,
+                NotRun = [.. notRun[file]],
                 Margins = Margins(outcomes[file], motor, own, titles, nearMiss),
                 Windows = [.. windows[file].Select(w => View(w, motor.Document))],
-                Plot = MotorPlotData.From(motor),
+                Plot = WithRuleLimits(MotorPlotData.From(motor), outcomes[file]),
             });
         }
         return new ReportModel(data.Result, motors.ToImmutable(), nearMiss, tool);
+    }
+
+    /// <summary>
+    /// The plot with the asymmetrical start current that SL201 compared with in this run (its parameter may be set by the
+    /// repository, and its limit may follow the element's delay), where the rule applied.
+    /// </summary>
+    public static MotorPlotData WithRuleLimits(MotorPlotData plot, IEnumerable<RuleOutcome> outcomes)
+    {
+        ArgumentNullException.ThrowIfNull(plot);
+        ArgumentNullException.ThrowIfNull(outcomes);
+        var sl201 = outcomes.FirstOrDefault(o => o.RuleId == "SL201" && o.Numbers is { Limit: > 0 } n && double.IsFinite(n.Limit));
+        if (sl201?.Numbers is not { } numbers || plot.AsymmetricalStartCurrent is not { } drawn || plot.AsymmetryFactor is not { } factor) return plot;
+        var symmetrical = drawn / factor;
+        return plot with { AsymmetricalStartCurrent = numbers.Limit, AsymmetryFactor = numbers.Limit / symmetrical };
     }
 
     /// <summary>The rows of a motor's outcomes: failures first, then by margin ratio, tightest first; rows without a ratio last.</summary>

@@ -32,6 +32,7 @@ public static class ReportJson
         json.WriteNumber("suppressed", summary.Suppressed);
         json.WriteNumber("files", summary.Files);
         json.WriteNumber("motors", model.Motors.Length);
+        json.WriteNumber("notRun", summary.NotRun);
         json.WriteEndObject();
         json.WriteStartArray("motors");
         foreach (var m in model.Motors) Motor(json, m);
@@ -67,7 +68,20 @@ public static class ReportJson
         json.WriteNumber("rulesApplied", m.Margins.Length);
         json.WriteNumber("rulesPassed", m.Passed);
         json.WriteNumber("nearMisses", m.NearMisses);
+        json.WriteNumber("notRun", m.NotRun.Length);
         json.WriteEndObject();
+        json.WriteStartArray("notRun");
+        foreach (var n in m.NotRun)
+        {
+            json.WriteStartObject();
+            json.WriteString("ruleId", n.RuleId);
+            json.WriteString("level", n.Level.Token());
+            json.WriteStartArray("missing");
+            foreach (var path in n.MissingPaths) json.WriteStringValue(path);
+            json.WriteEndArray();
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
         if (m.Worst is { } w)
         {
             json.WriteStartObject("worstMargin");

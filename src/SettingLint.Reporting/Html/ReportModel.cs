@@ -70,6 +70,9 @@ public sealed record MotorReport
     /// <summary>The findings in the motor's file, in report order.</summary>
     public ImmutableArray<Finding> Findings { get; init; } = [];
 
+    /// <summary>The rules that applied but were not evaluated because input data is missing, by rule.</summary>
+    public ImmutableArray<CheckNotRun> NotRun { get; init; } = [];
+
     /// <summary>Every rule that applied: failures first, then tightest first.</summary>
     public ImmutableArray<MarginRow> Margins { get; init; } = [];
 

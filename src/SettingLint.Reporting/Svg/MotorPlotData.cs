@@ -1,7 +1,13 @@
+using System.Collections.Immutable;
 using SettingLint.Core.Model;
 using SettingLint.Protection;
 
 namespace SettingLint.Reporting.Svg;
+
+/// <summary>One step of a start as a time-current plot draws it: the motor draws this current until this time after switching on.</summary>
+/// <param name="Current">The current of the step, A primary.</param>
+/// <param name="Until">The time from switching on at which the step ends, s.</param>
+public readonly record struct StartStep(double Current, double Until);
 
 /// <summary>
 /// The numbers a motor's plots are drawn from, in SI (A primary, s), read once from the bound model; absent values
@@ -23,6 +29,30 @@ public sealed record MotorPlotData
 
     /// <summary>Longest expected acceleration time (acceleration_time_max), s, when it is given.</summary>
     public double? AccelerationTimeMax { get; init; }
+
+    /// <summary>
+    /// The start at rated conditions as steps of (current, time since switching on), in time order; after the last step the
+    /// motor runs at FLC. Empty: the start is drawn at LRC for the acceleration time.
+    /// </summary>
+    public ImmutableArray<StartStep> StartSteps { get; init; } = [];
+
+    /// <summary>The longest start (acceleration_time_max) as steps; empty: at LRC for acceleration_time_max.</summary>
+    public ImmutableArray<StartStep> LongestStartSteps { get; init; } = [];
+
+    /// <summary>What the start steps are, for the legend ("current limit, then FLC"); null for a start at LRC.</summary>
+    public string? StartKind { get; init; }
+
+    /// <summary>The asymmetrical first-cycle start current that the short-circuit element must stay above (SL201's limit), A.</summary>
+    public double? AsymmetricalStartCurrent { get; init; }
+
+    /// <summary>The factor between the asymmetrical and the symmetrical start current behind <see cref="AsymmetricalStartCurrent"/>.</summary>
+    public double? AsymmetryFactor { get; init; }
+
+    /// <summary>The bus's grounding, as written (solid, low-resistance, high-resistance, ungrounded).</summary>
+    public string? Grounding { get; init; }
+
+    /// <summary>The neutral resistor's let-through current of a resistance-grounded bus (bus.ground_fault_current), A.</summary>
+    public double? GroundFaultCurrent { get; init; }
 
     /// <summary>Safe stall time from cold, s.</summary>
     public double? SafeStallTimeCold { get; init; }
@@ -75,6 +105,18 @@ public sealed record MotorPlotData
     /// <summary>The thermal level a hot start begins at (the set full-load level, else (FLC / pickup)^2); null without thermal model or FLC.</summary>
     public double? HotStartLevel => Thermal is { } t && FullLoadCurrent is { } flc ? t.HotStartLevel(flc) : null;
 
+    /// <summary>The ratio of SL201's default: the first-cycle RMS of a fully offset start over its symmetrical RMS, about 1.7 (common practice).</summary>
+    public const double DefaultAsymmetryFactor = 1.7;
+
+    /// <summary>The steps a start is drawn with: the given ones, else LRC for the acceleration time.</summary>
+    public ImmutableArray<StartStep> StartOrLockedRotor(bool longest)
+    {
+        var steps = longest ? LongestStartSteps : StartSteps;
+        if (!steps.IsEmpty) return steps;
+        var time = longest ? AccelerationTimeMax : AccelerationTime;
+        return LockedRotorCurrent is { } l && time is { } t ? [new StartStep(l, t)] : [];
+    }
+
     /// <summary>Reads the plot numbers of a bound motor.</summary>
     public static MotorPlotData From(MotorProtection motor)
     {
@@ -88,13 +130,28 @@ public sealed record MotorPlotData
         var thermalOn = motor.IsEnabled("thermal");
         var scOn = motor.IsEnabled("short_circuit");
         var gfOn = motor.IsEnabled("ground_fault");
+        var lrc = Positive("motor.locked_rotor_current");
+        var acc = Positive("motor.acceleration_time");
+        var accMax = Positive("motor.acceleration_time_max");
+        var grounding = motor.Bus?.Grounding;
+        // A soft starter holds the start at its current limit along its ramp, the longest acceleration time (common
+        // practice; the same start as the protection library's start profile, which replaces this once it is on main).
+        var limit = d.Text("starter.type") == "soft-starter" ? Positive("starter.soft_start_current_limit") : null;
+        ImmutableArray<StartStep> soft = limit is { } l && (accMax ?? acc) is { } ramp ? [new StartStep(l, ramp)] : [];
         return new MotorPlotData
         {
             Motor = motor.Tag,
             FullLoadCurrent = flc,
-            LockedRotorCurrent = Positive("motor.locked_rotor_current"),
-            AccelerationTime = Positive("motor.acceleration_time"),
-            AccelerationTimeMax = Positive("motor.acceleration_time_max"),
+            LockedRotorCurrent = lrc,
+            AccelerationTime = acc,
+            AccelerationTimeMax = accMax,
+            StartSteps = soft,
+            LongestStartSteps = soft,
+            StartKind = limit is null ? null : "soft-start limit",
+            AsymmetricalStartCurrent = AsymmetricalStart(lrc, Positive("motor.rated_voltage"), BusNum("max_voltage")),
+            AsymmetryFactor = lrc is null ? null : DefaultAsymmetryFactor,
+            Grounding = grounding,
+            GroundFaultCurrent = grounding is "low-resistance" or "high-resistance" ? BusNum("ground_fault_current") : null,
             SafeStallTimeCold = Positive("motor.safe_stall_time_cold"),
             SafeStallTimeHot = Positive("motor.safe_stall_time_hot"),
             Thermal = thermalOn ? ThermalOf(Positive("protection.thermal.pickup"), Positive("protection.thermal.time_constant"),
@@ -113,6 +170,13 @@ public sealed record MotorPlotData
             PhaseCtRatio = Positive("transformers.phase_ct.primary") is { } p && Positive("transformers.phase_ct.secondary") is { } s ? p / s : null,
         };
     }
+
+    /// <summary>
+    /// SL201's limit with its default factor: the locked-rotor current scaled to the bus's highest steady voltage (the
+    /// rated voltage when the bus gives none), times 1.7; a report of a run replaces it with the rule's own limit.
+    /// </summary>
+    private static double? AsymmetricalStart(double? lrc, double? rated, double? busMax) =>
+        lrc is { } l ? DefaultAsymmetryFactor * (rated is { } r && busMax is { } m ? LockedRotorCodes.ScaleToVoltage(l, r, m) : l) : null;
 
     private static ThermalModel? ThermalOf(double? pickup, double? tau, double? coolingTau, double? fullLoadLevel)
     {

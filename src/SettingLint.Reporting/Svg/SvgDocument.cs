@@ -28,6 +28,24 @@ internal sealed class SvgDocument
     private readonly string _id;
     private readonly List<(SeriesStyle Style, string Note)> _legend = [];
 
+    // The boxes of the labels written so far, in px: a new label takes the first of its places that meets none of them.
+    private readonly List<LabelBox> _labels = [];
+
+    /// <summary>The box a label takes on the plot, in px.</summary>
+    internal readonly record struct LabelBox(double X1, double Y1, double X2, double Y2)
+    {
+        public bool Overlaps(LabelBox other) => X1 < other.X2 && other.X1 < X2 && Y1 < other.Y2 && other.Y1 < Y2;
+    }
+
+    /// <summary>Where each label was placed, for tests: its text and box.</summary>
+    internal IReadOnlyList<LabelBox> Labels => _labels;
+
+    // About the width of the plot's sans-serif digits and lower-case letters, per px of font size; a little generous, so
+    // that labels placed apart stay apart in the fonts a browser picks.
+    private const double CharWidth = 0.6;
+
+    private static double TextWidth(string text, double fontSize) => text.Length * fontSize * CharWidth;
+
     public SvgDocument(string id, double height, string title, string description, PlotAxis x, PlotAxis y)
     {
         _id = id;
@@ -147,7 +165,18 @@ internal sealed class SvgDocument
         // A wide transparent stroke makes a thin line easy to hover.
         _sb.Append("<line x1=\"").Append(Px(px)).Append("\" y1=\"").Append(Px(PlotTop)).Append("\" x2=\"").Append(Px(px)).Append("\" y2=\"").Append(Px(PlotTop + PlotHeight))
             .Append("\" stroke=\"transparent\" stroke-width=\"9\"/>\n");
-        _sb.Append("<text transform=\"translate(").Append(Px(px - 4)).Append(' ').Append(Px(PlotTop + 8)).Append(") rotate(-90)\" text-anchor=\"end\" font-size=\"11\" fill=\"")
+        // Read upwards beside the line, left of it at the top of the plot; where another label is, right of it, then lower down.
+        var w = TextWidth(label, 11);
+        var candidates = new List<(LabelBox Box, double AnchorX, double AnchorY)>();
+        for (var drop = 0.0; drop + w < PlotHeight - 8; drop += w + 12)
+        {
+            var top = PlotTop + 8 + drop;
+            candidates.Add((new LabelBox(px - 16, top, px - 3, top + w), px - 4, top));
+            candidates.Add((new LabelBox(px + 3, top, px + 16, top + w), px + 14, top));
+        }
+        if (candidates.Count == 0) candidates.Add((new LabelBox(px - 16, PlotTop + 8, px - 3, PlotTop + 8 + w), px - 4, PlotTop + 8));
+        var (_, ax, ay) = candidates[Place([.. candidates.Select(c => c.Box)])];
+        _sb.Append("<text class=\"label\" data-box=\"").Append(BoxText(_labels[^1])).Append("\" transform=\"translate(").Append(Px(ax)).Append(' ').Append(Px(ay)).Append(") rotate(-90)\" text-anchor=\"end\" font-size=\"11\" fill=\"")
             .Append(style.Color).Append("\">").Append(Escape(label)).Append("</text>\n");
         _sb.Append("</g>\n");
         AddLegend(style);
@@ -167,7 +196,23 @@ internal sealed class SvgDocument
         if (style.Dash.Length > 0) _sb.Append(" stroke-dasharray=\"").Append(style.Dash).Append('"');
         _sb.Append("/>\n");
         _sb.Append("<line x1=\"").Append(Px(x1)).Append("\" y1=\"").Append(Px(py)).Append("\" x2=\"").Append(Px(x2)).Append("\" y2=\"").Append(Px(py)).Append("\" stroke=\"transparent\" stroke-width=\"9\"/>\n");
-        _sb.Append("<text x=\"").Append(Px(x2 - 2)).Append("\" y=\"").Append(Px(py - 5)).Append("\" text-anchor=\"end\" font-size=\"11\" fill=\"").Append(style.Color).Append("\">").Append(Escape(label)).Append("</text>\n");
+        // Above the line at its right end; where another label is, below it, then at its left end.
+        var w = TextWidth(label, 11);
+        var at = Place(
+        [
+            new LabelBox(x2 - 2 - w, py - 15, x2 - 2, py - 3),
+            new LabelBox(x2 - 2 - w, py + 3, x2 - 2, py + 15),
+            new LabelBox(x1 + 2, py - 15, x1 + 2 + w, py - 3),
+            new LabelBox(x1 + 2, py + 3, x1 + 2 + w, py + 15),
+        ]);
+        var (tx, ty, anchor) = at switch
+        {
+            0 => (x2 - 2, py - 5, "end"),
+            1 => (x2 - 2, py + 13, "end"),
+            2 => (x1 + 2, py - 5, "start"),
+            _ => (x1 + 2, py + 13, "start"),
+        };
+        _sb.Append("<text class=\"label\" data-box=\"").Append(BoxText(_labels[^1])).Append("\" x=\"").Append(Px(tx)).Append("\" y=\"").Append(Px(ty)).Append("\" text-anchor=\"").Append(anchor).Append("\" font-size=\"11\" fill=\"").Append(style.Color).Append("\">").Append(Escape(label)).Append("</text>\n");
         _sb.Append("</g>\n");
         AddLegend(style);
     }
@@ -190,7 +235,27 @@ internal sealed class SvgDocument
         }
         if (label.Length > 0)
         {
-            _sb.Append("<text x=\"").Append(Px(px + 9)).Append("\" y=\"").Append(Px(py - 5)).Append("\" font-size=\"11\" fill=\"").Append(style.Color).Append("\">").Append(Escape(label)).Append("</text>\n");
+            // Right of the point and a little above it; where another label is, below it, then left of the point.
+            var w = TextWidth(label, 11);
+            var at = Place(
+            [
+                new LabelBox(px + 9, py - 15, px + 9 + w, py - 3),
+                new LabelBox(px + 9, py + 3, px + 9 + w, py + 15),
+                new LabelBox(px - 9 - w, py - 15, px - 9, py - 3),
+                new LabelBox(px - 9 - w, py + 3, px - 9, py + 15),
+                new LabelBox(px + 9, py - 28, px + 9 + w, py - 16),
+                new LabelBox(px + 9, py + 16, px + 9 + w, py + 28),
+            ]);
+            var (tx, ty, anchor) = at switch
+            {
+                0 => (px + 9, py - 5, "start"),
+                1 => (px + 9, py + 13, "start"),
+                2 => (px - 9, py - 5, "end"),
+                3 => (px - 9, py + 13, "end"),
+                4 => (px + 9, py - 18, "start"),
+                _ => (px + 9, py + 26, "start"),
+            };
+            _sb.Append("<text class=\"label\" data-box=\"").Append(BoxText(_labels[^1])).Append("\" x=\"").Append(Px(tx)).Append("\" y=\"").Append(Px(ty)).Append("\" text-anchor=\"").Append(anchor).Append("\" font-size=\"11\" fill=\"").Append(style.Color).Append("\">").Append(Escape(label)).Append("</text>\n");
         }
         _sb.Append("</g>\n");
         AddLegend(style);
@@ -243,6 +308,29 @@ internal sealed class SvgDocument
         _sb.Append("</svg>\n");
         return _sb.ToString();
     }
+
+    /// <summary>
+    /// Takes the first place of a label that meets no label placed before and lies inside the plot area; when every
+    /// place meets one, the first place (a label is never dropped). Returns the index of the place taken.
+    /// </summary>
+    private int Place(IReadOnlyList<LabelBox> places)
+    {
+        for (var i = 0; i < places.Count; i++)
+        {
+            var box = places[i];
+            var inside = box.X1 >= PlotLeft && box.X2 <= PlotLeft + PlotWidth && box.Y1 >= PlotTop && box.Y2 <= PlotTop + PlotHeight;
+            if (inside && !_labels.Exists(l => l.Overlaps(box)))
+            {
+                _labels.Add(box);
+                return i;
+            }
+        }
+        _labels.Add(places[0]);
+        return 0;
+    }
+
+    // The box a label was given, so that a reader of the SVG (and the tests) can see that labels keep apart.
+    private static string BoxText(LabelBox b) => Px(b.X1) + " " + Px(b.Y1) + " " + Px(b.X2) + " " + Px(b.Y2);
 
     private bool InArea(double px, double py) =>
         px >= PlotLeft - 0.5 && px <= PlotLeft + PlotWidth + 0.5 && py >= PlotTop - 0.5 && py <= PlotTop + PlotHeight + 0.5;

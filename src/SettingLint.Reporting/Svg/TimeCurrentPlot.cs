@@ -6,7 +6,8 @@ namespace SettingLint.Reporting.Svg;
 /// <summary>
 /// The time-current plot of one motor, log-log, current in primary amperes and time in seconds: the start, the thermal
 /// element's cold and hot curves (IEC 60255-149), the safe stall points, the acceleration timer, the short-circuit and
-/// ground-fault elements, the bus's fault currents, the tripped device's interrupting rating and the bus's upstream curve.
+/// ground-fault elements, the bus's fault currents, the tripped device's interrupting rating and the bus's upstream curve,
+/// the asymmetrical start current the short-circuit pickup must clear, and the grounding resistor's let-through current.
 /// </summary>
 public static class TimeCurrentPlot
 {
@@ -16,14 +17,17 @@ public static class TimeCurrentPlot
     /// <summary>The styles, one per series key (the keys are written as data-series).</summary>
     public static readonly SeriesStyle Start = new("start", "Motor start (LRC, then FLC)", "#2e7d4f", "", 3);
     public static readonly SeriesStyle LongestStart = new("start-longest", "Longest start", "#2e7d4f", "7 4", 2);
+    public static readonly SeriesStyle AsymmetricalStart = new("start-asymmetrical", "Asymmetrical start (first cycles)", "#2e7d4f", "3 2", 2.5);
     public static readonly SeriesStyle ThermalCold = new("thermal-cold", "Thermal 49, from cold", "#1f4e9c", "", 2.5);
     public static readonly SeriesStyle ThermalHot = new("thermal-hot", "Thermal 49, from hot", "#c2410c", "", 2.5);
     public static readonly SeriesStyle StallCold = new("stall-cold", "Safe stall, cold", "#1f4e9c", "", 2, true);
     public static readonly SeriesStyle StallHot = new("stall-hot", "Safe stall, hot", "#c2410c", "", 2, true);
     public static readonly SeriesStyle AccelerationTimer = new("acceleration-timer", "Acceleration timer 48", "#7a3fb8", "3 3", 2.5);
-    public static readonly SeriesStyle ShortCircuit = new("short-circuit", "Short circuit 50P", "#b3261e", "", 2.5);
-    public static readonly SeriesStyle Blocked = new("short-circuit-blocked", "50P blocked above", "#b3261e", "2 4", 1.5);
+    // Magenta, so that the 50P is not mistaken for the hot thermal curve (orange) or the upstream curve (ochre) where they cross.
+    public static readonly SeriesStyle ShortCircuit = new("short-circuit", "Short circuit 50P", "#a0179c", "", 2.5);
+    public static readonly SeriesStyle Blocked = new("short-circuit-blocked", "50P blocked above", "#a0179c", "2 4", 1.5);
     public static readonly SeriesStyle GroundFault = new("ground-fault", "Ground fault 50G/N", "#0f7b72", "9 3 2 3", 2);
+    public static readonly SeriesStyle GroundFaultCurrent = new("ground-fault-current", "Resistor let-through", "#0f7b72", "1 3", 2);
     public static readonly SeriesStyle FaultMin = new("fault-min", "Bus fault current, min", "#6b7480", "2 3", 1.5);
     public static readonly SeriesStyle FaultMax = new("fault-max", "Bus fault current, max", "#394350", "6 3", 1.5);
     public static readonly SeriesStyle Interrupting = new("interrupting-rating", "Interrupting rating", "#111111", "10 4", 2.5);
@@ -53,18 +57,40 @@ public static class TimeCurrentPlot
         if (data.InterruptingRating is { } ir) doc.Vertical(Interrupting, ir, "Interrupting rating of the tripped device " + A(ir), "interrupting " + A(ir));
         else doc.Missing(Interrupting, "not given");
         if (data.ShortCircuitBlockedAbove is { } blocked) doc.Vertical(Blocked, blocked, "Short-circuit element blocked above " + A(blocked), "50P blocked " + A(blocked));
-
-        if (flc is { } f && lrc is { } l && data.AccelerationTime is { } acc)
+        if (data.GroundFaultCurrent is { } gfc)
         {
-            doc.Polyline(Start, $"Motor start: {A(l)} for {S(acc)}, then {A(f)}", StartPoints(f, l, acc, y), (i, t) => $"Start: {A(i)}, {S(t)}", 1);
-            if (data.AccelerationTimeMax is { } accMax && accMax != acc)
+            doc.Vertical(GroundFaultCurrent, gfc, $"Bus {data.BusTag} {data.Grounding} grounded: the neutral resistor lets through at most {A(gfc)} in a ground fault", "let-through " + A(gfc));
+        }
+        else if (data.Grounding is "low-resistance" or "high-resistance")
+        {
+            doc.Missing(GroundFaultCurrent, "not given");
+        }
+
+        var steps = data.StartOrLockedRotor(longest: false);
+        if (flc is { } f && !steps.IsEmpty)
+        {
+            var style = data.StartKind is { } kind ? Start with { Label = "Motor start (" + kind + ", then FLC)" } : Start;
+            doc.Polyline(style, "Motor start: " + Describe(steps) + ", then " + A(f), StartPoints(f, steps, y), (i, t) => $"Start: {A(i)}, {S(t)}", 1);
+            var longest = data.StartOrLockedRotor(longest: true);
+            if (!longest.IsEmpty && longest[^1].Until != steps[^1].Until)
             {
-                doc.Polyline(LongestStart, $"Longest start: {A(l)} for {S(accMax)}, then {A(f)}", StartPoints(f, l, accMax, y), (i, t) => $"Longest start: {A(i)}, {S(t)}", 1);
+                doc.Polyline(LongestStart, "Longest start: " + Describe(longest) + ", then " + A(f), StartPoints(f, longest, y), (i, t) => $"Longest start: {A(i)}, {S(t)}", 1);
             }
         }
         else
         {
             doc.Missing(Start, "no FLC, LRC or time");
+        }
+
+        // The first cycles of a direct start, with the DC offset: what an undelayed 50P must not pick up (SL201).
+        if (data.AsymmetricalStartCurrent is { } asym && data.AsymmetryFactor is { } factor && factor > 0)
+        {
+            var symmetrical = asym / factor;
+            var until = AsymmetryShown;
+            doc.Polyline(AsymmetricalStart,
+                $"Asymmetrical start current {A(asym)}: {Formats.Number(factor)} x the symmetrical start current {A(symmetrical)} at the bus's highest voltage, "
+                + "the first-cycle value a 50P without delay must stay above (SL201)",
+                [(asym, y.Min), (asym, until), (symmetrical, until)], (i, t) => $"Asymmetrical start: {A(asym)}", 1);
         }
 
         if (data.Thermal is { } model)
@@ -145,12 +171,32 @@ public static class TimeCurrentPlot
         return doc.Finish(caution);
     }
 
+    /// <summary>How long the plot shows the asymmetrical start current: about six cycles, by which the offset of a motor circuit has mostly decayed (common practice).</summary>
+    public const double AsymmetryShown = 0.1;
+
     /// <summary>A delay below the axis (0 s for an instantaneous element) is drawn just above its foot, where the frame does not hide it.</summary>
     private static double Floor(double delay, double min) => delay >= min * 1.15 ? delay : min * 1.15;
 
-    /// <summary>The start as a TCC shows it: LRC up to the acceleration time, then across to FLC and up (running).</summary>
-    private static (double X, double Y)[] StartPoints(double flc, double lrc, double acc, (double Min, double Max) y) =>
-        [(lrc, y.Min), (lrc, acc), (flc, acc), (flc, y.Max)];
+    /// <summary>
+    /// The start as a TCC shows it: each step's current up to the time it ends, across to the next step's current, and
+    /// after the last step across to FLC and up (running).
+    /// </summary>
+    internal static (double X, double Y)[] StartPoints(double flc, IReadOnlyList<StartStep> steps, (double Min, double Max) y)
+    {
+        var points = new List<(double X, double Y)> { (steps[0].Current, y.Min) };
+        for (var k = 0; k < steps.Count; k++)
+        {
+            points.Add((steps[k].Current, steps[k].Until));
+            points.Add((k + 1 < steps.Count ? steps[k + 1].Current : flc, steps[k].Until));
+        }
+        points.Add((flc, y.Max));
+        return [.. points];
+    }
+
+    /// <summary>"420 A for 30 s" or "2.1 kA up to 2 s, 1.5 kA up to 12 s".</summary>
+    private static string Describe(IReadOnlyList<StartStep> steps) => steps.Count == 1
+        ? A(steps[0].Current) + " for " + S(steps[0].Until)
+        : string.Join(", ", steps.Select(s => A(s.Current) + " up to " + S(s.Until)));
 
     /// <summary>The upstream curve: its inverse-time part up to the instantaneous pickup, then the instantaneous time.</summary>
     private static IReadOnlyList<(double X, double Y)> UpstreamPoints(OvercurrentSetting up, double maxCurrent, PlotAxis time)
@@ -182,7 +228,8 @@ public static class TimeCurrentPlot
         {
             d.FullLoadCurrent, d.LockedRotorCurrent, d.Thermal?.PickupCurrent, d.ShortCircuitPickup, d.GroundFaultPickup, d.FaultCurrentMin,
             d.FaultCurrentMax, d.InterruptingRating, d.Upstream?.PickupCurrent, d.Upstream?.InstantaneousPickupCurrent, d.ShortCircuitBlockedAbove,
-        }.OfType<double>().Where(v => double.IsFinite(v) && v > 0).ToList();
+            d.AsymmetricalStartCurrent, d.GroundFaultCurrent,
+        }.Concat(d.StartSteps.Concat(d.LongestStartSteps).Select(s => (double?)s.Current)).OfType<double>().Where(v => double.IsFinite(v) && v > 0).ToList();
         if (values.Count == 0) return (1, 1e5);
         var lo = Math.Pow(10, Math.Floor(Math.Log10(values.Min() * 0.7)));
         var hi = Math.Pow(10, Math.Ceiling(Math.Log10(values.Max() * 1.4)));

@@ -148,3 +148,43 @@ public sealed partial class HtmlReportTests
         Assert.Contains("&lt;b&gt;pump&lt;/b&gt; &amp; &#39;co&#39;", page, StringComparison.Ordinal);
     }
 }
+
+/// <summary>A rule not run for missing data shows on the motor's page, in the index and in report.json.</summary>
+public sealed class HtmlNotRunTests
+{
+    [Fact]
+    public void A_bus_without_its_minimum_fault_current_shows_SL202_not_run_on_each_of_its_motors()
+    {
+        using var folder = new TempFolder(repo: true);
+        foreach (var file in Directory.EnumerateFiles(HtmlTestSupport.Examples, "*.yaml", SearchOption.AllDirectories))
+        {
+            var relative = Path.GetRelativePath(HtmlTestSupport.Examples, file);
+            var text = File.ReadAllText(file);
+            if (relative.EndsWith("sg-41a.yaml", StringComparison.Ordinal))
+            {
+                var line = text.Split('\n').Single(l => l.StartsWith("fault_current_min:", StringComparison.Ordinal));
+                text = text.Replace(line + "\n", "", StringComparison.Ordinal);
+            }
+            folder.Write(relative, text);
+        }
+        var model = ReportBuilder.Build(ReportData.Collect([folder.Path]), ToolInfo.ForVersion("0.1.0"));
+        var files = HtmlReport.Render(model).ToDictionary(f => f.Path, f => f.Content, StringComparer.Ordinal);
+        var onBus = model.Motors.Where(m => m.Bus == "SG-41A").ToList();
+        Assert.NotEmpty(onBus);
+        foreach (var m in model.Motors)
+        {
+            var page = files[HtmlReport.PagePath(m)];
+            var expected = m.Bus == "SG-41A" && m.Plot.ShortCircuitPickup is not null;
+            Assert.Equal(expected, page.Contains("<h2 id=\"not-run\">", StringComparison.Ordinal));
+            if (!expected) continue;
+            Assert.Contains("<tr data-rule=\"SL202\"><td><b>SL202</b>", page, StringComparison.Ordinal);
+            Assert.Contains("<code>bus.fault_current_min</code>", page, StringComparison.Ordinal);
+        }
+        var count = model.Motors.Sum(m => m.NotRun.Length);
+        Assert.Equal(model.Result.NotRun.Length, count);
+        Assert.True(count >= 1);
+        Assert.Contains("checks not run for missing data", files["index.html"], StringComparison.Ordinal);
+        using var json = System.Text.Json.JsonDocument.Parse(files["report.json"]);
+        Assert.Equal(count, json.RootElement.GetProperty("summary").GetProperty("notRun").GetInt32());
+    }
+}
