@@ -196,6 +196,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             options.FailOn)
         {
             CheckedFiles = [.. reported.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
+            MotorFiles = [.. motorStates.Select(s => (s.RelativePath, s.Motor!.Tag)).OrderBy(m => m.RelativePath, StringComparer.Ordinal)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
         };
     }

@@ -47,6 +47,9 @@ public sealed record CheckResult(
     /// <summary>Root-relative paths of the setting files whose findings are reported, sorted.</summary>
     public ImmutableArray<string> CheckedFiles { get; init; } = [];
 
+    /// <summary>The motors checked, each as its root-relative file and its tag (the file again when it has none), sorted by file.</summary>
+    public ImmutableArray<(string File, string Tag)> MotorFiles { get; init; } = [];
+
     /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
     public ChangeScope? Scope { get; init; }
 }
