@@ -57,6 +57,7 @@ public static class CliApp
         root.Subcommands.Add(HookCommand.Create(stdout, stderr));
         root.Subcommands.Add(RulesCommand.Create(stdout, stderr));
         root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
+        root.Subcommands.Add(SchemaCommand.Create(stdout, stderr));
         return root;
     }
 }
