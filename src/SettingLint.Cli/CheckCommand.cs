@@ -34,6 +34,9 @@ public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Form
 
     /// <summary>The prefix of file links in markdown (--link-base).</summary>
     public string? LinkBase { get; init; }
+
+    /// <summary>List every accepted finding in text instead of one line per rule (--show-accepted).</summary>
+    public bool ShowAccepted { get; init; }
 }
 
 /// <summary>`settinglint check [PATH...]`.</summary>
@@ -59,9 +62,10 @@ public static class CheckCommand
         var allFiles = new Option<bool>("--all-files") { Description = "With --changed-since or --staged: check every file, still reporting changes that loosen the gate." };
         var summary = new Option<string?>("--summary") { Description = "Also append the markdown summary to this file (a CI job summary such as $GITHUB_STEP_SUMMARY)." };
         var linkBase = new Option<string?>("--link-base") { Description = "Prefix of the file links in markdown, such as https://github.com/OWNER/REPO/blob/COMMIT/ (default: relative links)." };
+        var showAccepted = new Option<bool>("--show-accepted") { Description = "Text: list each finding accepted in the source (by default one line per rule says how many and where)." };
         var command = new Command("check", "Check setting files and report findings; the exit code is the gate.")
         {
-            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase,
+            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase, showAccepted,
         };
         command.SetAction(parse =>
         {
@@ -87,6 +91,7 @@ public static class CheckCommand
                 AllFiles = parse.GetValue(allFiles),
                 Summary = parse.GetValue(summary),
                 LinkBase = parse.GetValue(linkBase),
+                ShowAccepted = parse.GetValue(showAccepted),
             };
             if (options.AllFiles && options.ChangedSince is null && !options.Staged)
             {
@@ -110,6 +115,7 @@ public static class CheckCommand
         var result = Session.Open(paths).Check(paths, options.FailOn, gate: gate);
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
+            ShowAccepted = options.ShowAccepted,
             StartTimeUtc = options.Timestamps ? started : null,
             EndTimeUtc = options.Timestamps ? DateTimeOffset.UtcNow : null,
         };

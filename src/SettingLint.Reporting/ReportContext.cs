@@ -10,6 +10,9 @@ public sealed record ReportContext(string CurrentDirectory, bool Timestamps, boo
     /// <summary>When the run started; written only with <see cref="Timestamps"/>.</summary>
     public DateTimeOffset? StartTimeUtc { get; init; }
 
+    /// <summary>Text: list each accepted finding rather than one line per rule.</summary>
+    public bool ShowAccepted { get; init; }
+
     /// <summary>When the run ended; written only with <see cref="Timestamps"/>.</summary>
     public DateTimeOffset? EndTimeUtc { get; init; }
 }
