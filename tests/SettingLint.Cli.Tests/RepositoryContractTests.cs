@@ -50,3 +50,19 @@ public sealed class RepositoryContractTests
         Assert.Contains("outside the repository root", run.Stdout + run.Stderr, StringComparison.Ordinal);
     }
 }
+
+/// <summary>Outside a git work tree, one file checked alone still reaches the files beside its folder.</summary>
+public sealed class RootOutsideGitTests
+{
+    [Fact]
+    public void A_motor_checked_alone_outside_git_reaches_its_bus_under_the_configuration_folder()
+    {
+        using var repo = new TempRepo(git: false);
+        Samples.WriteMinimal(repo);
+        repo.Write(".settinglint.yaml", Cli.EngineOnlyConfig);
+        var run = Cli.Run(["check", repo.PathOf("motors/m-1.yaml"), "--format", "json"]);
+        Assert.True(run.Exit == 0, run.ToString());
+        Assert.DoesNotContain(run.Findings, f => f.Rule == "SL007");
+        Assert.Equal(".", run.Json.GetProperty("root").GetString() is { } r ? System.IO.Path.GetRelativePath(repo.Root, System.IO.Path.GetFullPath(r)) : null);
+    }
+}
