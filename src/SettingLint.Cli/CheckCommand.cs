@@ -73,7 +73,7 @@ public static class CheckCommand
             var bad = given.FirstOrDefault(p => p.StartsWith('-'));
             if (bad is not null)
             {
-                stderr.WriteLine($"settinglint: unknown option '{bad}'. Try 'settinglint check --help'.");
+                stderr.WriteLine($"settinglint: unknown option '{bad}'. Try '{ToolCommand.Current} check --help'.");
                 return ExitCodes.Usage;
             }
             var options = new CheckOptionsRecord(
@@ -116,6 +116,7 @@ public static class CheckCommand
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
             ShowAccepted = options.ShowAccepted,
+            Command = ToolCommand.Current,
             StartTimeUtc = options.Timestamps ? started : null,
             EndTimeUtc = options.Timestamps ? DateTimeOffset.UtcNow : null,
         };

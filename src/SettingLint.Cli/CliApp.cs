@@ -35,7 +35,7 @@ public static class CliApp
         if (parse.Errors.Count > 0)
         {
             foreach (var e in parse.Errors) stderr.WriteLine("settinglint: " + e.Message);
-            stderr.WriteLine("Try 'settinglint --help'.");
+            stderr.WriteLine("Try '" + SettingLint.Reporting.ToolCommand.Current + " --help'.");
             return ExitCodes.Usage;
         }
         try

@@ -67,7 +67,7 @@ public sealed class TextReporter : IReporter
             foreach (var id in fired)
             {
                 var title = result.Rules.FirstOrDefault(r => r.Id == id)?.Title ?? "";
-                WriteLine(output, $"  {id}  {title}  (settinglint rules show {id})");
+                WriteLine(output, $"  {id}  {title}  ({context.Command} rules show {id})");
             }
         }
         WriteLine(output, SummaryLine(result));
