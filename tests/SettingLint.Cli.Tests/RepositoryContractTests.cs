@@ -66,3 +66,22 @@ public sealed class RootOutsideGitTests
         Assert.Equal(".", run.Json.GetProperty("root").GetString() is { } r ? System.IO.Path.GetRelativePath(repo.Root, System.IO.Path.GetFullPath(r)) : null);
     }
 }
+
+/// <summary>A configuration mistake is reported once, for what it is.</summary>
+public sealed class ConfigurationMessageTests
+{
+    [Fact]
+    public void A_parameter_in_the_wrong_unit_is_not_also_a_rule_missing_from_the_packs()
+    {
+        using var repo = Cli.Repo(engineOnly: false);
+        repo.Write(".settinglint.yaml", "rules:\n  SL302:\n    parameters: { max_share: 15 A }\n");
+        var run = Cli.CheckJson(repo);
+        Assert.Equal(2, run.Exit);
+        var notification = Assert.Single(run.Json.GetProperty("notifications").EnumerateArray());
+        Assert.Contains("max_share", notification.GetProperty("message").GetString(), StringComparison.Ordinal);
+        // A rule that no pack has is still reported as such.
+        repo.Write(".settinglint.yaml", "rules:\n  SL998: off\n");
+        var missing = Cli.CheckJson(repo);
+        Assert.Contains("SL998 is not in any loaded pack", Assert.Single(missing.Json.GetProperty("notifications").EnumerateArray()).GetProperty("message").GetString(), StringComparison.Ordinal);
+    }
+}
