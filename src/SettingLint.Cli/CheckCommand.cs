@@ -39,6 +39,8 @@ public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Form
 
     /// <summary>Attach to each finding on a setting a value that every rule on it accepts (off with --no-suggest).</summary>
     public bool Suggest { get; init; } = true;
+    /// <summary>List every accepted finding in text instead of one line per rule (--show-accepted).</summary>
+    public bool ShowAccepted { get; init; }
 }
 
 /// <summary>`settinglint check [PATH...]`.</summary>
@@ -65,9 +67,10 @@ public static class CheckCommand
         var summary = new Option<string?>("--summary") { Description = "Also append the markdown summary to this file (a CI job summary such as $GITHUB_STEP_SUMMARY)." };
         var noSuggest = new Option<bool>("--no-suggest") { Description = "Do not work out a suggested value for findings on a setting (each costs a second check of its file)." };
         var linkBase = new Option<string?>("--link-base") { Description = "Prefix of the file links in markdown, such as https://github.com/OWNER/REPO/blob/COMMIT/ (default: relative links)." };
+        var showAccepted = new Option<bool>("--show-accepted") { Description = "Text: list each finding accepted in the source (by default one line per rule says how many and where)." };
         var command = new Command("check", "Check setting files and report findings; the exit code is the gate.")
         {
-            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase, noSuggest,
+            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase, noSuggest, showAccepted,
         };
         command.SetAction(parse =>
         {
@@ -75,7 +78,7 @@ public static class CheckCommand
             var bad = given.FirstOrDefault(p => p.StartsWith('-'));
             if (bad is not null)
             {
-                stderr.WriteLine($"settinglint: unknown option '{bad}'. Try 'settinglint check --help'.");
+                stderr.WriteLine($"settinglint: unknown option '{bad}'. Try '{ToolCommand.Current} check --help'.");
                 return ExitCodes.Usage;
             }
             var options = new CheckOptionsRecord(
@@ -94,6 +97,7 @@ public static class CheckCommand
                 Summary = parse.GetValue(summary),
                 LinkBase = parse.GetValue(linkBase),
                 Suggest = !parse.GetValue(noSuggest),
+                ShowAccepted = parse.GetValue(showAccepted),
             };
             if (options.AllFiles && options.ChangedSince is null && !options.Staged)
             {
@@ -130,6 +134,8 @@ public static class CheckCommand
         }
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
+            ShowAccepted = options.ShowAccepted,
+            Command = ToolCommand.Current,
             StartTimeUtc = options.Timestamps ? started : null,
             EndTimeUtc = options.Timestamps ? DateTimeOffset.UtcNow : null,
         };

@@ -35,7 +35,7 @@ public static class CliApp
         if (parse.Errors.Count > 0)
         {
             foreach (var e in parse.Errors) stderr.WriteLine("settinglint: " + e.Message);
-            stderr.WriteLine("Try 'settinglint --help'.");
+            stderr.WriteLine("Try '" + SettingLint.Reporting.ToolCommand.Current + " --help'.");
             return ExitCodes.Usage;
         }
         try
@@ -58,6 +58,7 @@ public static class CliApp
         root.Subcommands.Add(RulesCommand.Create(stdout, stderr));
         root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
         root.Subcommands.Add(FixCommand.Create(stdout, stderr));
+        root.Subcommands.Add(SchemaCommand.Create(stdout, stderr));
         return root;
     }
 }

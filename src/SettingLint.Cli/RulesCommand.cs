@@ -86,7 +86,7 @@ public static class RulesCommand
             var engine = EngineRules.All.FirstOrDefault(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase));
             if (engine is null)
             {
-                stderr.WriteLine($"settinglint: no rule {id}. Try 'settinglint rules list'.");
+                stderr.WriteLine($"settinglint: no rule {id}. Try '{SettingLint.Reporting.ToolCommand.Current} rules list'.");
                 return ExitCodes.Usage;
             }
             stdout.WriteLine($"{engine.Id} ({engine.DefaultLevel.Token()}): {engine.Title}");

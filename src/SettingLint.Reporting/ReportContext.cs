@@ -10,6 +10,12 @@ public sealed record ReportContext(string CurrentDirectory, bool Timestamps, boo
     /// <summary>When the run started; written only with <see cref="Timestamps"/>.</summary>
     public DateTimeOffset? StartTimeUtc { get; init; }
 
+    /// <summary>How messages name this tool's commands: <see cref="ToolCommand.Installed"/> unless the CLI knows better.</summary>
+    public string Command { get; init; } = ToolCommand.Installed;
+
+    /// <summary>Text: list each accepted finding rather than one line per rule.</summary>
+    public bool ShowAccepted { get; init; }
+
     /// <summary>When the run ended; written only with <see cref="Timestamps"/>.</summary>
     public DateTimeOffset? EndTimeUtc { get; init; }
 }

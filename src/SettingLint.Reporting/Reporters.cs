@@ -12,6 +12,8 @@ public static class Reporters
         ("json", static () => new JsonReporter()),
         ("sarif", static () => new SarifReporter()),
         ("markdown", static () => new MarkdownReporter()),
+        ("code-quality", static () => new CodeQualityReporter()),
+        ("junit", static () => new JUnitReporter()),
     ];
 
     /// <summary>The format names, in the order they are documented; "text" is the default.</summary>

@@ -145,3 +145,38 @@ public sealed class FormatTests
         Assert.Equal(0, doc.RootElement.GetProperty("summary").GetProperty("exitCode").GetInt32());
     }
 }
+
+/// <summary>The GitLab code-quality and JUnit formats end to end, on a repository with a motor, a broken file and a run from a sub-folder.</summary>
+public sealed class ReviewFormatTests
+{
+    [Fact]
+    public void Code_quality_paths_are_from_the_repository_root_whatever_the_current_folder()
+    {
+        using var repo = Cli.Repo(Samples.MotorWith("full_load_current: 58 A", "full_load_current: 58"));
+        repo.Write("notes/bad.yaml", "kind: bus\ntag: a: b\n");
+        var run = Cli.Run(["check", Path.Combine(repo.Root, "motors"), Path.Combine(repo.Root, "notes"), "--format", "code-quality"]);
+        Assert.Equal(1, run.Exit);
+        using var doc = JsonDocument.Parse(run.Stdout);
+        var issues = doc.RootElement.EnumerateArray().Select(i => (
+            i.GetProperty("check_name").GetString(), i.GetProperty("location").GetProperty("path").GetString(),
+            i.GetProperty("location").GetProperty("lines").GetProperty("begin").GetInt32(), i.GetProperty("severity").GetString())).ToList();
+        // GitLab (doc/ci/testing/code_quality.md) places an issue by path from the repository and line.
+        Assert.Equal([("SL006", "motors/m-1.yaml", 9, "critical"), ("SL001", "notes/bad.yaml", 2, "critical")], issues);
+    }
+
+    [Fact]
+    public void Junit_has_a_suite_per_motor_with_a_case_per_rule()
+    {
+        using var repo = Cli.Repo(Samples.MotorWith("full_load_current: 58 A", "full_load_current: 58"));
+        var run = Cli.Run(["check", repo.Root, "--format", "junit"]);
+        Assert.Equal(1, run.Exit);
+        var doc = System.Xml.Linq.XDocument.Parse(run.Stdout);
+        var suite = Assert.Single(doc.Root!.Elements("testsuite"));
+        Assert.Equal("motors/m-1.yaml", (string)suite.Attribute("file")!);
+        var cases = suite.Elements("testcase").ToList();
+        Assert.True(cases.Count >= 11, cases.Count + " cases"); // the engine rules SL001-SL011 at least
+        var failed = Assert.Single(cases, c => c.Element("failure") is not null);
+        Assert.StartsWith("SL006 ", (string)failed.Attribute("name")!, StringComparison.Ordinal);
+        Assert.Equal(1, (int)suite.Attribute("failures")!);
+    }
+}

@@ -75,6 +75,16 @@ public sealed class GateBaselineTests(ITestOutputHelper output)
         Assert.DoesNotContain(lines, l => l.Contains("warning SL205", StringComparison.Ordinal)); // unchanged ones are not listed
         Assert.Contains(lines, l => l.EndsWith(": absent SL203: motors/p-201.yaml protection.short_circuit.enabled is no longer found; remove this entry from the baseline.", StringComparison.Ordinal));
         Assert.Contains(lines, l => l.StartsWith("Baseline ", StringComparison.Ordinal) && l.Contains("1 new, 2 unchanged (not listed), 1 absent", StringComparison.Ordinal));
+        Assert.Equal("1 error, 0 warnings, 0 notes in 4 files (2 motors); 2 in the baseline (not listed)", lines[^2]);
+
+        // The new finding accepted in the source: it is no longer new, and the summary says where each finding is.
+        git.Edit(GateGitRepo.Contactor, "  safe_stall_time_hot: 9", "  # settinglint-accept SL102: hot figure from the maker's test report (invented)\n  safe_stall_time_hot: 9");
+        var accepted = Cli.Run(["check", git.Root, "--baseline", baseline]);
+        Assert.True(accepted.Exit == 0, accepted.ToString());
+        var after = accepted.Stdout.Split('\n');
+        Assert.Contains(after, l => l.StartsWith("Baseline ", StringComparison.Ordinal) && l.Contains(": 0 new, 2 unchanged (not listed), 1 absent", StringComparison.Ordinal));
+        Assert.Contains(after, l => l.StartsWith("settinglint: accepted SL102: 1 finding accepted in the source, in ", StringComparison.Ordinal));
+        Assert.Equal("0 errors, 0 warnings, 0 notes in 4 files (2 motors); 2 in the baseline (not listed); 1 accepted in the source", after[^2]);
     }
 
     [Fact]

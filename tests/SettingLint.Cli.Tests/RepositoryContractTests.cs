@@ -50,3 +50,38 @@ public sealed class RepositoryContractTests
         Assert.Contains("outside the repository root", run.Stdout + run.Stderr, StringComparison.Ordinal);
     }
 }
+
+/// <summary>Outside a git work tree, one file checked alone still reaches the files beside its folder.</summary>
+public sealed class RootOutsideGitTests
+{
+    [Fact]
+    public void A_motor_checked_alone_outside_git_reaches_its_bus_under_the_configuration_folder()
+    {
+        using var repo = new TempRepo(git: false);
+        Samples.WriteMinimal(repo);
+        repo.Write(".settinglint.yaml", Cli.EngineOnlyConfig);
+        var run = Cli.Run(["check", repo.PathOf("motors/m-1.yaml"), "--format", "json"]);
+        Assert.True(run.Exit == 0, run.ToString());
+        Assert.DoesNotContain(run.Findings, f => f.Rule == "SL007");
+        Assert.Equal(".", run.Json.GetProperty("root").GetString() is { } r ? System.IO.Path.GetRelativePath(repo.Root, System.IO.Path.GetFullPath(r)) : null);
+    }
+}
+
+/// <summary>A configuration mistake is reported once, for what it is.</summary>
+public sealed class ConfigurationMessageTests
+{
+    [Fact]
+    public void A_parameter_in_the_wrong_unit_is_not_also_a_rule_missing_from_the_packs()
+    {
+        using var repo = Cli.Repo(engineOnly: false);
+        repo.Write(".settinglint.yaml", "rules:\n  SL302:\n    parameters: { max_share: 15 A }\n");
+        var run = Cli.CheckJson(repo);
+        Assert.Equal(2, run.Exit);
+        var notification = Assert.Single(run.Json.GetProperty("notifications").EnumerateArray());
+        Assert.Contains("max_share", notification.GetProperty("message").GetString(), StringComparison.Ordinal);
+        // A rule that no pack has is still reported as such.
+        repo.Write(".settinglint.yaml", "rules:\n  SL998: off\n");
+        var missing = Cli.CheckJson(repo);
+        Assert.Contains("SL998 is not in any loaded pack", Assert.Single(missing.Json.GetProperty("notifications").EnumerateArray()).GetProperty("message").GetString(), StringComparison.Ordinal);
+    }
+}

@@ -35,7 +35,7 @@ public sealed class TextOutputTests
         var lines = run.Stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries);
         Assert.Equal(4, lines.Length);
         Assert.StartsWith("motors/m-1.yaml:9:22: error SL006: '58' has no unit", lines[0], StringComparison.Ordinal);
-        Assert.Equal("  SL006  A unit is missing, unknown, of the wrong dimension, or does not say primary or secondary.  (settinglint rules show SL006)", lines[2]);
+        Assert.Equal("  SL006  A unit is missing, unknown, of the wrong dimension, or does not say primary or secondary.  (" + SettingLint.Reporting.ToolCommand.Current + " rules show SL006)", lines[2]);
         Assert.Equal("1 error, 0 warnings, 0 notes in 2 files (1 motor)", lines[3]);
     }
 

@@ -190,4 +190,21 @@ public sealed class DiscoveryTests
         Assert.False(RepositoryRoot.Contains("/r/repo", "/r/repository/a.yaml"));
         Assert.False(RepositoryRoot.Contains("/r/repo", "/r"));
     }
+
+    [Fact]
+    public void Outside_git_the_root_is_the_nearest_folder_with_a_configuration_else_the_current_folder()
+    {
+        using var repo = new TempRepo(git: false);
+        var motor = repo.Write("plant/motors/p-101.yaml", "kind: motor-protection\n");
+        // No .git and no .settinglint.yaml: the current folder when the file lies below it, else the file's folder.
+        Assert.Equal(repo.PathOf("plant"), RepositoryRoot.Find(motor, repo.PathOf("plant")));
+        Assert.Equal(repo.PathOf("plant/motors"), RepositoryRoot.Find(motor, repo.Outer + "-elsewhere"));
+        // A .settinglint.yaml above the file marks the root, wherever the current folder is.
+        repo.Write("plant/.settinglint.yaml", "fail_on: error\n");
+        Assert.Equal(repo.PathOf("plant"), RepositoryRoot.Find(motor, repo.PathOf("plant/motors")));
+        // A git work tree wins over a nearer configuration.
+        repo.Write("plant/motors/.settinglint.yaml", "fail_on: error\n");
+        Directory.CreateDirectory(repo.PathOf(".git"));
+        Assert.Equal(repo.Root, RepositoryRoot.Find(motor, repo.PathOf("plant/motors")));
+    }
 }

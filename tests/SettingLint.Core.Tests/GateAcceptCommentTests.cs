@@ -162,4 +162,17 @@ public sealed class GateAcceptCommentTests
         var result = Acceptances.Apply(file, [At("SL201", 7)], Known);
         Assert.Equal("line reason", Assert.Single(result).Suppression?.Justification);
     }
+
+    [Fact]
+    public void An_acceptance_is_not_called_stale_where_an_error_in_the_data_explains_the_file()
+    {
+        // An empty `bus:` (SL005) keeps the bus rules from running: their acceptance matching nothing is a knock-on.
+        var file = Load(Motor.Replace("pickup: 7.2 A sec", "pickup: 7.2 A sec # settinglint-accept SL203: breaker replacement ordered", StringComparison.Ordinal));
+        var result = Acceptances.Apply(file, [At("SL005", 3)], Known);
+        Assert.DoesNotContain(result, f => f.RuleId == EngineRules.Suppression);
+        // Without that error the same acceptance is stale; and an acceptance of a data check is judged as before.
+        Assert.Contains(Acceptances.Apply(file, [], Known), f => f.RuleId == EngineRules.Suppression);
+        var engine = Load(Motor.Replace("pickup: 7.2 A sec", "pickup: 7.2 A sec # settinglint-accept SL006: reviewed", StringComparison.Ordinal));
+        Assert.Contains(Acceptances.Apply(engine, [At("SL005", 3)], Known), f => f.RuleId == EngineRules.Suppression);
+    }
 }

@@ -1,5 +1,6 @@
 using System.Text;
 using CsCheck;
+using SettingLint.Tests.Shared;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
@@ -33,9 +34,10 @@ public sealed class LoaderFuzzTests
         Assert.True(ok, span + " for " + Codes(text));
     }
 
+    [Trait("Category", "Property")]
     [Fact]
     public void The_loader_never_throws_and_positions_are_inside_the_file() =>
-        Text.Sample(text =>
+        Text.SampleSeeded(text =>
         {
             foreach (var limits in (LoadLimits[])[LoadLimits.Default, Tight])
             {
@@ -51,9 +53,10 @@ public sealed class LoaderFuzzTests
             }
         }, iter: Iterations);
 
+    [Trait("Category", "Property")]
     [Fact]
     public void Random_bytes_never_throw() =>
-        Gen.Byte.Array[0, 64].Sample(bytes =>
+        Gen.Byte.Array[0, 64].SampleSeeded(bytes =>
         {
             var file = YamlLoader.Load(bytes, "/r/f.yaml", "f.yaml", LoadLimits.Default);
             Assert.All(file.Findings, f => Assert.True(f.RuleId is EngineRules.Syntax or EngineRules.DuplicateKey or EngineRules.WrongType or EngineRules.Limit, f.RuleId));

@@ -104,4 +104,13 @@ public sealed class RuleLanguageTests
         var deep = new string('(', 40) + "1" + new string(')', 40) + " > 0";
         Assert.Throws<RuleSyntaxException>(() => ExpressionParser.Parse(deep));
     }
+
+    [Fact]
+    public void A_double_quote_is_told_to_become_a_single_one()
+    {
+        var e = Assert.Throws<RuleSyntaxException>(() => ExpressionParser.Parse("starter.type == \"soft-starter\""));
+        Assert.Contains("use single quotes for text", e.Message, StringComparison.Ordinal);
+        Assert.Equal("starter.type == ".Length, e.Offset);
+        Assert.IsType<TextLit>(((Binary)ExpressionParser.Parse("starter.type == 'soft-starter'")).Right);
+    }
 }

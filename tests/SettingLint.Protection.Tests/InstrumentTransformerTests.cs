@@ -1,4 +1,5 @@
 using CsCheck;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Protection.Tests;
 
@@ -65,9 +66,10 @@ public sealed class InstrumentTransformerTests
     }
 
     // Common practice: CT conversions round-trip.
+    [Trait("Category", "Property")]
     [Fact]
     public void CtRoundTrip_CommonPractice() =>
-        Gen.Select(Gen.Double[1, 10_000], Gen.Double[0.5, 10], Gen.Double[-100_000, 100_000]).Sample((primary, secondary, current) =>
+        Gen.Select(Gen.Double[1, 10_000], Gen.Double[0.5, 10], Gen.Double[-100_000, 100_000]).SampleSeeded((primary, secondary, current) =>
         {
             var ratio = new CtRatio(primary, secondary);
             Assert.Equal(current, ratio.ToPrimary(ratio.ToSecondary(current)), 1e-9 * Math.Max(1, Math.Abs(current)));
@@ -75,9 +77,10 @@ public sealed class InstrumentTransformerTests
         });
 
     // Common practice: VT conversions round-trip.
+    [Trait("Category", "Property")]
     [Fact]
     public void VtRoundTrip_CommonPractice() =>
-        Gen.Select(Gen.Double[100, 500_000], Gen.Double[50, 240], Gen.Double[0, 1_000_000]).Sample((primary, secondary, voltage) =>
+        Gen.Select(Gen.Double[100, 500_000], Gen.Double[50, 240], Gen.Double[0, 1_000_000]).SampleSeeded((primary, secondary, voltage) =>
         {
             var ratio = new VtRatio(primary, secondary);
             Assert.Equal(voltage, ratio.ToPrimary(ratio.ToSecondary(voltage)), 1e-9 * Math.Max(1, voltage));

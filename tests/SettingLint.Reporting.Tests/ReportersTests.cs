@@ -7,11 +7,13 @@ public sealed class ReportersTests
     [InlineData("json", typeof(JsonReporter))]
     [InlineData("sarif", typeof(SarifReporter))]
     [InlineData("markdown", typeof(MarkdownReporter))]
+    [InlineData("code-quality", typeof(CodeQualityReporter))]
+    [InlineData("junit", typeof(JUnitReporter))]
     public void Each_format_has_its_reporter(string format, Type type) =>
         Assert.IsType(type, Reporters.For(format));
 
     [Fact]
-    public void Formats_lists_text_first() => Assert.Equal(["text", "json", "sarif", "markdown"], Reporters.Formats.ToArray());
+    public void Formats_lists_text_first() => Assert.Equal(["text", "json", "sarif", "markdown", "code-quality", "junit"], Reporters.Formats.ToArray());
 
     [Theory]
     [InlineData("SARIF")]

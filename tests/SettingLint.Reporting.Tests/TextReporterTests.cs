@@ -19,14 +19,49 @@ public sealed class TextReporterTests
         Assert.Equal(
         [
             "P-101A.yaml:4:3: error SL201: pickup 2400 A is below 1.6 x locked-rotor current 1620 A",
-            "P-101A.yaml:9:5: warning SL112: thermal trip time 8.5 s is shorter than start time 9.2 s [suppressed: accepted for the 2024 outage, see MOC-17]",
             "P-102 spare.yaml:12:7: note SL305: undervoltage delay 0.2 s is shorter than the transfer time bus B-1 transfer",
+            "settinglint: accepted SL112: 1 finding accepted in the source, in P-101A.yaml (--show-accepted lists them)",
             "Rules:",
-            "  SL112  Thermal trip time is shorter than the start time.  (settinglint rules show SL112)",
             "  SL201  Instantaneous pickup is below the asymmetric locked-rotor current.  (settinglint rules show SL201)",
             "  SL305  Undervoltage delay is shorter than the bus transfer time.  (settinglint rules show SL305)",
-            "1 error, 0 warnings, 1 note in 3 files (3 motors); 1 suppressed",
+            "1 error, 0 warnings, 1 note in 3 files (3 motors); 1 accepted in the source",
         ], Lines(Samples.Result(), Samples.Context("/r/motors")));
+    }
+
+    [Fact]
+    public void Show_accepted_lists_each_accepted_finding_with_its_reason()
+    {
+        var lines = Lines(Samples.Result(), Samples.Context("/r/motors") with { ShowAccepted = true });
+        Assert.Equal("P-101A.yaml:9:5: warning SL112: thermal trip time 8.5 s is shorter than start time 9.2 s [suppressed: accepted for the 2024 outage, see MOC-17]", lines[1]);
+        Assert.DoesNotContain(lines, l => l.StartsWith("settinglint: accepted", StringComparison.Ordinal));
+        Assert.Contains("  SL112  Thermal trip time is shorter than the start time.  (settinglint rules show SL112)", lines);
+    }
+
+    [Fact]
+    public void Accepted_findings_of_one_rule_in_many_files_are_one_line()
+    {
+        var accepted = Enumerable.Range(1, 5).Select(i => Samples.ThermalSuppressed with { File = $"motors/M-{i}.yaml" }).ToList();
+        var result = Samples.Result() with { Findings = [Samples.Pickup, .. accepted] };
+        var lines = Lines(result, Samples.Context("/r"));
+        Assert.Equal("settinglint: accepted SL112: 5 findings accepted in the source, in motors/M-1.yaml, motors/M-2.yaml, motors/M-3.yaml and 2 other files (--show-accepted lists them)", Assert.Single(lines, l => l.Contains("accepted SL112", StringComparison.Ordinal)));
+        Assert.Equal("1 error, 0 warnings, 0 notes in 3 files (3 motors); 5 accepted in the source", lines[^1]);
+    }
+
+    [Fact]
+    public void New_in_the_baseline_accepted_and_gate_changes_are_counted_apart()
+    {
+        // Every number of the summary says where its findings are: the errors are the lines listed, the rest are named.
+        var baselined = Samples.Pickup with { File = "motors/K-201.yaml", BaselineState = BaselineState.Unchanged };
+        var fresh = Samples.Pickup with { BaselineState = BaselineState.New };
+        var accepted = Samples.ThermalSuppressed with { Level = Level.Error, BaselineState = BaselineState.New };
+        var gateChange = new Finding(EngineRules.GateChange, Level.Warning, ".settinglint.yaml", new Core.Documents.SourceSpan(2, 1, 2, 9), "rules.SL201", "SL201 switched off", ImmutableSortedDictionary<string, FindingValue>.Empty) { BaselineState = BaselineState.New };
+        var result = Samples.Result() with { Findings = [gateChange, baselined, fresh, accepted], BaselineFile = "settinglint.baseline" };
+        var lines = Lines(result, Samples.Context("/r"));
+        Assert.Equal(".settinglint.yaml:2:1: warning SL011: SL201 switched off", lines[0]);
+        Assert.Equal("motors/P-101A.yaml:4:3: error SL201: pickup 2400 A is below 1.6 x locked-rotor current 1620 A", lines[1]);
+        Assert.Equal(1, lines.Count(l => l.Contains(": error SL", StringComparison.Ordinal)));
+        Assert.Contains("Baseline settinglint.baseline: 1 new, 1 unchanged (not listed), 0 absent; only new findings can fail the run.", lines);
+        Assert.Equal("1 error, 0 warnings, 0 notes in 3 files (3 motors); 1 in the baseline (not listed); 1 accepted in the source; 1 change to the gate (SL011)", lines[^1]);
     }
 
     [Fact]
@@ -51,7 +86,7 @@ public sealed class TextReporterTests
         // Two findings, the legend of their two rules, the summary: the omitted rule is not in the legend either.
         Assert.Equal(6, lines.Length);
         Assert.DoesNotContain(lines, static l => l.Contains("SL112", StringComparison.Ordinal));
-        Assert.Equal("1 error, 0 warnings, 1 note in 3 files (3 motors); 1 suppressed", lines[^1]);
+        Assert.Equal("1 error, 0 warnings, 1 note in 3 files (3 motors); 1 accepted in the source", lines[^1]);
     }
 
     [Fact]
@@ -62,7 +97,7 @@ public sealed class TextReporterTests
         Assert.Equal("../.settinglint.yaml:3:5: error: unknown rule id SL999 in 'rules'", lines[0]);
         Assert.Equal("settinglint: error: no setting files under 'plant/'", lines[1]);
         Assert.Equal("settinglint: internal error: the evaluator failed on motor P-102", lines[2]);
-        Assert.Equal("1 error, 0 warnings, 1 note in 3 files (3 motors); 1 suppressed; 2 configuration errors; 1 internal error", lines[^1]);
+        Assert.Equal("1 error, 0 warnings, 1 note in 3 files (3 motors); 1 accepted in the source; 2 configuration errors; 1 internal error", lines[^1]);
     }
 
     [Fact]

@@ -1,19 +1,31 @@
 namespace SettingLint.Core.Discovery;
 
-/// <summary>Finds the repository root: the nearest folder upward that holds `.git`, or the checked folder itself.</summary>
+/// <summary>
+/// Finds the repository root: the nearest folder upward that holds `.git`; outside a git work tree, the nearest that
+/// holds a `.settinglint.yaml`; else the current folder when the checked path lies below it, else the checked folder.
+/// A file checked on its own outside git (`check motors/p-101.yaml`) thus still reaches `../buses/` beside it.
+/// </summary>
 public static class RepositoryRoot
 {
     /// <summary>The root for a checked path (file or folder), as an absolute path without trailing separator.</summary>
-    public static string Find(string checkedPath)
+    public static string Find(string checkedPath) => Find(checkedPath, Directory.GetCurrentDirectory());
+
+    /// <summary>The root for a checked path, with the current folder given (for the tests).</summary>
+    public static string Find(string checkedPath, string currentDirectory)
     {
         var full = Path.GetFullPath(checkedPath);
         var start = Directory.Exists(full) ? full : Path.GetDirectoryName(full) ?? full;
-        for (var dir = start; dir is not null; dir = Path.GetDirectoryName(dir))
+        foreach (var marker in (string[])[".git", ".settinglint.yaml"])
         {
-            var git = Path.Combine(dir, ".git");
-            if (Directory.Exists(git) || File.Exists(git)) return Trim(dir);
+            for (var dir = start; dir is not null; dir = Path.GetDirectoryName(dir))
+            {
+                var path = Path.Combine(dir, marker);
+                // `.git` is a folder, or a file in a linked work tree or submodule.
+                if (Directory.Exists(path) && marker == ".git" || File.Exists(path)) return Trim(dir);
+            }
         }
-        return Trim(start);
+        var cwd = Trim(Path.GetFullPath(currentDirectory));
+        return Contains(cwd, start) ? cwd : Trim(start);
     }
 
     /// <summary>Whether a full path lies inside the root (or is the root).</summary>

@@ -197,6 +197,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             CheckedFiles = [.. reported.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
             NotRun = [.. reported.SelectMany(s => s.Findings.NotRun).Order(CheckNotRun.Order)],
+            MotorFiles = [.. motorStates.Select(s => (s.RelativePath, s.Motor!.Tag)).OrderBy(m => m.RelativePath, StringComparer.Ordinal)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
         };
     }

@@ -28,8 +28,11 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         {
             results.Add(pack == "builtin" ? builtIn.GetAwaiter().GetResult() : (folders ??= new RuleLoader(s)).Load(RuleLoader.FromFolder(pack, root)));
         }
-        var loaded = RuleLoader.Configure(RuleLoader.Merge(results), config.Overrides);
-        var unknown = config.Overrides.ById.Keys.Where(id => !loaded.Rules.Any(r => r.Id == id) && !EngineRules.All.Any(r => r.Id == id))
+        var merged = RuleLoader.Merge(results);
+        var loaded = RuleLoader.Configure(merged, config.Overrides);
+        // Asked of the packs as loaded: a rule that its configuration made unusable (a parameter in the wrong unit) is
+        // reported for that alone, not also as missing.
+        var unknown = config.Overrides.ById.Keys.Where(id => !merged.Rules.Any(r => r.Id == id) && !EngineRules.All.Any(r => r.Id == id))
             .Select(id => new Notification(NotificationKind.Configuration, $"Configuration: the rule {id} is not in any loaded pack.", config.File));
         return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown]);
     }

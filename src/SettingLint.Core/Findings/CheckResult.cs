@@ -50,6 +50,9 @@ public sealed record CheckResult(
     /// <summary>Rules that applied to a motor but were not evaluated because input data is missing, in <see cref="CheckNotRun.Order"/>.</summary>
     public ImmutableArray<CheckNotRun> NotRun { get; init; } = [];
 
+    /// <summary>The motors checked, each as its root-relative file and its tag (the file again when it has none), sorted by file.</summary>
+    public ImmutableArray<(string File, string Tag)> MotorFiles { get; init; } = [];
+
     /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
     public ChangeScope? Scope { get; init; }
 }

@@ -31,6 +31,10 @@ public static partial class Acceptances
         if (comments.IsEmpty) return findings;
         var result = findings.ToArray();
         var problems = new FindingBuilder(relativePath);
+        // An error in the file's own data (it does not parse, a key is missing or empty, a value or unit is wrong, a
+        // reference is broken) keeps some rules from running on it; an acceptance of such a rule that matches nothing
+        // there is not known to be stale, and saying so would bury the error that explains it.
+        var dataError = findings.Any(f => f.Level == Level.Error && f.Suppression is null && IsDataRule(f.RuleId));
         // The narrowest acceptance gives its reason when a line one and a block one both cover a finding.
         foreach (var c in comments.OrderBy(c => c.LastLine - c.FirstLine).ThenBy(c => c.Span.StartLine))
         {
@@ -77,7 +81,7 @@ public static partial class Acceptances
                     matched = true;
                     if (f.Suppression is null) result[k] = f with { Suppression = new Suppression(c.Reason, relativePath, c.Span) };
                 }
-                if (!matched)
+                if (!matched && !(dataError && !IsDataRule(id)))
                 {
                     problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
                         "No {id} finding lies on {lines}, which this acceptance covers: it is stale; remove {id} from it, or the whole comment.",
@@ -87,6 +91,9 @@ public static partial class Acceptances
         }
         return problems.HasAny ? [.. result, .. problems.Findings] : result;
     }
+
+    // SL001-SL009: the engine's checks of the data itself, which run before and apart from the rules.
+    private static bool IsDataRule(string id) => string.CompareOrdinal(id, EngineRules.Syntax) >= 0 && string.CompareOrdinal(id, EngineRules.KindOrFormat) <= 0 && id.Length == 5;
 
     [GeneratedRegex("^SL[0-9]{3}$", RegexOptions.CultureInvariant)]
     private static partial Regex RuleId();

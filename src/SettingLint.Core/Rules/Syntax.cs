@@ -208,6 +208,8 @@ public sealed class ExpressionParser
             }
             return new PathRef(at, word);
         }
+        // Rule files are YAML, where an expression often sits in double quotes already: text inside it takes single ones.
+        if (c == '"') throw new RuleSyntaxException("Unexpected '\"': use single quotes for text in an expression, as in starter.type == 'soft-starter'.", _pos);
         throw new RuleSyntaxException($"Unexpected '{c}'.", _pos);
     }
 
