@@ -9,15 +9,30 @@ using SettingLint.Benchmarks;
 CultureInfo.DefaultThreadCurrentCulture = CultureInfo.InvariantCulture;
 CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
 
+// The parse-only floor as a process of its own, for the process runs (--native): parse every file under DIR and exit.
+if (args is ["--floor", var floorDir])
+{
+    ParseFloor(floorDir);
+    return 0;
+}
+
 var sizes = new[] { 100, 1000, 10000 };
 string? cli = null;
 string? hello = null;
 var rounds = 3;
 var keep = false;
+string? native = null;
+string? floorExe = null;
+var gcModes = false;
+var changed = 0;
 for (var i = 0; i < args.Length; i++)
 {
     switch (args[i])
     {
+        case "--native": native = args[++i]; break;
+        case "--floor-exe": floorExe = args[++i]; break;
+        case "--gc-modes": gcModes = true; break;
+        case "--changed": changed = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
         case "--sizes": sizes = args[++i].Split(',', StringSplitOptions.RemoveEmptyEntries).Select(int.Parse).ToArray(); break;
         case "--cli": cli = args[++i]; break;
         case "--hello": hello = args[++i]; break;
@@ -25,6 +40,16 @@ for (var i = 0; i < args.Length; i++)
         case "--keep": keep = true; break;
         default: Console.Error.WriteLine($"unknown argument {args[i]}"); return 2;
     }
+}
+
+// Process runs of a published CLI (the native executable): floor and check as processes, GC modes, a changed-files run, start-up.
+if (native is not null)
+{
+    Console.WriteLine($"SettingLint process benchmarks  |  {Environment.ProcessorCount} logical CPUs  |  {DateTime.UtcNow:yyyy-MM-dd HH:mm} UTC  |  rounds={rounds}");
+    if (floorExe is not null) ProcessRuns.Repositories(native, floorExe, sizes, rounds, gcModes);
+    if (changed > 0) ProcessRuns.ChangedSince(native, changed, rounds);
+    if (hello is not null) StartUp(native, hello);
+    return 0;
 }
 
 Console.WriteLine($"SettingLint benchmarks  |  {Environment.ProcessorCount} logical CPUs, {RuntimeInformationText()}, Server GC={System.Runtime.GCSettings.IsServerGC}");

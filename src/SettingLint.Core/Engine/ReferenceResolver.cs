@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using System.Diagnostics.CodeAnalysis;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
@@ -6,7 +7,12 @@ using SettingLint.Core.Model;
 namespace SettingLint.Core.Engine;
 
 /// <summary>Resolves `bus` and `relay_model` references inside the repository root only; a path outside is refused before anything is read.</summary>
-internal sealed class ReferenceResolver<TState>(
+/// <typeparam name="TState">
+/// The per-file state. Its annotation is the one <see cref="Lazy{T}"/> puts on its own type parameter (a Lazy made
+/// without a factory calls the parameterless constructor); stating it here lets the trimmer and NativeAOT check that
+/// requirement (IL2091) instead of it being hidden. Every Lazy here has a factory, so nothing extra is kept.
+/// </typeparam>
+internal sealed class ReferenceResolver<[DynamicallyAccessedMembers(DynamicallyAccessedMemberTypes.PublicParameterlessConstructor)] TState>(
     string root,
     ConcurrentDictionary<string, Lazy<TState>> states,
     Func<TState, BoundDocument?> bound,
