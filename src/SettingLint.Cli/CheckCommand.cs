@@ -1,7 +1,7 @@
 using System.CommandLine;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Gate;
+using SettingLint.Core.Linting;
 using SettingLint.Reporting;
 
 namespace SettingLint.Cli;
@@ -107,7 +107,7 @@ public static class CheckCommand
         var started = DateTimeOffset.UtcNow;
         var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
         var gate = new GateOptions(!options.NoSuppress, options.Baseline, options.ChangedSince, options.Staged, options.AllFiles);
-        var result = Session.Open(paths).Check(paths, options.FailOn, gate: gate);
+        var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), paths) { FailOn = options.FailOn, Options = gate });
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
             StartTimeUtc = options.Timestamps ? started : null,

@@ -4,6 +4,7 @@ using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 
 namespace SettingLint.Core.Configuration;
@@ -30,26 +31,31 @@ public sealed record SettingsConfig(
         return !Exclude.Any(g => Glob.Matches(g, relativePath));
     }
 
-    /// <summary>Finds the config from the checked path upward to the root, and reads it; problems carry the file's positions.</summary>
-    public static (SettingsConfig Config, ImmutableArray<Notification> Problems) Load(string root, string checkedPath, SchemaSet schemas)
+    /// <summary>
+    /// Finds the config from the checked path (absolute) upward to the source's root, and reads it through the source;
+    /// problems carry the file's positions.
+    /// </summary>
+    public static (SettingsConfig Config, ImmutableArray<Notification> Problems) Load(IFileSource source, string checkedPath, SchemaSet schemas)
     {
-        var full = Path.GetFullPath(checkedPath);
-        var dir = Directory.Exists(full) ? full : Path.GetDirectoryName(full) ?? root;
+        ArgumentNullException.ThrowIfNull(source);
+        var root = source.Root;
+        var dir = source.Probe(checkedPath) == EntryKind.Folder ? checkedPath : Path.GetDirectoryName(checkedPath) ?? root;
         for (var d = dir; d is not null && Discovery.RepositoryRoot.Contains(root, d); d = Path.GetDirectoryName(d))
         {
             foreach (var name in (string[])[FileName, ".settinglint.yml"])
             {
                 var f = Path.Combine(d, name);
-                if (System.IO.File.Exists(f)) return Read(root, f, schemas);
+                if (source.Probe(f) == EntryKind.File) return Read(source, f, schemas);
             }
         }
         return (Default, []);
     }
 
-    private static (SettingsConfig, ImmutableArray<Notification>) Read(string root, string path, SchemaSet schemas)
+    private static (SettingsConfig, ImmutableArray<Notification>) Read(IFileSource source, string path, SchemaSet schemas)
     {
+        var root = source.Root;
         var rel = Discovery.RepositoryRoot.Relative(root, path);
-        var loaded = YamlLoader.LoadFile(path, rel, LoadLimits.Default);
+        var loaded = source.Load(path, rel, LoadLimits.Default);
         var findings = new FindingBuilder(rel);
         foreach (var f in loaded.Findings) findings.Add(f);
         YMapping? m = loaded.Root as YMapping;
@@ -71,7 +77,7 @@ public sealed record SettingsConfig(
             {
                 if (p.Value == "builtin") { packs.Add("builtin"); continue; }
                 var folder = Path.GetFullPath(Path.Combine(baseDir, p.Value));
-                if (!Discovery.RepositoryRoot.Contains(root, folder) || !Directory.Exists(folder))
+                if (!Discovery.RepositoryRoot.Contains(root, folder) || source.Probe(folder) != EntryKind.Folder)
                 {
                     problems.Add(new Notification(NotificationKind.Configuration, $"Configuration: the rule pack '{p.Value}' is not a folder inside the repository.", rel, p.Span));
                     continue;

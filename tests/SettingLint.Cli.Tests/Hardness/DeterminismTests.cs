@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
+using SettingLint.Core.Rules;
 using SettingLint.Reporting;
 
 namespace SettingLint.Cli.Tests.Hardness;

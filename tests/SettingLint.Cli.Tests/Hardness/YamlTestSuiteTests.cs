@@ -1,5 +1,6 @@
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Rules;
 
 namespace SettingLint.Cli.Tests.Hardness;
 
