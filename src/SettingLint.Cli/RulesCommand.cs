@@ -132,13 +132,14 @@ public static class RulesCommand
         {
             if (r.Passed)
             {
-                stdout.WriteLine($"ok    {r.RuleId}  ({r.Expected} expected)");
+                stdout.WriteLine($"ok    {r.RuleId}  ({r.Expected} expected, {r.CheckedValues} values checked)");
                 continue;
             }
             failed++;
             stdout.WriteLine($"FAIL  {r.RuleId}");
             foreach (var m in r.Missed) stdout.WriteLine($"      missed:     {m}");
             foreach (var u in r.Unexpected) stdout.WriteLine($"      unexpected: {u}");
+            foreach (var w in r.WrongValues) stdout.WriteLine($"      value:      {w}");
             foreach (var p in r.Problems) stdout.WriteLine($"      problem:    {p}");
         }
         stdout.WriteLine($"{results.Length - failed} rules passed, {failed} failed");

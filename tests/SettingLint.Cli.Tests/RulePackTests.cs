@@ -26,10 +26,38 @@ public sealed class RulePackTests
         var (results, problems) = FixtureRunner.Run(Path.Combine(RepositoryPaths.Root(), "rules"));
         Assert.Empty(problems.Select(p => $"{p.File}:{p.Span}: {p.Message}"));
         var failures = results.Where(r => !r.Passed)
-            .Select(r => r.RuleId + ": " + string.Join("; ", r.Missed.Select(m => "missed " + m).Concat(r.Unexpected.Select(u => "unexpected " + u)).Concat(r.Problems)))
+            .Select(r => r.RuleId + ": " + string.Join("; ", r.Missed.Select(m => "missed " + m).Concat(r.Unexpected.Select(u => "unexpected " + u)).Concat(r.WrongValues).Concat(r.Problems)))
             .ToList();
         Assert.Empty(failures);
         Assert.Equal(RuleLoader.BuiltIn().Count, results.Length);
+    }
+
+    [Fact]
+    public void A_marker_value_that_differs_from_the_finding_fails_the_fixture()
+    {
+        // SL805's fixture: IEC 60255-149 cold trip at LRC, 174 s x ln(27.221 / 26.221) = 6.51 s (worked in the fixture's header).
+        var pack = Path.Combine(Path.GetTempPath(), "sl-marker-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            var rule = Path.Combine(pack, "SL805");
+            Directory.CreateDirectory(Path.Combine(rule, "fixtures"));
+            var source = Path.Combine(RepositoryPaths.Root(), "rules", "SL805");
+            File.Copy(Path.Combine(source, "rule.yaml"), Path.Combine(rule, "rule.yaml"));
+            foreach (var f in Directory.GetFiles(Path.Combine(source, "fixtures")))
+            {
+                var text = File.ReadAllText(f).Replace("actual=6.51 s", "actual=6.53 s", StringComparison.Ordinal);
+                File.WriteAllText(Path.Combine(rule, "fixtures", Path.GetFileName(f)), text);
+            }
+            var (results, problems) = FixtureRunner.Run(rule);
+            Assert.Empty(problems);
+            var result = Assert.Single(results, r => r.RuleId == "SL805");
+            Assert.False(result.Passed);
+            Assert.Contains(result.WrongValues, w => w.Contains("actual expected 6.53 s, found 6.51 s", StringComparison.Ordinal));
+        }
+        finally
+        {
+            Directory.Delete(pack, true);
+        }
     }
 
     [Fact]

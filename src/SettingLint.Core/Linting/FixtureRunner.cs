@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Text.RegularExpressions;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
@@ -13,22 +14,33 @@ public sealed record FixtureLine(string File, int Line, string RuleId)
     public override string ToString() => $"{File}:{Line}: {RuleId}";
 }
 
-/// <summary>The outcome of one rule's fixtures: what was expected and missed, what came unexpectedly, and what was wrong with the fixtures.</summary>
+/// <summary>
+/// The outcome of one rule's fixtures: what was expected and missed, what came unexpectedly, which named values differ
+/// from the markers, and what was wrong with the fixtures.
+/// </summary>
 public sealed record FixtureResult(string RuleId, string Folder, ImmutableArray<FixtureLine> Missed, ImmutableArray<FixtureLine> Unexpected, ImmutableArray<string> Problems, int Expected)
 {
-    public bool Passed => Missed.IsEmpty && Unexpected.IsEmpty && Problems.IsEmpty;
+    /// <summary>Findings on the expected line whose named values differ from the marker's, one line each.</summary>
+    public ImmutableArray<string> WrongValues { get; init; } = [];
+
+    /// <summary>How many named values the markers checked (and found right).</summary>
+    public int CheckedValues { get; init; }
+
+    public bool Passed => Missed.IsEmpty && Unexpected.IsEmpty && Problems.IsEmpty && WrongValues.IsEmpty;
 }
 
 /// <summary>
 /// Runs rule fixtures. A `# expect: SL201 SL202` comment says those rules must fire on the next line;
-/// every other line of the folder's files must be clean for the folder's own rule.
+/// every other line of the folder's files must be clean for the folder's own rule. A rule id may be followed by
+/// named values, `# expect: SL201 limit=858 A actual=750 A`, which the finding must carry to the precision written
+/// (half a unit of the last digit).
 /// </summary>
 public static partial class FixtureRunner
 {
     [GeneratedRegex(@"^\s*#\s*expect:\s*(?<ids>.*)$", RegexOptions.CultureInvariant)]
     private static partial Regex Marker();
 
-    [GeneratedRegex(@"^SL[0-9]{3}$", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(@"^[A-Z]{2,8}[0-9]{3}$", RegexOptions.CultureInvariant)]
     private static partial Regex RuleId();
 
     /// <summary>Runs the fixtures of every rule folder under a folder (a pack, or one rule's folder), given as an absolute path.</summary>
@@ -67,6 +79,7 @@ public static partial class FixtureRunner
         var result = Linter.Check(new CheckRequest(fixtures, [fixtures]) { Root = fixtures, FailOn = Level.Note, Parallel = false, Rules = rules });
         foreach (var n in result.Notifications) problems.Add((n.File is null ? "" : n.File + ": ") + n.Message);
         var expected = new HashSet<FixtureLine>();
+        var expectedValues = new Dictionary<FixtureLine, (int MarkerLine, ImmutableArray<MarkerValue> Values)>();
         var files = Directory.EnumerateFiles(fixtures, "*.yaml", SearchOption.AllDirectories).OrderBy(f => f, StringComparer.Ordinal);
         foreach (var file in files)
         {
@@ -78,15 +91,19 @@ public static partial class FixtureRunner
                 if (!m.Success) continue;
                 var target = i + 1;
                 while (target < lines.Length && Marker().IsMatch(lines[target])) target++;
-                foreach (var id in m.Groups["ids"].Value.Split([' ', ',', '\t'], StringSplitOptions.RemoveEmptyEntries))
+                var parsed = FixtureMarker.Parse(m.Groups["ids"].Value, out var markerProblem);
+                foreach (var (id, values) in parsed)
                 {
                     if (!RuleId().IsMatch(id) || !known.Contains(id))
                     {
                         problems.Add($"{rel}:{i + 1}: the marker names '{id}', which is not a known rule.");
                         continue;
                     }
-                    expected.Add(new FixtureLine(rel, target + 1, id));
+                    var line = new FixtureLine(rel, target + 1, id);
+                    expected.Add(line);
+                    if (!values.IsEmpty) expectedValues[line] = (i + 1, values);
                 }
+                if (markerProblem is not null) problems.Add($"{rel}:{i + 1}: {markerProblem}");
             }
         }
         var expectedIds = expected.Select(e => e.RuleId).Append(ruleId).ToHashSet(StringComparer.Ordinal);
@@ -104,6 +121,32 @@ public static partial class FixtureRunner
                 problems.Add($"{f.File}:{f.Span.StartLine}:{f.Span.StartColumn}: the fixture itself is not a valid setting file: {f.RuleId} {f.Message}");
             }
         }
-        return new FixtureResult(ruleId, fixtures, missed, unexpected, problems.ToImmutable(), expected.Count);
+        var (wrong, checkedValues) = CompareValues(result.Findings, expectedValues);
+        return new FixtureResult(ruleId, fixtures, missed, unexpected, problems.ToImmutable(), expected.Count) { WrongValues = wrong, CheckedValues = checkedValues };
+    }
+
+    private static (ImmutableArray<string> Wrong, int Checked) CompareValues(
+        ImmutableArray<Finding> findings, Dictionary<FixtureLine, (int MarkerLine, ImmutableArray<MarkerValue> Values)> expectedValues)
+    {
+        var wrong = ImmutableArray.CreateBuilder<string>();
+        var count = 0;
+        foreach (var (line, (markerLine, values)) in expectedValues.OrderBy(x => x.Key.File, StringComparer.Ordinal).ThenBy(x => x.Key.Line))
+        {
+            var onLine = findings.Where(f => f.RuleId == line.RuleId && f.File == line.File && f.Span.StartLine == line.Line).ToList();
+            if (onLine.Count == 0) continue; // already reported as missed
+            foreach (var v in values)
+            {
+                // Several findings of one rule on a line (a rule over relay ranges): one of them must carry the value.
+                var got = onLine.Select(f => f.Values.GetValueOrDefault(v.Name)).ToList();
+                if (got.Any(g => g is not null && v.Matches(g)))
+                {
+                    count++;
+                    continue;
+                }
+                var shown = got.Where(g => g is not null).Select(g => g!.Number is { } n ? Formats.Number(n) + (string.IsNullOrEmpty(g.Unit) ? "" : " " + g.Unit) + " (" + g.Text + ")" : g!.Text).ToList();
+                wrong.Add($"{line.File}:{markerLine}: {line.RuleId} {v.Name} expected {v.Written}, found " + (shown.Count == 0 ? "no such value" : string.Join(" / ", shown)));
+            }
+        }
+        return (wrong.ToImmutable(), count);
     }
 }
