@@ -61,10 +61,10 @@ public sealed record SettingsConfig(
         YMapping? m = loaded.Root as YMapping;
         if (m is null && loaded.Root is not null && !(loaded.Root is YScalar { Type: ScalarType.Null }))
         {
-            findings.Add(EngineRules.WrongType, loaded.Root.Span, "", "The configuration is a mapping of keys.");
+            findings.Add(EngineRules.NotAMapping, loaded.Root.Span, "", "The configuration is a mapping of keys.");
         }
         if (m is not null) SchemaValidator.Validate(m, schemas.Get(SchemaSet.Config), findings);
-        var problems = findings.Findings.Select(f => new Notification(NotificationKind.Configuration, "Configuration: " + f.Message, rel, f.Span)).ToList();
+        var problems = findings.Findings.Select(f => new Notification(NotificationKind.Configuration, "Configuration: " + f.Message, rel, f.Span) { RuleId = f.RuleId, Values = f.Values }).ToList();
         if (problems.Count > 0 || m is null) return (Default with { File = rel }, [.. problems]);
 
         Level? failOn = m["fail_on"] is YScalar fo ? (fo.Value == "never" ? Level.None : Levels.Parse(fo.Value)) : null;

@@ -207,7 +207,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             var ordered = group.OrderBy(f => f.RelativePath, StringComparer.Ordinal).ToList();
             foreach (var later in ordered.Skip(1))
             {
-                later.Findings.Add(EngineRules.WrongType, later.Document!["tag"]!.Span, "tag",
+                later.Findings.Add(EngineRules.DuplicateTag, later.Document!["tag"]!.Span, "tag",
                     "The tag '{tag}' is already used by {other}; a tag names one piece of equipment in the repository.",
                     ("tag", group.Key), ("other", ordered[0].RelativePath));
             }

@@ -159,11 +159,11 @@ public sealed class RuleLoader(SchemaSet schemas)
         }
         else if (!findings.HasAny)
         {
-            findings.Add(EngineRules.WrongType, SourceSpan.FileStart, "", "A rule file is a mapping of keys.");
+            findings.Add(EngineRules.NotAMapping, SourceSpan.FileStart, "", "A rule file is a mapping of keys.");
         }
         if (findings.HasAny)
         {
-            foreach (var f in findings.Findings) problems.Add(new Notification(NotificationKind.Configuration, "Rule file: " + f.Message, source.DisplayPath, f.Span));
+            foreach (var f in findings.Findings) problems.Add(new Notification(NotificationKind.Configuration, "Rule file: " + f.Message, source.DisplayPath, f.Span) { RuleId = f.RuleId, Values = f.Values });
             return null;
         }
         var r = (YMapping)loaded.Root!;
@@ -342,7 +342,7 @@ public sealed class RuleLoader(SchemaSet schemas)
             sb.Append("\n**Parameters:**\n");
             foreach (var p in ps) sb.Append("- `").Append(p.Name).Append("` = ").Append(p.Format(values[p.Index])).Append(": ").Append(p.Meaning).Append('\n');
         }
-        sb.Append("\nThese rules screen settings for review; they do not replace a protection study by a qualified engineer.");
+        sb.Append('\n').Append(Caution.Text);
         return sb.ToString();
     }
 
