@@ -29,6 +29,9 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// <summary>Evaluates every rule of a motor in one go after binding even when the rule set can do it in two steps; tests compare the two.</summary>
     internal bool OneStep { get; init; }
 
+    /// <summary>Does each pass's work in the reverse of discovery order; tests use it to show that the output order does not come from the order of work.</summary>
+    internal bool Reversed { get; init; }
+
     /// <summary>
     /// What a run keeps of one file once its own values are bound: its findings, bound values (of a motor in a full run,
     /// only those its later rules read) and acceptance comments. Its YAML tree and text are not kept, so that a run's
@@ -129,6 +132,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             states[f.FullPath] = new Lazy<FileState>(() => LoadState(file.FullPath, file.RelativePath, true));
         }
         var discovered = toLoad.Select(f => states[f.FullPath]).ToArray();
+        if (Reversed) Array.Reverse(discovered);
         // A bus or relay model is loaded and bound by whichever comes first, the pass over it or a motor that names
         // it (Lazy runs it once). Own binding never resolves a reference, so no file waits on one that waits on it.
         var resolver = new ReferenceResolver<FileState>(source, states, s => s.Document, (full, rel) => LoadState(full, rel, false));
@@ -162,6 +166,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.RelativePath));
         var reported = settingFiles.Where(Reported).ToArray();
         var motorStates = reported.Where(s => s.Motor is not null).ToArray();
+        if (Reversed) Array.Reverse(motorStates);
         ForEach(options.Parallel, motorStates, s => Guard(
             () =>
             {
