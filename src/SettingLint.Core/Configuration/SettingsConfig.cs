@@ -129,8 +129,15 @@ public static class Glob
 {
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Regex> Cache = new(StringComparer.Ordinal);
 
-    public static bool Matches(string pattern, string path) =>
-        Cache.GetOrAdd(pattern, static p => new Regex("^" + ToRegex(p) + "$", RegexOptions.CultureInvariant, TimeSpan.FromSeconds(1))).IsMatch(path);
+    public static bool Matches(string pattern, string path)
+    {
+        // A long-lived host (the language server) sees the configuration edited key by key: the cache is emptied
+        // rather than let grow with every pattern ever typed.
+        if (Cache.Count > MaxCached) Cache.Clear();
+        return Cache.GetOrAdd(pattern, static p => new Regex("^" + ToRegex(p) + "$", RegexOptions.CultureInvariant, TimeSpan.FromSeconds(1))).IsMatch(path);
+    }
+
+    private const int MaxCached = 256;
 
     private static string ToRegex(string glob)
     {

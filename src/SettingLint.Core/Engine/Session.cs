@@ -49,12 +49,19 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
     public CheckResult Stopped(Level threshold, ImmutableArray<Notification> problems) =>
         new(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], problems, 0, [], threshold);
 
+    /// <summary>
+    /// The checker's options under this session's configuration (its include and exclude globs, its root): the one
+    /// place where the configuration becomes options, for this session's own run and the gate's.
+    /// </summary>
+    public CheckOptions Options(IReadOnlyList<string> paths, Level threshold, bool parallel) =>
+        new(paths, threshold, Parallel: parallel, Include: Config.Includes, Root: Root);
+
     /// <summary>Runs the check of absolute paths on disk without the gate; configuration problems give a result with no findings and exit 2.</summary>
     /// <remarks>Front ends call <c>Linter.Check</c>, which adds the gate, sources and observers; this is the engine's own run.</remarks>
     public CheckResult Check(IReadOnlyList<string> paths, Level? failOn, bool parallel = true)
     {
         var threshold = failOn ?? Config.FailOn ?? Level.Error;
         if (Problems.Length > 0) return Stopped(threshold, Problems);
-        return new Checker(Rules).Run(new CheckOptions(paths, threshold, Parallel: parallel, Include: Config.Includes, Root: Root));
+        return new Checker(Rules).Run(Options(paths, threshold, parallel));
     }
 }

@@ -84,8 +84,13 @@ public static class GatedCheck
             baseline = parsed;
         }
 
-        var options = new CheckOptions(paths, threshold, Parallel: parallel, Include: session.Config.Includes,
-            Accept: gate.Accept, Changes: gate.AllFiles ? null : changes, Source: view, WorkingDirectory: workingDirectory);
+        var options = session.Options(paths, threshold, parallel) with
+        {
+            Accept = gate.Accept,
+            Changes = gate.AllFiles ? null : changes,
+            Source = view,
+            WorkingDirectory = workingDirectory,
+        };
         var result = new Checker(session.Rules).Run(options);
 
         if (changes is not null)
