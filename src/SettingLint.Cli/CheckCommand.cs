@@ -1,5 +1,8 @@
 using System.CommandLine;
+using System.Collections.Immutable;
+using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Fixes;
 using SettingLint.Core.Gate;
 using SettingLint.Core.Linting;
 using SettingLint.Reporting;
@@ -34,6 +37,9 @@ public sealed record CheckOptionsRecord(IReadOnlyList<string> Paths, string Form
 
     /// <summary>The prefix of file links in markdown (--link-base).</summary>
     public string? LinkBase { get; init; }
+
+    /// <summary>Attach to each finding on a setting a value that every rule on it accepts (off with --no-suggest).</summary>
+    public bool Suggest { get; init; } = true;
 }
 
 /// <summary>`settinglint check [PATH...]`.</summary>
@@ -58,10 +64,11 @@ public static class CheckCommand
         var staged = new Option<bool>("--staged") { Description = "Check the contents staged for commit, against HEAD unless --changed-since names another revision (the pre-commit check)." };
         var allFiles = new Option<bool>("--all-files") { Description = "With --changed-since or --staged: check every file, still reporting changes that loosen the gate." };
         var summary = new Option<string?>("--summary") { Description = "Also append the markdown summary to this file (a CI job summary such as $GITHUB_STEP_SUMMARY)." };
+        var noSuggest = new Option<bool>("--no-suggest") { Description = "Do not work out a suggested value for findings on a setting (each costs a second check of its file)." };
         var linkBase = new Option<string?>("--link-base") { Description = "Prefix of the file links in markdown, such as https://github.com/OWNER/REPO/blob/COMMIT/ (default: relative links)." };
         var command = new Command("check", "Check setting files and report findings; the exit code is the gate.")
         {
-            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase,
+            paths, format, output, failOn, timestamps, omit, noSuppress, baseline, changedSince, staged, allFiles, summary, linkBase, noSuggest,
         };
         command.SetAction(parse =>
         {
@@ -87,6 +94,7 @@ public static class CheckCommand
                 AllFiles = parse.GetValue(allFiles),
                 Summary = parse.GetValue(summary),
                 LinkBase = parse.GetValue(linkBase),
+                Suggest = !parse.GetValue(noSuggest),
             };
             if (options.AllFiles && options.ChangedSince is null && !options.Staged)
             {
@@ -108,6 +116,19 @@ public static class CheckCommand
         var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
         var gate = new GateOptions(!options.NoSuppress, options.Baseline, options.ChangedSince, options.Staged, options.AllFiles);
         var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), paths) { FailOn = options.FailOn, Options = gate });
+        // A staged check reads the index; the suggestions would read the working tree, so they wait for a plain check.
+        if (!options.Staged && options.Suggest && result.Notifications.IsEmpty)
+        {
+            var session = Session.Open([Path.GetFullPath(paths[0])]);
+            var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty);
+            // A conflict stands with the findings on its setting: unchanged from the baseline when they all are.
+            var conflicts = set.Conflicts().Select(c =>
+            {
+                var states = result.Findings.Where(f => f.File == c.File && f.KeyPath == c.KeyPath && f.Suppression is null).Select(f => f.BaselineState).ToList();
+                return states.Any(s => s is not null) ? c with { BaselineState = states.Any(s => s is not BaselineState.Unchanged) ? BaselineState.New : BaselineState.Unchanged } : c;
+            });
+            result = result with { Findings = [.. set.Attach(result.Findings).AddRange(conflicts).Order(Finding.Order)] };
+        }
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
             StartTimeUtc = options.Timestamps ? started : null,

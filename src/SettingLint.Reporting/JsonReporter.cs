@@ -142,6 +142,17 @@ public sealed class JsonReporter : IReporter
         }
         json.WriteEndObject();
         if (finding.BaselineState is { } state) json.WriteString("baselineState", state == BaselineState.Unchanged ? "unchanged" : "new");
+        if (finding.Fix is { } fix)
+        {
+            // A value every rule on the setting accepts, checked by a second run; it replaces exactly this region.
+            json.WriteStartObject("suggested");
+            json.WriteString("value", fix.Inserted);
+            json.WriteString("shown", fix.Shown);
+            json.WriteNumber("line", fix.Region.StartLine);
+            json.WriteNumber("column", fix.Region.StartColumn);
+            json.WriteNumber("endColumn", fix.Region.EndColumn);
+            json.WriteEndObject();
+        }
         if (finding.Suppression is { } suppression)
         {
             json.WriteStartObject("suppressed");

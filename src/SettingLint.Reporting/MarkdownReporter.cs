@@ -77,13 +77,18 @@ public sealed class MarkdownReporter : IReporter
         if (open.Count > 0)
         {
             md.Append(baseline ? "### New findings\n\n" : "### Findings\n\n");
-            md.Append("| level | rule | where | finding | actual | limit | margin |\n|---|---|---|---|---:|---:|---:|\n");
+            // The column of suggested values is there only when some finding has one, so that other summaries keep their shape.
+            var suggested = open.Take(MaxRows).Any(f => f.Fix is not null);
+            md.Append("| level | rule | where | finding | actual | limit | margin |").Append(suggested ? " suggested |" : "")
+                .Append("\n|---|---|---|---|---:|---:|---:|").Append(suggested ? "---:|" : "").Append('\n');
             foreach (var f in open.Take(MaxRows))
             {
                 md.Append("| ").Append(f.Level.Token()).Append(" | ").Append(f.RuleId).Append(" | ").Append(Link(f.File, f.Span.StartLine))
                     .Append(" | ").Append(Cell(f.Message))
                     .Append(" | ").Append(Cell(Value(f, "actual"))).Append(" | ").Append(Cell(Value(f, "limit"))).Append(" | ").Append(Cell(Value(f, "margin")))
-                    .Append(" |\n");
+                    .Append(" |");
+                if (suggested) md.Append(' ').Append(Cell(f.Fix is { } fix ? fix.Inserted + " (" + fix.Shown + ")" : "")).Append(" |");
+                md.Append('\n');
             }
             if (open.Count > MaxRows) md.Append(Invariant($"\n{open.Count - MaxRows} more not shown; the SARIF or JSON report has them all.\n"));
             md.Append('\n');

@@ -161,7 +161,44 @@ public sealed class SarifReporter : IReporter
             json.WriteEndArray();
         }
         if (finding.BaselineState is { } state) json.WriteString("baselineState", state == BaselineState.Unchanged ? "unchanged" : "new");
+        if (finding.Fix is { } fix) WriteFix(json, finding.File, fix);
         WriteProperties(json, finding);
+        json.WriteEndObject();
+    }
+
+    // SARIF 2.1.0 3.55: a fix is artifact changes, each a list of replacements: the value's exact region and its new text.
+    private static void WriteFix(Utf8JsonWriter json, string file, FindingFix fix)
+    {
+        json.WriteStartArray("fixes");
+        json.WriteStartObject();
+        WriteDescription(json, "Set " + fix.Inserted + ": " + fix.Shown + ", a value every rule on this setting accepts.");
+        json.WriteStartArray("artifactChanges");
+        json.WriteStartObject();
+        WriteArtifactLocation(json, file);
+        json.WriteStartArray("replacements");
+        json.WriteStartObject();
+        json.WritePropertyName("deletedRegion");
+        json.WriteStartObject();
+        json.WriteNumber("startLine", fix.Region.StartLine);
+        json.WriteNumber("startColumn", fix.Region.StartColumn);
+        json.WriteNumber("endLine", fix.Region.EndLine);
+        json.WriteNumber("endColumn", fix.Region.EndColumn);
+        json.WriteEndObject();
+        json.WriteStartObject("insertedContent");
+        json.WriteString("text", fix.Inserted);
+        json.WriteEndObject();
+        json.WriteEndObject();
+        json.WriteEndArray();
+        json.WriteEndObject();
+        json.WriteEndArray();
+        json.WriteEndObject();
+        json.WriteEndArray();
+    }
+
+    private static void WriteDescription(Utf8JsonWriter json, string text)
+    {
+        json.WriteStartObject("description");
+        json.WriteString("text", text);
         json.WriteEndObject();
     }
 

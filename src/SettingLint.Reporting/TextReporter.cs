@@ -87,9 +87,8 @@ public sealed class TextReporter : IReporter
         var path = ReportPaths.FromCurrentDirectory(result.RepositoryRoot, finding.File, context.CurrentDirectory);
         var line = string.Create(CultureInfo.InvariantCulture,
             $"{path}:{finding.Span.StartLine}:{finding.Span.StartColumn}: {finding.Level.Token()} {finding.RuleId}: {OneLine(finding.Message)}");
-        return finding.Suppression is { } suppression
-            ? line + " [suppressed: " + OneLine(suppression.Justification) + "]"
-            : line;
+        if (finding.Suppression is { } suppression) return line + " [suppressed: " + OneLine(suppression.Justification) + "]";
+        return finding.Fix is { } fix ? line + " [suggested: " + fix.Inserted + "]" : line;
     }
 
     /// <summary>The line of one notification: located like a finding when it has a file, else prefixed with the tool's name.</summary>

@@ -28,6 +28,15 @@ public sealed class DemoTests
     }
 
     [Fact]
+    public void A_setting_outside_the_relay_range_is_said_in_words()
+    {
+        // Reads as a sentence for the engineer, not as the rule's intermediate flags.
+        var finding = Check().Findings.Single(f => f.RuleId == "SL108" && f.File == "examples/motors/p-202.yaml");
+        Assert.Contains("it lies outside the range (200 A pri (5 A sec) to 4 kA pri (100 A sec)", finding.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain("in range:", finding.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Clean_motors_have_no_errors_or_warnings()
     {
         var result = Check();
@@ -71,6 +80,44 @@ public sealed class DemoTests
         {
             ToolFacts.RequireMultitool();
             // The SARIF SDK's own validator with hosted code scanning's rules (npm @microsoft/sarif-multitool).
+            var (errors, output) = SarifValidation.RunMultitool(file);
+            Assert.True(errors == 0, output);
+        }
+        finally
+        {
+            File.Delete(file);
+        }
+    }
+
+    [Fact]
+    public void Demo_sarif_carries_checked_fixes_that_the_sdk_validator_accepts()
+    {
+        var run = Cli.Run("check", Path.Combine(RepositoryPaths.Root(), "examples"), "--format", "sarif");
+        var sarif = run.Stdout;
+        Assert.Empty(SarifValidation.SchemaErrors(sarif));
+        using var doc = JsonDocument.Parse(sarif);
+        var fixes = doc.RootElement.GetProperty("runs")[0].GetProperty("results").EnumerateArray()
+            .Where(r => r.TryGetProperty("fixes", out _))
+            .Select(r => (Rule: r.GetProperty("ruleId").GetString(), Fix: r.GetProperty("fixes")[0])).ToList();
+        // P-202's pickup "46 A pri" (line 46, columns 13-21): SL201 needs 1.7 x the 1.04 kA start at the bus's maximum
+        // voltage = 1.76 kA pri (common practice), and the relay model's 2 A pri step from 200 A gives 1762 A pri.
+        var sl201 = Assert.Single(fixes, f => f.Rule == "SL201").Fix;
+        var change = sl201.GetProperty("artifactChanges")[0];
+        Assert.Equal("examples/motors/p-202.yaml", change.GetProperty("artifactLocation").GetProperty("uri").GetString());
+        var replacement = change.GetProperty("replacements")[0];
+        var region = replacement.GetProperty("deletedRegion");
+        Assert.Equal((46, 13, 46, 21), (region.GetProperty("startLine").GetInt32(), region.GetProperty("startColumn").GetInt32(),
+            region.GetProperty("endLine").GetInt32(), region.GetProperty("endColumn").GetInt32()));
+        Assert.Equal("1762 A pri", replacement.GetProperty("insertedContent").GetProperty("text").GetString());
+        var file = Path.Combine(Path.GetTempPath(), "settinglint-demo-fixes-" + Guid.NewGuid().ToString("N") + ".sarif");
+        File.WriteAllText(file, sarif);
+        try
+        {
+            if (SarifValidation.MultitoolPath() is null)
+            {
+                Assert.False(Environment.GetEnvironmentVariable("CI") == "true", "The SARIF multitool is required in CI (.ci/run installs it).");
+                return;
+            }
             var (errors, output) = SarifValidation.RunMultitool(file);
             Assert.True(errors == 0, output);
         }

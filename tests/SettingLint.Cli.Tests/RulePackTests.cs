@@ -21,6 +21,19 @@ public sealed class RulePackTests
     }
 
     [Fact]
+    public void No_error_rests_on_a_value_from_memory_alone()
+    {
+        // An error stops a merge: it must stand on a published source or a fact of the trade, not only on a recalled
+        // rule of thumb (SL502 was an error on "from memory (rule of thumb)").
+        var loaded = new RuleLoader(Core.Validation.SchemaSet.Shared).Load(RuleLoader.BuiltIn());
+        var offenders = loaded.Rules
+            .Where(r => r.Level == Core.Findings.Level.Error && r.Basis.All(b => b.Contains("from memory", StringComparison.OrdinalIgnoreCase)))
+            .Select(r => r.Id);
+        Assert.Empty(offenders);
+        Assert.Equal(Core.Findings.Level.Warning, loaded.Rules.Single(r => r.Id == "SL502").Level);
+    }
+
+    [Fact]
     public void Every_rule_fixture_passes()
     {
         var (results, problems) = FixtureRunner.Run(Path.Combine(RepositoryPaths.Root(), "rules"));

@@ -550,6 +550,37 @@ public sealed class BindingTests
         var finding = Assert.Single(Bind(text).Findings);
         Assert.Equal((EngineRules.WrongType, 5, 6), Where(finding));
     }
+
+    // IEC 61869-2 rated output at the CT's own rated secondary: 2 VA at 5 A is 0.08 ohm; 15 VA at 1 A is 15 ohm. A ground
+    // CT's burden in VA converts through the ground CT's secondary, not the phase CT's.
+    [Fact]
+    public void A_burden_in_VA_binds_through_its_own_CTs_secondary()
+    {
+        var doc = BindClean(Samples.Replace(
+            Samples.MotorWith("phase_ct: { primary: 75 A, secondary: 5 A, class: C50, burden: 0.3 ohm }",
+                "phase_ct: { primary: 75 A, secondary: 5 A, class: 5P20, rated_burden: 15 VA, burden: 2 VA }"),
+            "ground_ct: { connection: core-balance, primary: 50 A, secondary: 5 A }",
+            "ground_ct: { connection: core-balance, primary: 50 A, secondary: 1 A, class: 5P10, rated_burden: 2.5 VA, burden: 1 VA }"));
+        Assert.Equal(0.08, Si(doc, "transformers.phase_ct.burden"), 12);
+        Assert.Equal(0.6, Si(doc, "transformers.phase_ct.rated_burden"), 12);
+        Assert.Equal(1.0, Si(doc, "transformers.ground_ct.burden"), 12);
+        Assert.Equal(2.5, Si(doc, "transformers.ground_ct.rated_burden"), 12);
+    }
+
+    // setting-files contract (additions): a burden in VA needs its CT's secondary rating; without it the value is refused
+    // with a finding that names the key it needs, and 50 Hz is a frequency on the bus.
+    [Fact]
+    public void A_bus_frequency_binds_in_hertz_and_a_class_outside_the_contract_is_refused()
+    {
+        var (doc, findings) = Bind(Samples.Replace(Samples.Bus, "nominal_voltage: 4160 V", "nominal_voltage: 4160 V\nfrequency: 50 Hz\nmin_voltage: 3950 V"), SchemaSet.Bus);
+        Assert.Empty(findings);
+        Assert.Equal(50, Si(doc, "frequency"));
+        Assert.Equal(3950, Si(doc, "min_voltage"));
+        var (_, wrong) = Bind(Samples.Replace(Samples.Bus, "nominal_voltage: 4160 V", "nominal_voltage: 4160 V\nfrequency: 55 Hz"), SchemaSet.Bus);
+        Assert.Contains(wrong, f => f.KeyPath == "frequency");
+        var (_, px) = Bind(Samples.MotorWith("class: C50", "class: PX"));
+        Assert.Contains(px, f => f.KeyPath == "transformers.phase_ct.class");
+    }
 }
 
 /// <summary>The validator's messages for bounds, against small schemas written here (JSON Schema draft-07 §6.2).</summary>

@@ -35,7 +35,8 @@ public sealed class OrderTests
         var forward = Run(parallel: false, reversed: false);
         var reversed = Run(parallel: false, reversed: true);
         var parallel = Run(parallel: true, reversed: false);
-        Assert.True(forward.Findings.Length > 10, "the demo has planted mistakes");
+        // The demo has planted mistakes in several files, so that an order of work could show in the output.
+        Assert.True(forward.Findings.Select(f => f.File).Distinct().Count() > 1, "findings in more than one file");
         Assert.Equal(Keys(forward), Keys(reversed));
         Assert.Equal(Keys(forward), Keys(parallel));
         Assert.Equal(forward.Motors.ToArray(), reversed.Motors.ToArray());

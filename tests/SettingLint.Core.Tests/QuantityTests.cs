@@ -9,7 +9,7 @@ public sealed class QuantityTests
     private static readonly UnitContext[] Contexts = [UnitContext.Data, UnitContext.MotorData, UnitContext.Setting];
 
     private static readonly Dimension[] DimensionsWithUnits =
-        [Dimension.Current, Dimension.Voltage, Dimension.Time, Dimension.Power, Dimension.Fraction, Dimension.Impedance];
+        [Dimension.Current, Dimension.Voltage, Dimension.Time, Dimension.Power, Dimension.Fraction, Dimension.Impedance, Dimension.Frequency];
 
     /// <summary>Every (dimension, context, unit) that the format accepts; a unit listed as accepted must exist in Unit.All.</summary>
     private static readonly (Dimension Dimension, UnitContext Context, string Symbol)[] Accepted =
@@ -235,4 +235,37 @@ public sealed class QuantityTests
     [Fact]
     public void Huge_numbers_that_overflow_are_not_finite() =>
         Assert.Equal(QuantityError.NotFinite, QuantityParser.Parse("1e999 V", Dimension.Voltage, UnitContext.Data).Error);
+
+    // setting-files contract (additions): xVT is a multiple of the VT's primary rating; 0.9 xVT of a 4200 V VT is 3780 V.
+    [Fact]
+    public void xVT_converts_through_the_VT_primary() =>
+        Assert.Equal(3780, Si("0.9 xVT", Dimension.Voltage, UnitContext.Setting, new(35, 58, null, 4000, VtPrimary: 4200)), 9);
+
+    // IEC 61869-2 rated output: a burden in VA is at the CT's rated secondary current, Z = VA / I^2; 2 VA at 5 A is 0.08 ohm.
+    [Fact]
+    public void A_burden_in_VA_converts_through_the_CT_secondary()
+    {
+        Assert.Equal(0.08, Si("2 VA", Dimension.Impedance, UnitContext.Data, new(null, null, null, null, CtSecondary: 5)), 12);
+        Assert.Equal(15, Si("15 VA", Dimension.Impedance, UnitContext.Data, new(null, null, null, null, CtSecondary: 1)), 12);
+        Assert.Null(QuantityParser.Parse("2 VA", Dimension.Impedance, UnitContext.Data).Value!.Value.ToSi(default));
+    }
+
+    // setting-files contract (additions): the bus frequency is 50 Hz or 60 Hz; xVT is a setting unit, not a data unit.
+    [Fact]
+    public void Frequency_is_in_hertz_and_xVT_only_in_settings()
+    {
+        Assert.Equal(50, Si("50 Hz", Dimension.Frequency, UnitContext.Data), 12);
+        Assert.Equal(QuantityError.NotAccepted, QuantityParser.Parse("0.9 xVT", Dimension.Voltage, UnitContext.Data).Error);
+        Assert.Equal(QuantityError.WrongDimension, QuantityParser.Parse("50 Hz", Dimension.Time, UnitContext.Data).Error);
+    }
+
+    // English: "an impedance", not "a impedance".
+    [Fact]
+    public void Messages_use_an_before_impedance()
+    {
+        var parse = QuantityParser.Parse("0.3", Dimension.Impedance, UnitContext.Data);
+        var message = QuantityParser.Explain(parse, "0.3", Dimension.Impedance, UnitContext.Data);
+        Assert.Contains("an impedance", message, StringComparison.Ordinal);
+        Assert.DoesNotContain("a impedance", message, StringComparison.Ordinal);
+    }
 }

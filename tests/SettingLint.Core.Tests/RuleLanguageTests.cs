@@ -48,6 +48,26 @@ public sealed class RuleLanguageTests
         Assert.Equal(column, problem.Span!.Value.StartColumn);
     }
 
+    // A frequency is per second: cycles over the bus frequency are a time, comparable with a delay.
+    [Fact]
+    public void Cycles_over_a_frequency_are_a_time()
+    {
+        var result = Load(Rule("protection.short_circuit.delay >= 5 / coalesce(bus.frequency, 60 Hz)"));
+        Assert.Empty(result.Problems.Select(p => p.Message));
+        Assert.Single(result.Rules);
+    }
+
+    [Theory]
+    [InlineData("protection.short_circuit.delay >= bus.frequency", "compares")]
+    [InlineData("choose(true, 1 A, 2 s) > 0 A", "one type")]
+    [InlineData("asym_factor_at(bus.x_over_r, 0.05 s, bus.frequency) > 1", "argument 2")]
+    public void Frequencies_and_choices_are_type_checked(string check, string expected)
+    {
+        var result = Load(Rule(check));
+        Assert.Empty(result.Rules);
+        Assert.Contains(expected, Assert.Single(result.Problems).Message, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void A_well_typed_rule_compiles_with_its_parameters()
     {

@@ -24,4 +24,33 @@ public sealed class AsymmetricalCurrentTests
         Assert.Equal(AsymmetricalCurrent.FullyOffsetRmsFactor, AsymmetricalCurrent.DecayingRmsFactor(double.PositiveInfinity), 1e-12);
         Assert.True(AsymmetricalCurrent.DecayingRmsFactor(1e6) < AsymmetricalCurrent.FullyOffsetRmsFactor);
     }
+
+    // IEC 60909-0 (decaying aperiodic component): T = X / (omega R); X/R 10 at 50 Hz is 10 / 314.16 = 31.83 ms.
+    [Fact]
+    public void DcTimeConstant_Iec60909() =>
+        Assert.Equal(0.031831, AsymmetricalCurrent.DcTimeConstant(10, 50), 1e-6);
+
+    // IEC 60909-0 decay, RMS of AC plus DC common practice, by hand: sqrt(1 + 2 exp(-2 t 2 pi f / (X/R))).
+    // X/R 30, 60 Hz, 50 ms: exp(-1.256637) = 0.284610, sqrt(1.569219) = 1.2527.
+    // X/R 20, 60 Hz, 50 ms: exp(-1.884956) = 0.151836, sqrt(1.303672) = 1.1418.
+    // X/R 12, 60 Hz, 50 ms: exp(-3.141593) = 0.043214, sqrt(1.086428) = 1.0423.
+    // X/R 12, 50 Hz, 100 ms: exp(-5.235988) = 0.005322, sqrt(1.010643) = 1.0053.
+    [Theory]
+    [InlineData(30, 60, 0.05, 1.2527)]
+    [InlineData(20, 60, 0.05, 1.1418)]
+    [InlineData(12, 60, 0.05, 1.0423)]
+    [InlineData(12, 50, 0.1, 1.0053)]
+    public void RmsFactorAt_Iec60909_CommonPractice(double xOverR, double frequency, double seconds, double expected) =>
+        Assert.Equal(expected, AsymmetricalCurrent.RmsFactorAt(xOverR, frequency, seconds), 0.0001);
+
+    // Common practice: undecayed at t = 0 (sqrt 3); a half cycle after the start it is the half-cycle factor at
+    // either frequency; no offset without reactance.
+    [Fact]
+    public void RmsFactorAt_Limits_CommonPractice()
+    {
+        Assert.Equal(AsymmetricalCurrent.FullyOffsetRmsFactor, AsymmetricalCurrent.RmsFactorAt(12, 60, 0), 1e-12);
+        Assert.Equal(AsymmetricalCurrent.DecayingRmsFactor(12), AsymmetricalCurrent.RmsFactorAt(12, 60, 1.0 / 120), 1e-12);
+        Assert.Equal(AsymmetricalCurrent.DecayingRmsFactor(12), AsymmetricalCurrent.RmsFactorAt(12, 50, 1.0 / 100), 1e-12);
+        Assert.Equal(1.0, AsymmetricalCurrent.RmsFactorAt(0, 50, 0), 1e-12);
+    }
 }

@@ -153,6 +153,32 @@ internal static class SarifReference
             sarif.BaselineState = state == Core.Findings.BaselineState.Unchanged ? SarifBaselineState.Unchanged : SarifBaselineState.New;
         }
 
+        if (finding.Fix is { } fix)
+        {
+            sarif.Fixes =
+            [
+                new Fix
+                {
+                    Description = new Message { Text = "Set " + fix.Inserted + ": " + fix.Shown + ", a value every rule on this setting accepts." },
+                    ArtifactChanges =
+                    [
+                        new ArtifactChange
+                        {
+                            ArtifactLocation = ArtifactLocation(finding.File),
+                            Replacements =
+                            [
+                                new Replacement
+                                {
+                                    DeletedRegion = new Region { StartLine = fix.Region.StartLine, StartColumn = fix.Region.StartColumn, EndLine = fix.Region.EndLine, EndColumn = fix.Region.EndColumn },
+                                    InsertedContent = new ArtifactContent { Text = fix.Inserted },
+                                },
+                            ],
+                        },
+                    ],
+                },
+            ];
+        }
+
         // The property bag keeps insertion order: keyPath first, then the values in their (ordinal) order.
         sarif.SetProperty("keyPath", finding.KeyPath);
         foreach (var (name, value) in finding.Values)

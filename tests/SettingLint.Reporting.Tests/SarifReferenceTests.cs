@@ -49,6 +49,7 @@ public sealed class SarifReferenceTests
                     .SetItem("negativeZero", new FindingValue("-0", -0.0)).SetItem("tiny", new FindingValue("e", double.Epsilon, "")),
             }],
         }, Samples.Context()),
+        ["fix"] = () => (Samples.Result() with { Findings = [Samples.Pickup with { Fix = new FindingFix(new SourceSpan(31, 13, 31, 21), "44 A sec", "1.76 kA pri (44 A sec)") }] }, Samples.Context()),
         ["region-before-start"] = () => (Samples.Result() with { Findings = [Samples.Pickup with { Span = new SourceSpan(0, 0, 0, 0) }] }, Samples.Context()),
         ["timestamps"] = () => (Samples.Result(), Samples.Context() with { Timestamps = true, StartTimeUtc = Start, EndTimeUtc = Start.AddMilliseconds(1250.7) }),
         ["timestamps-off"] = () => (Samples.Result(), Samples.Context() with { StartTimeUtc = Start, EndTimeUtc = Start }),
@@ -218,7 +219,9 @@ public sealed class SarifReferenceTests
         from values in Values
         from suppression in Gen.Select(Text, File, Span, static (why, file, at) => new Suppression(why, file, at)).Null(0.7)
         from baseline in Gen.Enum<BaselineState>().Nullable(0.5)
-        select new Finding(ruleId, level, file, span, keyPath, template, values) { Suppression = suppression, BaselineState = baseline };
+        from fix in Gen.Select(Gen.Int[1, 9], Gen.Int[1, 9], Gen.Int[0, 9], Text, Text,
+            static (line, column, length, inserted, shown) => new FindingFix(new SourceSpan(line, column, line, column + length), inserted, shown)).Null(0.7)
+        select new Finding(ruleId, level, file, span, keyPath, template, values) { Suppression = suppression, BaselineState = baseline, Fix = fix };
 
     private static readonly Gen<RuleDescriptor> Rule =
         from id in RuleId

@@ -8,7 +8,7 @@ namespace SettingLint.Core.Binding;
 
 /// <summary>
 /// Binds a validated YAML tree into key-path values in SI units, reading each key's type and dimension off its schema.
-/// Relative units (A sec, xFLC, xCT, % of rated voltage) are converted through the element's own transformer.
+/// Relative units (A sec, xFLC, xCT, xVT, % of rated voltage, a CT burden in VA) are converted through the element's own transformer.
 /// </summary>
 public sealed class DocumentBinder
 {
@@ -201,7 +201,7 @@ public sealed class DocumentBinder
                 continue;
             }
             var dimension = q.Unit.Dimension;
-            _values[path] = new MeasureValue(path, node.Span, si.Value, dimension, q, refs.SideRatio);
+            _values[path] = new MeasureValue(path, node.Span, si.Value, dimension, q, dimension is Dimension.Current or Dimension.Voltage ? refs.SideRatio : null);
         }
         // Absolute settings through a transformer still get its ratio, so reports can show the secondary value.
         List<MeasureValue>? withRatio = null;
@@ -227,8 +227,10 @@ public sealed class DocumentBinder
     /// Which CT a protection setting (a key path such as protection.ground_fault.pickup) is measured through: the ground
     /// CT for a ground-fault setting unless it is residually connected, else the phase CT.
     /// </summary>
+    /// A CT's own keys (a burden in VA) refer to that CT.
     public static string CtOf(string settingPath, string? groundConnection) =>
-        settingPath.StartsWith("protection.ground_fault.", StringComparison.Ordinal) && groundConnection != "residual"
+        settingPath.StartsWith("transformers.ground_ct.", StringComparison.Ordinal)
+        || (settingPath.StartsWith("protection.ground_fault.", StringComparison.Ordinal) && groundConnection != "residual")
             ? SettingReferences.GroundCt : SettingReferences.PhaseCt;
 
     // Looked up once the values are bound, once per transformer, for every setting that converts through it.
@@ -250,6 +252,8 @@ public sealed class DocumentBinder
             UnitBasis.FullLoadCurrent => ["motor.full_load_current"],
             UnitBasis.CtRating => [ct + ".primary"],
             UnitBasis.RatedVoltage => ["motor.rated_voltage"],
+            UnitBasis.VtRating => ["transformers.vt.primary"],
+            UnitBasis.CtSecondaryPower => [ct + ".secondary"],
             UnitBasis.Secondary when voltage => ["transformers.vt.primary", "transformers.vt.secondary"],
             _ => [ct + ".primary", ct + ".secondary"],
         };
@@ -263,6 +267,8 @@ public sealed class DocumentBinder
             UnitBasis.FullLoadCurrent => "xFLC needs motor.full_load_current in amperes",
             UnitBasis.CtRating => "xCT needs " + ct + ".primary",
             UnitBasis.RatedVoltage => "% needs motor.rated_voltage",
+            UnitBasis.VtRating => "xVT needs transformers.vt.primary",
+            UnitBasis.CtSecondaryPower => "a burden in VA needs " + ct + ".secondary (Z = VA / I^2)",
             UnitBasis.Secondary when voltage => "a secondary voltage needs transformers.vt with primary and secondary",
             UnitBasis.Secondary => "a secondary current needs " + ct + " with primary and secondary",
             _ => "its reference is missing",

@@ -31,12 +31,12 @@ public static class SettingReferences
         {
             var vp = numbers.Get("transformers.vt.primary");
             var vs = numbers.Get("transformers.vt.secondary");
-            return new ConversionReferences(vp is > 0 && vs is > 0 ? vp / vs : null, flc, null, vr);
+            return new ConversionReferences(vp is > 0 && vs is > 0 ? vp / vs : null, flc, null, vr, vp is > 0 ? vp : null);
         }
         var ground = DocumentBinder.CtOf(settingPath, groundConnection) == GroundCt;
         var cp = numbers.Get(ground ? GroundCt + ".primary" : PhaseCt + ".primary");
         var cs = numbers.Get(ground ? GroundCt + ".secondary" : PhaseCt + ".secondary");
-        return new ConversionReferences(cp is > 0 && cs is > 0 ? cp / cs : null, flc, cp is > 0 ? cp : null, vr);
+        return new ConversionReferences(cp is > 0 && cs is > 0 ? cp / cs : null, flc, cp is > 0 ? cp : null, vr, null, cs is > 0 ? cs : null);
     }
 
     /// <summary>A motor document's numbers.</summary>

@@ -20,6 +20,7 @@ public static class EngineRules
     public const string SecondDocument = "SL013";
     public const string KeyNotPlain = "SL014";
     public const string NotAMapping = "SL015";
+    public const string NoCompliantValue = "SL020";
 
     private static readonly ImmutableArray<string> FileTags = ["file"];
 
@@ -72,6 +73,10 @@ public static class EngineRules
         Make(NotAMapping, "NotAMapping", "A configuration or rule file is not a mapping of keys.",
             "`.settinglint.yaml` and every `rule.yaml` are mappings of keys at the top; a list or a plain value there cannot be read, so the run stops (exit 2).",
             "Write the file as keys and values, as the schema of the configuration (schema/config.schema.json) or of a rule (schema/rule.schema.json) gives them."),
+        Make(NoCompliantValue, "NoCompliantValue", "No value of a setting satisfies every rule on it.",
+            "The rules that bound one setting leave an empty window: the highest lower bound lies above the lowest upper bound (for example an acceleration timer that must exceed 1.1 x a 10 s start and stay below a 10.5 s hot stall time). The finding names the two rules and their bounds.",
+            "No setting clears the findings: the motor data or the protection scheme must change (a speed switch or another stall detection, another CT, another starter), or the data is wrong. Check the data first.",
+            "the rules on the setting (derived from their own comparisons)", Level.Warning, ["fix"]),
     ];
 
     /// <summary>

@@ -26,6 +26,9 @@ public sealed record Finding(
     /// <summary>A suppression that applies to this finding, when there is one.</summary>
     public Suppression? Suppression { get; init; }
 
+    /// <summary>A checked value that clears the finding, when the rules on its setting leave one.</summary>
+    public FindingFix? Fix { get; init; }
+
     /// <summary>How the finding compares with the baseline of the run; null when the run has none.</summary>
     public BaselineState? BaselineState { get; init; }
 

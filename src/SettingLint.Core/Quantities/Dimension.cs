@@ -23,12 +23,15 @@ public enum Dimension
 
     /// <summary>Ohms.</summary>
     Impedance,
+
+    /// <summary>Hertz (the supply frequency).</summary>
+    Frequency,
 }
 
 /// <summary>Names of dimensions as schemas and rules write them.</summary>
 public static class Dimensions
 {
-    /// <summary>The token of a dimension (current, voltage, time, power, percent, impedance, number).</summary>
+    /// <summary>The token of a dimension (current, voltage, time, power, percent, impedance, frequency, number).</summary>
     public static string Token(this Dimension d) => d switch
     {
         Dimension.Current => "current",
@@ -37,6 +40,7 @@ public static class Dimensions
         Dimension.Power => "power",
         Dimension.Fraction => "percent",
         Dimension.Impedance => "impedance",
+        Dimension.Frequency => "frequency",
         _ => "number",
     };
 
@@ -49,6 +53,7 @@ public static class Dimensions
         "power" => Dimension.Power,
         "percent" or "fraction" => Dimension.Fraction,
         "impedance" => Dimension.Impedance,
+        "frequency" => Dimension.Frequency,
         "number" => Dimension.None,
         _ => null,
     };
@@ -62,6 +67,10 @@ public static class Dimensions
         Dimension.Power => "W",
         Dimension.Fraction => "",
         Dimension.Impedance => "ohm",
+        Dimension.Frequency => "Hz",
         _ => "",
     };
+
+    /// <summary>"a" or "an" before the dimension's token, for messages ("an impedance").</summary>
+    public static string Article(this Dimension d) => d is Dimension.Impedance ? "an" : "a";
 }

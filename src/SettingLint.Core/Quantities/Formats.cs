@@ -15,6 +15,7 @@ public static class Formats
         Dimension.Power => Number(value / 1000) + " kW",
         Dimension.Fraction => Number(value * 100) + " %",
         Dimension.Impedance => Number(value) + " ohm",
+        Dimension.Frequency => Number(value) + " Hz",
         _ => Number(value),
     };
 

@@ -8,8 +8,8 @@ public readonly record struct Quantity(double Number, Unit Unit)
     /// <summary>The canonical written form: number, one space, unit.</summary>
     public override string ToString() => Number.ToString("R", CultureInfo.InvariantCulture) + " " + Unit.Symbol;
 
-    /// <summary>Converts to SI (A primary, V primary, s, W, ohm, fraction) with the references the unit needs.</summary>
-    /// <returns>The SI value, or null when a reference the unit needs is missing (no FLC, no CT).</returns>
+    /// <summary>Converts to SI (A primary, V primary, s, W, ohm, fraction, Hz) with the references the unit needs.</summary>
+    /// <returns>The SI value, or null when a reference the unit needs is missing (no FLC, no CT, no VT).</returns>
     public double? ToSi(in ConversionReferences refs)
     {
         var n = Number * Unit.Factor;
@@ -20,6 +20,8 @@ public readonly record struct Quantity(double Number, Unit Unit)
             UnitBasis.FullLoadCurrent => refs.FullLoadCurrent is { } flc ? n * flc : null,
             UnitBasis.CtRating => refs.CtPrimary is { } ct ? n * ct : null,
             UnitBasis.RatedVoltage => refs.RatedVoltage is { } vr ? n * vr : null,
+            UnitBasis.VtRating => refs.VtPrimary is { } vp ? n * vp : null,
+            UnitBasis.CtSecondaryPower => refs.CtSecondary is { } isn ? n / (isn * isn) : null,
             _ => null,
         };
     }
@@ -30,4 +32,6 @@ public readonly record struct Quantity(double Number, Unit Unit)
 /// <param name="FullLoadCurrent">The motor's FLC, A.</param>
 /// <param name="CtPrimary">The element's CT primary rating, A.</param>
 /// <param name="RatedVoltage">The motor's rated voltage, V.</param>
-public readonly record struct ConversionReferences(double? SideRatio, double? FullLoadCurrent, double? CtPrimary, double? RatedVoltage);
+/// <param name="VtPrimary">The VT's primary rating, V (for xVT).</param>
+/// <param name="CtSecondary">The CT's rated secondary current, A (for a burden in VA).</param>
+public readonly record struct ConversionReferences(double? SideRatio, double? FullLoadCurrent, double? CtPrimary, double? RatedVoltage, double? VtPrimary = null, double? CtSecondary = null);

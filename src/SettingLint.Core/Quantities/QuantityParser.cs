@@ -99,16 +99,17 @@ public static class QuantityParser
     {
         var accepted = string.Join(", ", AcceptedUnits.For(dimension, context).Select(u => "'" + u + "'"));
         var what = dimension.Token();
+        var a = dimension.Article();
         return parse.Error switch
         {
-            QuantityError.MissingUnit => $"'{text}' has no unit; a {what} needs one of {accepted}, for example '{Example(dimension, context)}'.",
+            QuantityError.MissingUnit => $"'{text}' has no unit; {a} {what} needs one of {accepted}, for example '{Example(dimension, context)}'.",
             QuantityError.NotANumber when parse.UnitText is not null => $"'{text}' needs a space between the number and the unit, for example '{Example(dimension, context)}'.",
-            QuantityError.NotANumber => $"'{text}' is not a number followed by a unit; a {what} is written like '{Example(dimension, context)}' (units: {accepted}).",
+            QuantityError.NotANumber => $"'{text}' is not a number followed by a unit; {a} {what} is written like '{Example(dimension, context)}' (units: {accepted}).",
             QuantityError.NotFinite => $"'{text}' is not a finite number.",
-            QuantityError.UnknownUnit => $"'{parse.UnitText}' is not a known unit; a {what} takes {accepted}.",
-            QuantityError.WrongDimension => $"'{parse.UnitText}' is a unit of {Unit.All[parse.UnitText!].Dimension.Token()}, but this key is a {what}: use {accepted}.",
-            QuantityError.NeedsSide => $"'{text}' does not say which side of the transformer it is on; in protection settings a {what} is {accepted}.",
-            QuantityError.NotAccepted => $"'{parse.UnitText}' is not accepted here; a {what} here takes {accepted}.",
+            QuantityError.UnknownUnit => $"'{parse.UnitText}' is not a known unit; {a} {what} takes {accepted}.",
+            QuantityError.WrongDimension => $"'{parse.UnitText}' is a unit of {Unit.All[parse.UnitText!].Dimension.Token()}, but this key is {a} {what}: use {accepted}.",
+            QuantityError.NeedsSide => $"'{text}' does not say which side of the transformer it is on; in protection settings {a} {what} is {accepted}.",
+            QuantityError.NotAccepted => $"'{parse.UnitText}' is not accepted here; {a} {what} here takes {accepted}.",
             _ => $"'{text}' is not a valid {what}.",
         };
     }
@@ -123,6 +124,7 @@ public static class QuantityParser
         (Dimension.Power, _) => "450 hp",
         (Dimension.Fraction, _) => "10 %",
         (Dimension.Impedance, _) => "0.3 ohm",
+        (Dimension.Frequency, _) => "50 Hz",
         _ => "1",
     };
 }

@@ -22,6 +22,12 @@ public enum UnitBasis
 
     /// <summary>Percent of the motor's rated voltage, on a voltage element: %.</summary>
     RatedVoltage,
+
+    /// <summary>A multiple of the VT's primary rating: xVT.</summary>
+    VtRating,
+
+    /// <summary>Volt-amperes at the CT's rated secondary current, a burden: VA (Z = VA / I_sn^2).</summary>
+    CtSecondaryPower,
 }
 
 /// <summary>A unit as written: its symbol, dimension, factor to SI, and basis.</summary>
@@ -50,5 +56,8 @@ public sealed record Unit(string Symbol, Dimension Dimension, double Factor, Uni
         new("kW", Dimension.Power, 1000, UnitBasis.Absolute),
         new("%", Dimension.Fraction, 0.01, UnitBasis.Absolute),
         new("ohm", Dimension.Impedance, 1, UnitBasis.Absolute),
+        new("VA", Dimension.Impedance, 1, UnitBasis.CtSecondaryPower),
+        new("xVT", Dimension.Voltage, 1, UnitBasis.VtRating),
+        new("Hz", Dimension.Frequency, 1, UnitBasis.Absolute),
     }.ToFrozenDictionary(u => u.Symbol, StringComparer.Ordinal);
 }

@@ -30,12 +30,13 @@ public static class AcceptedUnits
     private static readonly string[] CurrentSetting = ["A pri", "A sec", "kA pri", "xFLC", "xCT"];
     private static readonly string[] CurrentMotorData = ["A", "kA", "xFLC"];
     private static readonly string[] Current = ["A", "kA"];
-    private static readonly string[] VoltageSetting = ["%", "V pri", "V sec", "kV pri"];
+    private static readonly string[] VoltageSetting = ["%", "V pri", "V sec", "kV pri", "xVT"];
     private static readonly string[] Voltage = ["V", "kV"];
     private static readonly string[] Time = ["ms", "s", "min", "h"];
     private static readonly string[] Power = ["hp", "kW"];
     private static readonly string[] Fraction = ["%"];
-    private static readonly string[] Impedance = ["ohm"];
+    private static readonly string[] Impedance = ["ohm", "VA"];
+    private static readonly string[] Frequency = ["Hz"];
 
     /// <summary>The unit symbols accepted, in the order they are suggested (the same list each time: every value read asks).</summary>
     public static IReadOnlyList<string> For(Dimension dimension, UnitContext context) => (dimension, context) switch
@@ -49,6 +50,7 @@ public static class AcceptedUnits
         (Dimension.Power, _) => Power,
         (Dimension.Fraction, _) => Fraction,
         (Dimension.Impedance, _) => Impedance,
+        (Dimension.Frequency, _) => Frequency,
         _ => [],
     };
 }

@@ -275,7 +275,8 @@ public sealed class Compiler
         const double relative = 1e-9;
         var x = l.Number;
         var y = r.Number;
-        var close = Math.Abs(x - y) <= relative * Math.Max(Math.Abs(x), Math.Abs(y));
+        // An infinite side ("never trips") is close only to the same infinity: inf - x <= 1e-9 x inf would hold for any x.
+        var close = x == y || (double.IsFinite(x) && double.IsFinite(y) && Math.Abs(x - y) <= relative * Math.Max(Math.Abs(x), Math.Abs(y)));
         return Val.Of(op switch
         {
             Comparison.Less => x < y && !close,

@@ -24,6 +24,8 @@ public readonly record struct Dim(sbyte Ampere, sbyte Volt, sbyte Second, sbyte 
         Dimension.Time => Time,
         Dimension.Power => new(0, 0, 0, 1, 0, 0),
         Dimension.Impedance => new(0, 0, 0, 0, 1, 0),
+        // Per second: cycles / frequency is a time.
+        Dimension.Frequency => new(0, 0, -1, 0, 0, 0),
         _ => None,
     };
 
@@ -36,7 +38,8 @@ public readonly record struct Dim(sbyte Ampere, sbyte Volt, sbyte Second, sbyte 
     /// <summary>The engine dimension this is, when it is a plain one (for formatting).</summary>
     public Dimension? Plain =>
         this == None ? Dimension.None : this == Current ? Dimension.Current : this == Voltage ? Dimension.Voltage
-        : this == Time ? Dimension.Time : this == Of(Dimension.Power) ? Dimension.Power : this == Of(Dimension.Impedance) ? Dimension.Impedance : null;
+        : this == Time ? Dimension.Time : this == Of(Dimension.Power) ? Dimension.Power : this == Of(Dimension.Impedance) ? Dimension.Impedance
+        : this == Of(Dimension.Frequency) ? Dimension.Frequency : null;
 
     public override string ToString()
     {

@@ -90,7 +90,7 @@ public static class FixtureMarker
         var siUnit = "";
         if (unitText.Length > 0)
         {
-            if (!Unit.All.TryGetValue(unitText, out var unit) || unit.Basis is UnitBasis.Secondary or UnitBasis.FullLoadCurrent or UnitBasis.CtRating)
+            if (!Unit.All.TryGetValue(unitText, out var unit) || unit.Basis is UnitBasis.Secondary or UnitBasis.FullLoadCurrent or UnitBasis.CtRating or UnitBasis.VtRating or UnitBasis.CtSecondaryPower)
             {
                 value = new MarkerValue(name, shown, null, 0, "");
                 problem = $"the value {name}={shown} has a unit a marker cannot compare; write it in A, kA, A pri, V, kV, s, ms, min, %, or as a plain number.";

@@ -40,12 +40,16 @@ public static class Functions
         yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartProfile(a[0].Number, a[1].Number), a[4].Number).PeakLevel));
         yield return new("cooling_time", 3, 3, t => Expect(t, Dim.Time, Dim.None, Dim.None, Dim.Time), CoolingTime);
-        yield return new("ct_limit", 2, 2, CtLimitType, a => CClassRating.TryParse(a[0].Text, out var r) && r is not null ? Val.Of(r.MaximumSecondaryCurrent(a[1].Number)) : Val.Absent);
-        yield return new("ct_saturation", 5, 5, CtSaturationType, CtSaturationValue);
+        yield return new("ct_limit", 2, 4, CtLimitType, CtLimit, TakesAbsent: true);
+        yield return new("ct_saturation", 5, 7, CtSaturationType, CtSaturationValue, TakesAbsent: true);
+        yield return new("ct_class_complete", 2, 3, CtClassCompleteType, CtClassComplete, TakesAbsent: true);
         yield return new("coverage", 2, 2, t => Expect(t, Dim.None, Dim.Current, Dim.Current), a => Val.Of(GroundFaultCoverage.ProtectedPercent(a[0].Number, a[1].Number) / 100));
         yield return new("asym_factor", 1, 1, t => Expect(t, Dim.None, Dim.None), a => Val.Of(AsymmetricalCurrent.DecayingRmsFactor(a[0].Number)));
+        yield return new("asym_factor_at", 3, 3, t => Expect(t, Dim.None, Dim.None, Dim.Of(Quantities.Dimension.Frequency), Dim.Time),
+            a => Val.Of(AsymmetricalCurrent.RmsFactorAt(a[0].Number, a[1].Number, a[2].Number)));
         yield return new("curve_time", 4, 4, CurveType, CurveTime);
         yield return new("on_step", 3, 3, OnStepType, OnStep);
+        yield return new("choose", 3, 3, ChooseType, a => a[0].Flag ? a[1] : a[2]);
     }
 
     // Min and Max keep what Enumerable.Min and Max did with NaN: Min returns the first NaN, Max skips NaN unless all are.
@@ -162,26 +166,79 @@ public static class Functions
         return t is { } s ? Val.Of(s) : Val.Of(double.PositiveInfinity);
     }
 
+    private static readonly ExprType Impedance = ExprType.Num(Dim.Of(Quantities.Dimension.Impedance));
+
+    // The optional CT arguments: its rated secondary current and, for an IEC class, its rated burden.
+    private static void CtTail(ExprType[] t, int first)
+    {
+        if (t.Length > first && t[first] != ExprType.Num(Dim.Current)) throw new ArgumentException($"argument {first + 1} must be the CT's rated secondary current, not {t[first]}");
+        if (t.Length > first + 1 && t[first + 1] != Impedance) throw new ArgumentException($"argument {first + 2} must be the CT's rated burden (an impedance), not {t[first + 1]}");
+    }
+
     private static ExprType CtLimitType(ExprType[] t)
     {
-        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a CT class such as C100, not " + t[0]);
-        if (t[1] != ExprType.Num(Dim.Of(Quantities.Dimension.Impedance))) throw new ArgumentException("argument 2 must be an impedance, not " + t[1]);
+        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a CT class such as C100 or 5P20, not " + t[0]);
+        if (t[1] != Impedance) throw new ArgumentException("argument 2 must be an impedance, not " + t[1]);
+        CtTail(t, 2);
         return ExprType.Num(Dim.Current);
+    }
+
+    /// <summary>
+    /// The CT's accuracy from its class, rated secondary (5 A when not passed: a C class's reach does not depend on it)
+    /// and rated burden (absent is fine for a C class); null when the class cannot be read or an IEC class lacks its data.
+    /// </summary>
+    private static CtAccuracy? Accuracy(ReadOnlySpan<Val> a, int klass, int first)
+    {
+        if (a[klass].IsAbsent) return null;
+        var secondary = a.Length > first ? a[first] : Val.Of(5);
+        if (secondary.IsAbsent) return null;
+        double? rated = a.Length > first + 1 && !a[first + 1].IsAbsent ? a[first + 1].Number : null;
+        return CtAccuracy.TryParse(a[klass].Text, secondary.Number, rated, out var ct) ? ct : null;
+    }
+
+    private static Val CtLimit(ReadOnlySpan<Val> a)
+    {
+        if (a[1].IsAbsent || a[1].Number <= 0 || Accuracy(a, 0, 2) is not { } ct) return Val.Absent;
+        return Val.Of(ct.MaximumSecondaryCurrent(a[1].Number));
     }
 
     private static ExprType CtSaturationType(ExprType[] t)
     {
         if (t[0] != ExprType.Num(Dim.None)) throw new ArgumentException("argument 1 must be X/R, a plain number, not " + t[0]);
         if (t[1] != ExprType.Num(Dim.Current) || t[2] != ExprType.Num(Dim.Current)) throw new ArgumentException("arguments 2 and 3 must be currents (fault current, CT primary)");
-        if (t[3].Kind != ValKind.Text) throw new ArgumentException("argument 4 must be a CT class such as C100, not " + t[3]);
-        if (t[4] != ExprType.Num(Dim.Of(Quantities.Dimension.Impedance))) throw new ArgumentException("argument 5 must be an impedance, not " + t[4]);
+        if (t[3].Kind != ValKind.Text) throw new ArgumentException("argument 4 must be a CT class such as C100 or 5P20, not " + t[3]);
+        if (t[4] != Impedance) throw new ArgumentException("argument 5 must be an impedance, not " + t[4]);
+        CtTail(t, 5);
         return ExprType.Num(Dim.None);
     }
 
     private static Val CtSaturationValue(ReadOnlySpan<Val> a)
     {
-        if (!CClassRating.TryParse(a[3].Text, out var r) || r is null) return Val.Absent;
-        return Val.Of(r.CheckSaturation(a[0].Number, a[1].Number / a[2].Number, a[4].Number).Criterion);
+        for (var i = 0; i < 5; i++)
+        {
+            if (a[i].IsAbsent) return Val.Absent;
+        }
+        if (a[4].Number <= 0 || a[2].Number <= 0 || Accuracy(a, 3, 5) is not { } ct) return Val.Absent;
+        return Val.Of(ct.CheckSaturation(a[0].Number, a[1].Number / a[2].Number, a[4].Number).Criterion);
+    }
+
+    private static ExprType CtClassCompleteType(ExprType[] t)
+    {
+        if (t[0].Kind != ValKind.Text) throw new ArgumentException("argument 1 must be a CT class such as C100 or 5P20, not " + t[0]);
+        CtTail(t, 1);
+        return ExprType.Bool;
+    }
+
+    // Absent without a class or a secondary (nothing to judge); false when the class cannot give an accuracy (an IEC
+    // class without its rated burden), so that the CT checks that would skip it are not skipped in silence.
+    private static Val CtClassComplete(ReadOnlySpan<Val> a) =>
+        a[0].IsAbsent || a[1].IsAbsent ? Val.Absent : Val.Of(Accuracy(a, 0, 1) is not null);
+
+    private static ExprType ChooseType(ExprType[] t)
+    {
+        if (t[0] != ExprType.Bool) throw new ArgumentException("argument 1 must be a condition (true or false), not " + t[0]);
+        if (t[1] != t[2]) throw new ArgumentException($"arguments 2 and 3 must be of one type, not {t[1]} and {t[2]}");
+        return t[1];
     }
 
     private static ExprType CurveType(ExprType[] t)

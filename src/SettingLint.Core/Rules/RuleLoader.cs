@@ -320,7 +320,7 @@ public sealed class RuleLoader(SchemaSet schemas)
         var unitText = t[(cut + 1)..].Trim();
         if (!Unit.All.TryGetValue(unitText, out var unit) || unit.Basis != UnitBasis.Absolute)
         {
-            throw new RuleLoadException($"'{unitText}' is not a unit a parameter can have (A, kA, V, kV, ms, s, min, h, hp, kW, ohm, %).", span, file);
+            throw new RuleLoadException($"'{unitText}' is not a unit a parameter can have (A, kA, V, kV, ms, s, min, h, hp, kW, ohm, Hz, %).", span, file);
         }
         return (n * unit.Factor, Dim.Of(unit.Dimension), unit.Symbol == "%");
     }

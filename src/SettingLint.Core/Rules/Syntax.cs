@@ -38,7 +38,7 @@ public sealed class ExpressionParser
     /// <summary>The deepest nesting an expression may have.</summary>
     public const int MaxDepth = 32;
 
-    private static readonly string[] LiteralUnits = ["kA", "A", "kV", "V", "ms", "s", "min", "h", "hp", "kW", "ohm", "%"];
+    private static readonly string[] LiteralUnits = ["kA", "A", "kV", "V", "ms", "s", "min", "h", "hp", "kW", "ohm", "Hz", "%"];
 
     private readonly string _text;
     private int _pos;

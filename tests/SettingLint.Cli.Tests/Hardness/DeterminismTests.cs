@@ -98,6 +98,6 @@ public sealed class DeterminismTests
         // P-202's own rules ran before the failure, B-401's own rules before the failing second step, the others in full.
         Assert.Contains(result.Findings, f => f.RuleId == "SL102" && f.File == "examples/motors/p-202.yaml");
         Assert.Contains(result.Findings, f => f.RuleId == "SL302" && f.File == "examples/motors/b-401.yaml");
-        Assert.Contains(result.Findings, f => f.RuleId == "SL110" && f.File == "examples/motors/p-501.yaml");
+        Assert.Contains(result.Findings, f => f.RuleId == "SL701" && f.File == "examples/motors/p-503.yaml");
     }
 }

@@ -1,0 +1,167 @@
+using System.Collections.Concurrent;
+using System.Collections.Immutable;
+using System.Text;
+using SettingLint.Core.Engine;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Gate;
+using SettingLint.Core.Model;
+using SettingLint.Core.Quantities;
+using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
+
+namespace SettingLint.Core.Fixes;
+
+/// <summary>What a run of the fix machinery found: fixes checked by a second run, and settings left without one and why.</summary>
+/// <param name="Applied">Fixes whose value a second check confirmed.</param>
+/// <param name="Refused">Settings without a fix, with the reason: no value in the window, or the second check refused it.</param>
+/// <param name="Texts">The text of each file the fixes are in, as the check read it.</param>
+public sealed record SuggestionSet(ImmutableArray<SettingFix> Applied, ImmutableArray<(SettingFix Fix, string Why)> Refused, IReadOnlyDictionary<string, SourceText> Texts)
+{
+    public static SuggestionSet None { get; } = new([], [], new Dictionary<string, SourceText>());
+
+    /// <summary>The findings with the fix of their setting attached, where there is one.</summary>
+    public ImmutableArray<Finding> Attach(ImmutableArray<Finding> findings)
+    {
+        if (Applied.IsEmpty) return findings;
+        var bySetting = Applied.ToDictionary(f => (f.MotorFile, f.Setting));
+        return [.. findings.Select(f => f.Suppression is null && bySetting.TryGetValue((f.File, f.KeyPath), out var fix)
+            ? f with { Fix = new FindingFix(fix.ValueRegion(Texts[fix.MotorFile].Text), fix.Written!, fix.Shown(fix.NewSi)) }
+            : f)];
+    }
+
+    /// <summary>An SL020 finding for each setting whose rules leave no value, on the setting, naming the rules and their bounds.</summary>
+    public ImmutableArray<Finding> Conflicts()
+    {
+        var found = ImmutableArray.CreateBuilder<Finding>();
+        foreach (var (fix, _) in Refused)
+        {
+            if (!fix.Window.IsEmpty) continue;
+            var lo = fix.Window.TightestLower!;
+            var up = fix.Window.TightestUpper!;
+            var values = ImmutableSortedDictionary.CreateRange(StringComparer.Ordinal, new KeyValuePair<string, FindingValue>[]
+            {
+                new("setting", fix.Setting),
+                new("lower", new FindingValue(FixMaker.Show(fix.Window, lo.Limit), lo.Limit, fix.Window.Percent ? "" : (fix.Window.Dim.Plain ?? Dimension.None).SiSymbol())),
+                new("lower_rule", lo.RuleId),
+                new("lower_phrase", SettingWindows.Phrase(lo.Op)),
+                new("lower_label", lo.Label),
+                new("upper", new FindingValue(FixMaker.Show(fix.Window, up.Limit), up.Limit, fix.Window.Percent ? "" : (fix.Window.Dim.Plain ?? Dimension.None).SiSymbol())),
+                new("upper_rule", up.RuleId),
+                new("upper_phrase", SettingWindows.Phrase(up.Op)),
+                new("upper_label", up.Label),
+            });
+            found.Add(new Finding(EngineRules.NoCompliantValue, Level.Warning, fix.MotorFile, fix.Span, fix.Setting,
+                "No value of {setting} satisfies every rule on it: {lower_rule} needs it {lower_phrase} {lower} ({lower_label}), {upper_rule} {upper_phrase} {upper} ({upper_label}); the motor data or the scheme must change, not the setting.",
+                values));
+        }
+        return found.ToImmutable();
+    }
+
+    /// <summary>Each fixed file's new text.</summary>
+    public IEnumerable<(string File, SourceText Old, string New)> NewTexts() =>
+        Applied.GroupBy(f => f.MotorFile, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal)
+            .Select(g => (g.Key, Texts[g.Key], FixPlanner.Apply(Texts[g.Key].Text, g)));
+}
+
+/// <summary>A file's text and whether it began with a byte order mark, so that it can be written back byte for byte apart from the edits.</summary>
+public sealed record SourceText(string Text, bool Bom)
+{
+    private static readonly UTF8Encoding Utf8 = new(false, true);
+
+    /// <summary>Decodes a file's bytes; null when they are not UTF-8.</summary>
+    public static SourceText? Decode(byte[]? bytes)
+    {
+        if (bytes is null) return null;
+        var bom = bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF;
+        try
+        {
+            return new SourceText(Utf8.GetString(bytes, bom ? 3 : 0, bytes.Length - (bom ? 3 : 0)), bom);
+        }
+        catch (DecoderFallbackException)
+        {
+            return null;
+        }
+    }
+
+    /// <summary>Another text of the same file, encoded as this one was.</summary>
+    public byte[] Encode(string text)
+    {
+        var body = Utf8.GetBytes(text);
+        return Bom ? [0xEF, 0xBB, 0xBF, .. body] : body;
+    }
+}
+
+/// <summary>
+/// Works out the fixes of a check's findings: derives the setting windows of the motors with a finding on a setting,
+/// makes a value for each, and keeps only the values that a second check of the changed files confirms (no finding
+/// left on the setting, none gained in the file). Both runs reach the other motors of the bus, as the first did.
+/// </summary>
+public static class Suggestions
+{
+    /// <summary>Computes the fixes of the unsuppressed findings of a result (of some rules only, when given).</summary>
+    /// <param name="rules">The run's rules.</param>
+    /// <param name="root">The repository root.</param>
+    /// <param name="include">The configuration's include and exclude.</param>
+    /// <param name="overlay">Contents read instead of the disk (staged files, editor buffers), when the check had them.</param>
+    /// <param name="findings">The check's findings.</param>
+    /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
+    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules)
+    {
+        ArgumentNullException.ThrowIfNull(rules);
+        ArgumentNullException.ThrowIfNull(onlyRules);
+        var unreadable = findings.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)).Select(f => f.File).ToHashSet(StringComparer.Ordinal);
+        var files = findings
+            .Where(f => f.Suppression is null && f.KeyPath.StartsWith(FixPlanner.SettingPrefix, StringComparison.Ordinal) && !unreadable.Contains(f.File)
+                && (onlyRules.Count == 0 || onlyRules.Contains(f.RuleId)))
+            .Select(f => f.File).ToImmutableSortedSet(StringComparer.Ordinal);
+        if (files.IsEmpty) return SuggestionSet.None;
+
+        var outcomes = new ConcurrentQueue<RuleOutcome>();
+        var motors = new ConcurrentDictionary<string, MotorProtection>(StringComparer.Ordinal);
+        var listening = new RuleSet(rules.Rules) { Outcomes = outcomes.Enqueue, Motors = m => motors.TryAdd(m.Document.RelativePath, m) };
+        Run(listening, root, include, overlay, files);
+
+        var texts = new Dictionary<string, SourceText>(StringComparer.Ordinal);
+        string? Read(string rel)
+        {
+            if (texts.TryGetValue(rel, out var known)) return known.Text;
+            var full = Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar));
+            var bytes = overlay is not null ? overlay.Read(rel) : File.Exists(full) ? File.ReadAllBytes(full) : null;
+            if (SourceText.Decode(bytes) is not { } text) return null;
+            texts[rel] = text;
+            return text.Text;
+        }
+        var windows = SettingWindows.Derive(outcomes.Where(o => files.Contains(o.MotorFile)));
+        var plan = FixPlanner.Plan(findings, windows, motors, Read, onlyRules);
+        var refused = plan.Where(f => !f.HasValue).Select(f => (f, f.Reason!)).ToList();
+        var fixes = plan.Where(f => f.HasValue).ToList();
+        var known = findings.Select(f => (f.File, f.RuleId, f.KeyPath)).ToHashSet();
+        for (var round = 0; round < 3 && fixes.Count > 0; round++)
+        {
+            var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
+                .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
+            var merged = new OverlaySource(overlay ?? new DiskSource(root), contents);
+            var after = Run(rules, root, include, merged, [.. contents.Keys]).Findings;
+            var bad = new List<(SettingFix, string)>();
+            foreach (var fix in fixes)
+            {
+                var left = after.FirstOrDefault(f => f.File == fix.MotorFile && f.KeyPath == fix.Setting && f.Suppression is null);
+                var gained = after.FirstOrDefault(f => f.File == fix.MotorFile && f.Suppression is null && !known.Contains((f.File, f.RuleId, f.KeyPath)));
+                if (left is not null) bad.Add((fix, $"{fix.Written} would still get {left.RuleId}: {left.Message}"));
+                else if (gained is not null) bad.Add((fix, $"the file would gain {gained.RuleId} at {gained.KeyPath}: {gained.Message}"));
+            }
+            if (bad.Count == 0) break;
+            refused.AddRange(bad);
+            var drop = bad.Select(b => b.Item1).ToHashSet();
+            fixes = [.. fixes.Where(f => !drop.Contains(f))];
+        }
+        return new SuggestionSet([.. fixes], [.. refused.OrderBy(r => r.Item1.MotorFile, StringComparer.Ordinal).ThenBy(r => r.Item1.Span.StartLine)], texts);
+    }
+
+    // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
+    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableSortedSet<string> files)
+    {
+        var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
+        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Source: overlay, Changes: changes));
+    }
+}
