@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Gate;
+using SettingLint.Core.Linting;
 
 namespace SettingLint.Cli;
 
@@ -39,7 +39,7 @@ public static class BaselineCommand
     public static int Execute(BaselineOptionsRecord options, TextWriter stdout, TextWriter stderr)
     {
         var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
-        var result = Session.Open(paths).Check(paths, Level.Note, gate: new GateOptions());
+        var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), paths) { FailOn = Level.Note });
         if (!result.Notifications.IsEmpty)
         {
             foreach (var n in result.Notifications)

@@ -1,9 +1,10 @@
 using System.CommandLine;
-using SettingLint.Core.Engine;
 using System.Collections.Immutable;
+using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Fixes;
 using SettingLint.Core.Gate;
+using SettingLint.Core.Linting;
 using SettingLint.Reporting;
 
 namespace SettingLint.Cli;
@@ -118,11 +119,11 @@ public static class CheckCommand
         var started = DateTimeOffset.UtcNow;
         var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
         var gate = new GateOptions(!options.NoSuppress, options.Baseline, options.ChangedSince, options.Staged, options.AllFiles);
-        var session = Session.Open(paths);
-        var result = session.Check(paths, options.FailOn, gate: gate);
+        var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), paths) { FailOn = options.FailOn, Options = gate });
         // A staged check reads the index; the suggestions would read the working tree, so they wait for a plain check.
-        if (!options.Staged && options.Suggest)
+        if (!options.Staged && options.Suggest && result.Notifications.IsEmpty)
         {
+            var session = Session.Open([Path.GetFullPath(paths[0])]);
             var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
             // A conflict stands with the findings on its setting: unchanged from the baseline when they all are.
             var conflicts = set.Conflicts().Select(c =>

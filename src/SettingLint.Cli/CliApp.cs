@@ -8,8 +8,7 @@ namespace SettingLint.Cli;
 public static class CliApp
 {
     /// <summary>The caution every report and the help of `report` carry.</summary>
-    public const string Caution =
-        "Caution: these rules screen protection settings for review; they do not replace a protection study by a qualified engineer. Local codes and licensed practice prevail.";
+    public const string Caution = "Caution: " + SettingLint.Core.Findings.Caution.Text;
 
     /// <summary>Runs the command line and returns the exit code (0 clean, 1 findings, 2 usage or configuration, 3 internal error).</summary>
     public static int Run(string[] args, TextWriter stdout, TextWriter stderr)

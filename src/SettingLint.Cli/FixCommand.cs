@@ -51,7 +51,9 @@ public static class FixCommand
     public static int Execute(FixOptionsRecord options, TextWriter stdout, TextWriter stderr)
     {
         ArgumentNullException.ThrowIfNull(options);
-        var session = Session.Open(options.Paths);
+        // The engine takes absolute paths: the command line's are made so against the current folder here.
+        IReadOnlyList<string> paths = options.Paths.Count == 0 ? [Directory.GetCurrentDirectory()] : [.. options.Paths.Select(Path.GetFullPath)];
+        var session = Session.Open(paths);
         if (!session.Problems.IsEmpty)
         {
             foreach (var p in session.Problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
@@ -63,7 +65,7 @@ public static class FixCommand
             stderr.WriteLine("settinglint: --rule names a rule that is not loaded: " + string.Join(", ", unknown));
             return ExitCodes.Usage;
         }
-        var result = session.Check(options.Paths, null);
+        var result = session.Check(paths, null);
         foreach (var n in result.Notifications) stderr.WriteLine(Where(n) + (n.Kind == NotificationKind.Internal ? "internal error: " : "error: ") + n.Message);
         if (result.Notifications.Any(n => n.Kind == NotificationKind.Configuration)) return ExitCodes.Usage;
         if (result.Notifications.Any(n => n.Kind == NotificationKind.Internal)) return ExitCodes.Internal;

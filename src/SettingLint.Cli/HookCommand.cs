@@ -1,6 +1,7 @@
 using System.CommandLine;
+using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
-using SettingLint.Core.Gate;
+using SettingLint.Core.Sources;
 
 namespace SettingLint.Cli;
 

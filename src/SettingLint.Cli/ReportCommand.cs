@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
-using SettingLint.Core.Gate;
+using SettingLint.Core.Linting;
+using SettingLint.Core.Sources;
 using SettingLint.Reporting;
 using SettingLint.Reporting.Html;
 
@@ -70,14 +70,8 @@ public static class ReportCommand
     public static int Execute(ReportOptionsRecord options, TextWriter stdout, TextWriter stderr)
     {
         ArgumentNullException.ThrowIfNull(options);
-        IReadOnlyList<string> paths = [options.Path];
-        var session = Session.Open(paths);
-        if (!session.Problems.IsEmpty)
-        {
-            foreach (var p in session.Problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
-            return ExitCodes.Usage;
-        }
-        var data = ReportData.Collect(session, paths);
+        var request = new CheckRequest(Directory.GetCurrentDirectory(), [options.Path]);
+        var data = ReportData.Collect(request);
         var configuration = data.Result.Notifications.Where(n => n.Kind == NotificationKind.Configuration).ToList();
         if (configuration.Count > 0)
         {
@@ -90,7 +84,7 @@ public static class ReportCommand
         {
             try
             {
-                model = WithChanges(model, data, options, revision, tool);
+                model = WithChanges(model, data, request, options, revision, tool);
             }
             catch (GitException ex)
             {
@@ -134,14 +128,14 @@ public static class ReportCommand
         }
     }
 
-    /// <summary>The same pipeline over the repository as it was at the revision, compared motor by motor.</summary>
-    private static ReportModel WithChanges(ReportModel now, ReportData nowData, ReportOptionsRecord options, string revision, ToolInfo tool)
+    /// <summary>The same check over the repository as it was at the revision (read from git, not copied), compared motor by motor.</summary>
+    private static ReportModel WithChanges(ReportModel now, ReportData nowData, CheckRequest request, ReportOptionsRecord options, string revision, ToolInfo tool)
     {
         var root = nowData.Result.RepositoryRoot;
-        using var copy = ReportRevision.At(root, revision);
-        var oldPath = copy.Map(root, options.Path);
+        var then = GitRevisionSource.At(root, revision);
+        var checkedPath = SourcePaths.Absolute(options.Path, request.WorkingDirectory);
         // The checked path may not exist yet at the revision: then every motor is new.
-        var oldData = File.Exists(oldPath) || Directory.Exists(oldPath) ? ReportData.Collect([oldPath]) : ReportData.Empty(copy.Root);
+        var oldData = then.Probe(checkedPath) is EntryKind.File or EntryKind.Folder ? ReportData.Collect(request with { Source = then }) : ReportData.Empty(root);
         var before = ReportBuilder.Build(oldData, tool, options.NearMiss);
         return ReportChanges.Compare(before, now, oldData.Motors, nowData.Motors, revision);
     }

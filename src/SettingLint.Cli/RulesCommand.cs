@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Text.Json;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Linting;
 using SettingLint.Core.Rules;
 
 namespace SettingLint.Cli;
@@ -38,7 +39,7 @@ public static class RulesCommand
 
     private static Session? Open(TextWriter stderr)
     {
-        var session = Session.Open(["."]);
+        var session = Session.Open([Directory.GetCurrentDirectory()]);
         if (session.Problems.IsEmpty) return session;
         foreach (var p in session.Problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
         return null;
@@ -120,7 +121,7 @@ public static class RulesCommand
             stderr.WriteLine($"settinglint: '{dir}' is not a folder.");
             return ExitCodes.Usage;
         }
-        var (results, problems) = FixtureRunner.Run(dir);
+        var (results, problems) = FixtureRunner.Run(Path.GetFullPath(dir));
         if (!problems.IsEmpty)
         {
             foreach (var p in problems) stderr.WriteLine(Where(p) + "error: " + p.Message);

@@ -8,8 +8,7 @@ namespace SettingLint.Reporting;
 public sealed class MarkdownReporter : IReporter
 {
     /// <summary>The caution every summary ends with.</summary>
-    public const string Caution =
-        "These rules screen settings for review; they do not replace a protection study by a qualified engineer. Local codes and licensed practice prevail.";
+    public const string Caution = SettingLint.Core.Findings.Caution.Text;
 
     /// <summary>At most this many findings are tabled; a pull-request comment has a size limit.</summary>
     public const int MaxRows = 100;

@@ -7,15 +7,15 @@ namespace SettingLint.Cli.Tests;
 public sealed class RepositoryContractTests
 {
     [Fact]
-    public void A_reused_tag_is_SL005_on_the_later_file()
+    public void A_reused_tag_is_SL012_on_the_later_file()
     {
         using var repo = Cli.Repo();
         repo.Write("motors/m-2.yaml", Samples.Motor);
         var run = Cli.CheckJson(repo);
         var (line, column) = Samples.Pos(Samples.Motor, "tag:");
         // Placed on the value of the later file's tag; the first file keeps its tag silently.
-        Assert.Contains(("SL005", "motors/m-2.yaml", line, column + "tag: ".Length), run.Findings);
-        Assert.DoesNotContain(run.Findings, f => f.Rule == "SL005" && f.File == "motors/m-1.yaml");
+        Assert.Contains(("SL012", "motors/m-2.yaml", line, column + "tag: ".Length), run.Findings);
+        Assert.DoesNotContain(run.Findings, f => f.Rule == "SL012" && f.File == "motors/m-1.yaml");
         Assert.Equal(ExitCodes.Findings, run.Exit);
     }
 

@@ -1,3 +1,4 @@
+using SettingLint.Core.Linting;
 using SettingLint.Core.Rules;
 
 namespace SettingLint.Cli.Tests;

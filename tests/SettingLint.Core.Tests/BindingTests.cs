@@ -5,6 +5,7 @@ using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Model;
+using SettingLint.Core.Rules;
 using SettingLint.Core.Validation;
 using SettingLint.Tests.Support;
 

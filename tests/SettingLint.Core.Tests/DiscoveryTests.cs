@@ -1,6 +1,7 @@
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Rules;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Core.Tests;

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Text;
 using SettingLint.Core.Documents;
+using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Gate;
 

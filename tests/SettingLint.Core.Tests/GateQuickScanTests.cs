@@ -1,5 +1,6 @@
 using System.Text;
 using SettingLint.Core.Discovery;
+using SettingLint.Core.Engine;
 using SettingLint.Core.Gate;
 
 namespace SettingLint.Core.Tests;

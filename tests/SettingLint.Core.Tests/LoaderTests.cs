@@ -482,6 +482,7 @@ public sealed class LoaderTests
         var finding = Assert.Single(file.Findings);
         Assert.Equal(2, finding.Span.StartLine);
         Assert.Equal(1, finding.Span.StartColumn);
+        Assert.Equal(EngineRules.SecondDocument, finding.RuleId);
         Assert.Contains("one YAML document", finding.Message, StringComparison.Ordinal);
         Assert.Equal("bus", ((YScalar)Entry(file, "kind").Value).Value);
     }
@@ -505,7 +506,7 @@ public sealed class LoaderTests
     [Fact]
     public void A_mapping_as_a_key_is_refused()
     {
-        var finding = Single(Load("? [a, b]\n: 1\nc: 2\n"), EngineRules.WrongType);
+        var finding = Single(Load("? [a, b]\n: 1\nc: 2\n"), EngineRules.KeyNotPlain);
         Assert.Contains("key", finding.Message, StringComparison.Ordinal);
     }
 

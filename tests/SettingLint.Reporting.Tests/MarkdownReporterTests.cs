@@ -7,8 +7,6 @@ namespace SettingLint.Reporting.Tests;
 /// <summary>The markdown summary: a golden file for a known case, and the escaping and limits around it.</summary>
 public sealed class MarkdownReporterTests
 {
-    private const string GoldenVariable = "SETTINGLINT_UPDATE_GOLDEN";
-
     private static ImmutableSortedDictionary<string, FindingValue> Values(params (string Name, string Text, double Number)[] values) =>
         ImmutableSortedDictionary.CreateRange(StringComparer.Ordinal, values.Select(v => KeyValuePair.Create(v.Name, new FindingValue(v.Text, v.Number, "A"))));
 
@@ -50,9 +48,21 @@ public sealed class MarkdownReporterTests
     {
         var actual = Render(Known());
         var path = GoldenPath();
-        if (Environment.GetEnvironmentVariable(GoldenVariable) == "1") File.WriteAllText(path, actual);
-        Assert.True(File.Exists(path), path + " is missing; run the test with " + GoldenVariable + "=1 to write it.");
-        Assert.Equal(File.ReadAllText(path), actual);
+        var expected = File.Exists(path) ? File.ReadAllText(path) : null;
+        // The golden is never written by the test: a differing output goes beside the test assembly, and
+        // `bash tests/update-goldens.sh` copies it over the golden for review (DEVELOPERS.md).
+        var output = Path.Combine(AppContext.BaseDirectory, "golden-actual", Path.GetFileName(path));
+        if (expected != actual)
+        {
+            Directory.CreateDirectory(Path.GetDirectoryName(output)!);
+            File.WriteAllText(output, actual);
+        }
+        else
+        {
+            if (File.Exists(output)) File.Delete(output);
+        }
+        Assert.True(expected is not null, path + " is missing; `bash tests/update-goldens.sh` writes it from this run's output for review.");
+        Assert.Equal(expected, actual);
     }
 
     [Fact]

@@ -4,6 +4,7 @@ using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 
 namespace SettingLint.Core.Configuration;
@@ -36,35 +37,40 @@ public sealed record SettingsConfig(
         return !Exclude.Any(g => Glob.Matches(g, relativePath));
     }
 
-    /// <summary>Finds the config from the checked path upward to the root, and reads it; problems carry the file's positions.</summary>
-    public static (SettingsConfig Config, ImmutableArray<Notification> Problems) Load(string root, string checkedPath, SchemaSet schemas)
+    /// <summary>
+    /// Finds the config from the checked path (absolute) upward to the source's root, and reads it through the source;
+    /// problems carry the file's positions.
+    /// </summary>
+    public static (SettingsConfig Config, ImmutableArray<Notification> Problems) Load(IFileSource source, string checkedPath, SchemaSet schemas)
     {
-        var full = Path.GetFullPath(checkedPath);
-        var dir = Directory.Exists(full) ? full : Path.GetDirectoryName(full) ?? root;
+        ArgumentNullException.ThrowIfNull(source);
+        var root = source.Root;
+        var dir = source.Probe(checkedPath) == EntryKind.Folder ? checkedPath : Path.GetDirectoryName(checkedPath) ?? root;
         for (var d = dir; d is not null && Discovery.RepositoryRoot.Contains(root, d); d = Path.GetDirectoryName(d))
         {
             foreach (var name in (string[])[FileName, ".settinglint.yml"])
             {
                 var f = Path.Combine(d, name);
-                if (System.IO.File.Exists(f)) return Read(root, f, schemas);
+                if (source.Probe(f) == EntryKind.File) return Read(source, f, schemas);
             }
         }
         return (Default, []);
     }
 
-    private static (SettingsConfig, ImmutableArray<Notification>) Read(string root, string path, SchemaSet schemas)
+    private static (SettingsConfig, ImmutableArray<Notification>) Read(IFileSource source, string path, SchemaSet schemas)
     {
+        var root = source.Root;
         var rel = Discovery.RepositoryRoot.Relative(root, path);
-        var loaded = YamlLoader.LoadFile(path, rel, LoadLimits.Default);
+        var loaded = source.Load(path, rel, LoadLimits.Default);
         var findings = new FindingBuilder(rel);
         foreach (var f in loaded.Findings) findings.Add(f);
         YMapping? m = loaded.Root as YMapping;
         if (m is null && loaded.Root is not null && !(loaded.Root is YScalar { Type: ScalarType.Null }))
         {
-            findings.Add(EngineRules.WrongType, loaded.Root.Span, "", "The configuration is a mapping of keys.");
+            findings.Add(EngineRules.NotAMapping, loaded.Root.Span, "", "The configuration is a mapping of keys.");
         }
         if (m is not null) SchemaValidator.Validate(m, schemas.Get(SchemaSet.Config), findings);
-        var problems = findings.Findings.Select(f => new Notification(NotificationKind.Configuration, "Configuration: " + f.Message, rel, f.Span)).ToList();
+        var problems = findings.Findings.Select(f => new Notification(NotificationKind.Configuration, "Configuration: " + f.Message, rel, f.Span) { RuleId = f.RuleId, Values = f.Values }).ToList();
         if (problems.Count > 0 || m is null) return (Default with { File = rel }, [.. problems]);
 
         Level? failOn = m["fail_on"] is YScalar fo ? (fo.Value == "never" ? Level.None : Levels.Parse(fo.Value)) : null;
@@ -77,7 +83,7 @@ public sealed record SettingsConfig(
             {
                 if (p.Value == "builtin") { packs.Add("builtin"); continue; }
                 var folder = Path.GetFullPath(Path.Combine(baseDir, p.Value));
-                if (!Discovery.RepositoryRoot.Contains(root, folder) || !Directory.Exists(folder))
+                if (!Discovery.RepositoryRoot.Contains(root, folder) || source.Probe(folder) != EntryKind.Folder)
                 {
                     problems.Add(new Notification(NotificationKind.Configuration, $"Configuration: the rule pack '{p.Value}' is not a folder inside the repository.", rel, p.Span));
                     continue;
@@ -130,8 +136,15 @@ public static class Glob
 {
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Regex> Cache = new(StringComparer.Ordinal);
 
-    public static bool Matches(string pattern, string path) =>
-        Cache.GetOrAdd(pattern, static p => new Regex("^" + ToRegex(p) + "$", RegexOptions.CultureInvariant, TimeSpan.FromSeconds(1))).IsMatch(path);
+    public static bool Matches(string pattern, string path)
+    {
+        // A long-lived host (the language server) sees the configuration edited key by key: the cache is emptied
+        // rather than let grow with every pattern ever typed.
+        if (Cache.Count > MaxCached) Cache.Clear();
+        return Cache.GetOrAdd(pattern, static p => new Regex("^" + ToRegex(p) + "$", RegexOptions.CultureInvariant, TimeSpan.FromSeconds(1))).IsMatch(path);
+    }
+
+    private const int MaxCached = 256;
 
     private static string ToRegex(string glob)
     {

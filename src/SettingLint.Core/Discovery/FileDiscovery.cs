@@ -27,7 +27,8 @@ public static class FileDiscovery
     /// <param name="root">The repository root (absolute).</param>
     /// <param name="paths">Files and folders to look in.</param>
     /// <param name="included">Whether a relative path is checked; it may be asked from several threads at once.</param>
-    public static DiscoveryResult Find(string root, IEnumerable<string> paths, Func<string, bool>? included = null)
+    /// <param name="shown">How each path is named in messages, by position (the path itself when not given).</param>
+    public static DiscoveryResult Find(string root, IEnumerable<string> paths, Func<string, bool>? included = null, IReadOnlyList<string>? shown = null)
     {
         var files = new Dictionary<string, DiscoveredFile>(StringComparer.Ordinal);
         var findings = new List<Finding>();
@@ -39,12 +40,15 @@ public static class FileDiscovery
             if (considered.File is { } f) files.TryAdd(f.RelativePath, f);
             findings.AddRange(considered.Findings);
         }
+        var position = 0;
         foreach (var p in paths)
         {
+            var named = shown is not null && position < shown.Count ? shown[position] : p;
+            position++;
             var full = Path.GetFullPath(p);
             if ((File.Exists(full) || Directory.Exists(full)) && !RepositoryRoot.Contains(root, full))
             {
-                outside.Add(p);
+                outside.Add(named);
                 continue;
             }
             if (File.Exists(full)) Add(Consider(root, full, included, explicitFile: true));
@@ -57,7 +61,7 @@ public static class FileDiscovery
                 findings.AddRange(b.Findings);
             }
             else if (Directory.Exists(full)) Walk(root, full, listed);
-            else missing.Add(p);
+            else missing.Add(named);
         }
         // Whether a listed file is a link takes a call to the file system for each: thousands of them go faster in parallel.
         var considered = new (DiscoveredFile?, IReadOnlyList<Finding>)[listed.Count];

@@ -4,9 +4,10 @@ using SettingLint.Core.Binding;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
-using SettingLint.Core.Gate;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Model;
+using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 
 namespace SettingLint.Core.Engine;
@@ -27,6 +28,9 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
     /// <summary>Evaluates every rule of a motor in one go after binding even when the rule set can do it in two steps; tests compare the two.</summary>
     internal bool OneStep { get; init; }
+
+    /// <summary>Does each pass's work in the reverse of discovery order; tests use it to show that the output order does not come from the order of work.</summary>
+    internal bool Reversed { get; init; }
 
     /// <summary>
     /// What a run keeps of one file once its own values are bound: its findings, bound values (of a motor in a full run,
@@ -74,8 +78,11 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     public CheckResult Run(CheckOptions options)
     {
         _schemas.Warm();
-        var paths = options.Paths.Count == 0 ? ["."] : options.Paths;
-        var root = options.Root is { } given ? Path.GetFullPath(given).TrimEnd(Path.DirectorySeparatorChar) : RepositoryRoot.Find(paths[0]);
+        IReadOnlyList<string> shown = options.Paths.Count == 0 ? ["."] : options.Paths;
+        var paths = shown.Select(p => SourcePaths.Absolute(p, options.WorkingDirectory)).ToArray();
+        var source = options.Source
+            ?? new DiskSource(options.Root is { } given ? SourcePaths.Absolute(given, options.WorkingDirectory) : RepositoryRoot.Find(paths[0]));
+        var root = source.Root;
         var notifications = new ConcurrentBag<Notification>();
         var descriptors = EngineRules.All.Concat(rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal).ToImmutableArray();
         if (options.Changes is { TouchesSettings: false } untouched)
@@ -83,9 +90,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             // Nothing that can change a finding changed: no need to read the repository at all.
             return new CheckResult(root, [], descriptors, [], 0, [], options.FailOn) { Scope = Scope(untouched, []) };
         }
-        var overlay = options.Overlay;
-        var include = overlay is null ? options.Include : rel => !overlay.Hidden.Contains(rel) && (options.Include?.Invoke(rel) ?? true);
-        var discovery = FileDiscovery.Find(root, paths, include);
+        var discovery = source.Discover(paths, shown, options.Include);
         foreach (var m in discovery.Missing)
         {
             notifications.Add(new Notification(NotificationKind.Configuration, "The path '" + m + "' does not exist."));
@@ -102,20 +107,13 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         if (options.Changes is { EverythingBecause: null } planned)
         {
             // Load only what the change can reach, found by a quick read of every file's references.
-            var (refs, unsure) = QuickScan.Read(root, discovery.Files,
-                f => overlay is not null && overlay.Contents.TryGetValue(f.RelativePath, out var b) ? b : File.ReadAllBytes(f.FullPath),
-                limits.MaxFileBytes, options.Parallel);
+            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), limits.MaxFileBytes, options.Parallel);
             if (planned.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
             {
                 toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
             }
         }
-        LoadedFile Read(string full, string rel)
-        {
-            if (overlay is null) return YamlLoader.LoadFile(full, rel, limits);
-            if (overlay.Contents.TryGetValue(rel, out var bytes)) return YamlLoader.Load(bytes, full, rel, limits);
-            return overlay.Hidden.Contains(rel) ? new LoadedFile(full, rel, null, [], []) : YamlLoader.LoadFile(full, rel, limits);
-        }
+        LoadedFile Read(string full, string rel) => source.Load(full, rel, limits);
         // A file's own work in one go, while its tree is there: kind and format, validation and binding, acceptance
         // comments. The tree and text are garbage once this returns, so only a few trees are alive at any time.
         FileState LoadState(string full, string rel, bool reported)
@@ -134,9 +132,10 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             states[f.FullPath] = new Lazy<FileState>(() => LoadState(file.FullPath, file.RelativePath, true));
         }
         var discovered = toLoad.Select(f => states[f.FullPath]).ToArray();
+        if (Reversed) Array.Reverse(discovered);
         // A bus or relay model is loaded and bound by whichever comes first, the pass over it or a motor that names
         // it (Lazy runs it once). Own binding never resolves a reference, so no file waits on one that waits on it.
-        var resolver = new ReferenceResolver<FileState>(root, states, s => s.Document, (full, rel) => LoadState(full, rel, false));
+        var resolver = new ReferenceResolver<FileState>(source, states, s => s.Document, (full, rel) => LoadState(full, rel, false));
         // A run that reports every file evaluates a motor's own rules as soon as it is bound, and keeps of it only what
         // the rules over its bus read once every motor is bound (a changed-files run needs the whole index to choose).
         var staged = !OneStep && rules is IStagedRuleSet { LaterPaths: { } later } stager && options.Changes is not { EverythingBecause: null }
@@ -167,6 +166,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.RelativePath));
         var reported = settingFiles.Where(Reported).ToArray();
         var motorStates = reported.Where(s => s.Motor is not null).ToArray();
+        if (Reversed) Array.Reverse(motorStates);
         ForEach(options.Parallel, motorStates, s => Guard(
             () =>
             {
@@ -214,7 +214,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             var ordered = group.OrderBy(f => f.RelativePath, StringComparer.Ordinal).ToList();
             foreach (var later in ordered.Skip(1))
             {
-                later.Findings.Add(EngineRules.WrongType, later.Document!["tag"]!.Span, "tag",
+                later.Findings.Add(EngineRules.DuplicateTag, later.Document!["tag"]!.Span, "tag",
                     "The tag '{tag}' is already used by {other}; a tag names one piece of equipment in the repository.",
                     ("tag", group.Key), ("other", ordered[0].RelativePath));
             }

@@ -3,6 +3,7 @@ using System.Diagnostics.CodeAnalysis;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
+using SettingLint.Core.Sources;
 
 namespace SettingLint.Core.Engine;
 
@@ -13,14 +14,16 @@ namespace SettingLint.Core.Engine;
 /// requirement (IL2091) instead of it being hidden. Every Lazy here has a factory, so nothing extra is kept.
 /// </typeparam>
 internal sealed class ReferenceResolver<[DynamicallyAccessedMembers(DynamicallyAccessedMemberTypes.PublicParameterlessConstructor)] TState>(
-    string root,
+    IFileSource source,
     ConcurrentDictionary<string, Lazy<TState>> states,
     Func<TState, BoundDocument?> bound,
     Func<string, string, TState> load)
     where TState : class
 {
+    private readonly string _root = source.Root;
+
     // Hundreds of motors name the same bus: the file-system checks of a target are made once per run.
-    private readonly ConcurrentDictionary<string, string?> _targetProblems = new(StringComparer.Ordinal);
+    private readonly ConcurrentDictionary<string, EntryKind> _targetKinds = new(StringComparer.Ordinal);
 
     /// <summary>The state of the file a reference names, bound and of the expected kind; or null with an SL007 finding on the reference.</summary>
     public TState? Resolve(BoundDocument from, TextValue reference, string expectedKind, FindingBuilder findings)
@@ -31,34 +34,30 @@ internal sealed class ReferenceResolver<[DynamicallyAccessedMembers(DynamicallyA
             Add(findings, reference, "'{path}' is an absolute path; a reference is relative to the file that makes it, inside the repository.", text);
             return null;
         }
-        var dir = Path.GetDirectoryName(from.Path) ?? root;
+        var dir = Path.GetDirectoryName(from.Path) ?? _root;
         var full = Path.GetFullPath(Path.Combine(dir, text));
-        if (!RepositoryRoot.Contains(root, full))
+        if (!RepositoryRoot.Contains(_root, full))
         {
             Add(findings, reference, "'{path}' lies outside the repository root; it is not read.", text);
             return null;
         }
-        var problem = _targetProblems.GetOrAdd(full, f =>
-            Directory.Exists(f) ? "folder"
-            : !File.Exists(f) ? "missing"
-            : !RepositoryRoot.IsInside(root, f) ? "link"
-            : null);
-        if (problem == "folder")
+        var problem = _targetKinds.GetOrAdd(full, source.Probe);
+        if (problem == EntryKind.Folder)
         {
             Add(findings, reference, "'{path}' is a folder; a reference names a {kind} file.", text, null, expectedKind);
             return null;
         }
-        if (problem == "missing")
+        if (problem == EntryKind.Missing)
         {
-            Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(root, full));
+            Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(_root, full));
             return null;
         }
-        if (problem == "link")
+        if (problem == EntryKind.LinkOutside)
         {
             Add(findings, reference, "'{path}' leads out of the repository root through a symbolic link; it is not followed.", text);
             return null;
         }
-        var state = states.GetOrAdd(full, f => new Lazy<TState>(() => load(f, RepositoryRoot.Relative(root, f)))).Value;
+        var state = states.GetOrAdd(full, f => new Lazy<TState>(() => load(f, RepositoryRoot.Relative(_root, f)))).Value;
         var doc = bound(state);
         if (doc is null)
         {

@@ -2,8 +2,8 @@ using System.Collections.Immutable;
 using SettingLint.Core.Configuration;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Findings;
-using SettingLint.Core.Gate;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 
 namespace SettingLint.Core.Engine;
@@ -11,22 +11,33 @@ namespace SettingLint.Core.Engine;
 /// <summary>Everything a run is set up with: root, configuration and compiled rules, or the problems that stop it (exit 2).</summary>
 public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, ImmutableArray<Notification> Problems)
 {
-    /// <summary>Finds the root and the configuration for the checked paths and loads the rule packs it names.</summary>
+    /// <summary>Finds the root and the configuration for the checked paths (absolute) on disk and loads the rule packs it names.</summary>
     public static Session Open(IReadOnlyList<string> paths, SchemaSet? schemas = null)
     {
+        ArgumentNullException.ThrowIfNull(paths);
+        var first = SourcePaths.Absolute(paths.Count == 0 ? "." : paths[0], null);
+        return Open(new DiskSource(RepositoryRoot.Find(first)), first, schemas);
+    }
+
+    /// <summary>
+    /// Reads the configuration that applies to a checked path (absolute) through a source, and loads the rule packs it
+    /// names from the same source (a revision's packs as they were then).
+    /// </summary>
+    public static Session Open(IFileSource source, string checkedPath, SchemaSet? schemas = null)
+    {
+        ArgumentNullException.ThrowIfNull(source);
         var s = schemas ?? SchemaSet.Shared;
         s.Warm();
-        var first = paths.Count == 0 ? "." : paths[0];
-        var root = RepositoryRoot.Find(first);
+        var root = source.Root;
         // The built-in pack compiles on the thread pool (started by the command already, or now) while the
         // configuration is read: the two longest steps of a one-file run overlap.
         var builtIn = RuleLoader.CompiledBuiltIn(s);
-        var (config, problems) = SettingsConfig.Load(root, first, s);
+        var (config, problems) = SettingsConfig.Load(source, checkedPath, s);
         var results = new List<RuleLoadResult>();
         RuleLoader? folders = null;
         foreach (var pack in config.Packs)
         {
-            results.Add(pack == "builtin" ? builtIn.GetAwaiter().GetResult() : (folders ??= new RuleLoader(s)).Load(RuleLoader.FromFolder(pack, root)));
+            results.Add(pack == "builtin" ? builtIn.GetAwaiter().GetResult() : (folders ??= new RuleLoader(s)).Load(RuleLoader.FromSource(source, pack)));
         }
         var merged = RuleLoader.Merge(results);
         var loaded = RuleLoader.Configure(merged, config.Overrides);
@@ -37,15 +48,23 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown]);
     }
 
-    /// <summary>Runs the check, with the gate's options when given; configuration problems give a result with no findings and exit 2.</summary>
-    public CheckResult Check(IReadOnlyList<string> paths, Level? failOn, bool parallel = true, GateOptions? gate = null)
+    /// <summary>A result with no findings that carries the session's problems (exit 2), or other problems that stop a run.</summary>
+    public CheckResult Stopped(Level threshold, ImmutableArray<Notification> problems) =>
+        new(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], problems, 0, [], threshold);
+
+    /// <summary>
+    /// The checker's options under this session's configuration (its include and exclude globs, its root): the one
+    /// place where the configuration becomes options, for this session's own run and the gate's.
+    /// </summary>
+    public CheckOptions Options(IReadOnlyList<string> paths, Level threshold, bool parallel) =>
+        new(paths, threshold, Parallel: parallel, Include: Config.Includes, Root: Root, ElectricalCode: Config.ElectricalCodeOf);
+
+    /// <summary>Runs the check of absolute paths on disk without the gate; configuration problems give a result with no findings and exit 2.</summary>
+    /// <remarks>Front ends call <c>Linter.Check</c>, which adds the gate, sources and observers; this is the engine's own run.</remarks>
+    public CheckResult Check(IReadOnlyList<string> paths, Level? failOn, bool parallel = true)
     {
         var threshold = failOn ?? Config.FailOn ?? Level.Error;
-        if (Problems.Length > 0)
-        {
-            return new CheckResult(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], Problems, 0, [], threshold);
-        }
-        if (gate is not null) return GatedCheck.Run(this, paths, threshold, parallel, gate);
-        return new Checker(Rules).Run(new CheckOptions(paths, threshold, Parallel: parallel, Include: Config.Includes, ElectricalCode: Config.ElectricalCodeOf));
+        if (Problems.Length > 0) return Stopped(threshold, Problems);
+        return new Checker(Rules).Run(Options(paths, threshold, parallel));
     }
 }

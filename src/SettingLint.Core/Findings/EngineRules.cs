@@ -16,6 +16,10 @@ public static class EngineRules
     public const string KindOrFormat = "SL009";
     public const string Suppression = "SL010";
     public const string GateChange = "SL011";
+    public const string DuplicateTag = "SL012";
+    public const string SecondDocument = "SL013";
+    public const string KeyNotPlain = "SL014";
+    public const string NotAMapping = "SL015";
     public const string NoCompliantValue = "SL020";
 
     private static readonly ImmutableArray<string> FileTags = ["file"];
@@ -37,7 +41,7 @@ public static class EngineRules
             "Add the key with the value from the nameplate, datasheet or relay settings."),
         Make(WrongType, "WrongValue", "A value has the wrong type or lies outside its domain.",
             "A value must be of the type the format gives it (number, text, true/false, one of a list) and within its domain (no negative times, no zero ratios).",
-            "Correct the value; the message says what is accepted."),
+            "Correct the value; the message says what is accepted. Until version 0.1 this id also covered a reused tag (now SL012), a second YAML document (SL013), a key that is not a plain word (SL014) and a configuration or rule file that is not a mapping (SL015); those meanings are retired from SL005."),
         Make(Unit, "UnitProblem", "A unit is missing, unknown, of the wrong dimension, or does not say primary or secondary.",
             "Every dimensioned value is a number, a space and a unit. In the protection settings a current or voltage must say which side of its transformer it is on (`A pri`, `A sec`) or be a multiple (`xFLC`, `xCT`, `%`).",
             "A secondary value read as primary (or the reverse) is one of the commonest setting errors: the number is off by the CT or VT ratio. Write the unit the relay setting actually uses."),
@@ -57,10 +61,34 @@ public static class EngineRules
             "With --changed-since, the configuration, rule files, baseline and in-source acceptances are compared with the revision; each change that can let a finding through is reported at its line.",
             "The finding is for the reviewer of the change: confirm that the loosening is intended and justified. It never fails the run by itself, since the change it describes is the one under review; protect the configuration and the baseline with your code-review rules.",
             "the gate's own configuration (built into the engine)", Level.Warning, ["gate"]),
+        Make(DuplicateTag, "DuplicateTag", "A tag is already used by another file of the repository.",
+            "A tag names one piece of equipment: every file after the first (in path order) that reuses a tag is reported at its tag, with the file that has it first.",
+            "Two motors with one tag make the reviewer, the report and the rules over a bus mix them up. Give each piece of equipment its own tag."),
+        Make(SecondDocument, "SecondDocument", "A setting file holds more than one YAML document.",
+            "A `---` line after the first document starts a second one; only the first is read, so the rest would be ignored silently. The rest must still parse.",
+            "Move the second document into a file of its own, or remove the `---` line."),
+        Make(KeyNotPlain, "KeyNotPlain", "A key is not a plain word.",
+            "A mapping key must be a scalar (such as `pickup`); a sequence or mapping used as a key (`? [a, b]`) has no key path, and its value is not read.",
+            "Write the key as a plain word of the format."),
+        Make(NotAMapping, "NotAMapping", "A configuration or rule file is not a mapping of keys.",
+            "`.settinglint.yaml` and every `rule.yaml` are mappings of keys at the top; a list or a plain value there cannot be read, so the run stops (exit 2).",
+            "Write the file as keys and values, as the schema of the configuration (schema/config.schema.json) or of a rule (schema/rule.schema.json) gives them."),
         Make(NoCompliantValue, "NoCompliantValue", "No value of a setting satisfies every rule on it.",
             "The rules that bound one setting leave an empty window: the highest lower bound lies above the lowest upper bound (for example an acceleration timer that must exceed 1.1 x a 10 s start and stay below a 10.5 s hot stall time). The finding names the two rules and their bounds.",
             "No setting clears the findings: the motor data or the protection scheme must change (a speed switch or another stall detection, another CT, another starter), or the data is wrong. Check the data first.",
             "the rules on the setting (derived from their own comparisons)", Level.Warning, ["fix"]),
+    ];
+
+    /// <summary>
+    /// Meanings an id no longer has, with the id that reports it now. Ids are never reused; what an id meant stays
+    /// documented (rules/README.md), so that an old baseline or acceptance can be read.
+    /// </summary>
+    public static ImmutableArray<(string Id, string Meaning, string Now)> RetiredMeanings { get; } =
+    [
+        (WrongType, "a tag reused by a later file", DuplicateTag),
+        (WrongType, "a second YAML document in a setting file", SecondDocument),
+        (WrongType, "a key that is not a plain word", KeyNotPlain),
+        (WrongType, "a configuration or rule file that is not a mapping", NotAMapping),
     ];
 
     /// <summary>The engine rule of an id; throws for a non-engine id (a programming error).</summary>

@@ -11,7 +11,15 @@ public sealed record Notification(
     string Message,
     string? File = null,
     Documents.SourceSpan? Span = null,
-    string? Exception = null);
+    string? Exception = null)
+{
+    /// <summary>The engine rule of a configuration or rule file problem found as a finding (SL001, SL015, ...); null otherwise.</summary>
+    public string? RuleId { get; init; }
+
+    /// <summary>The finding's named values, when the notification was one; empty otherwise.</summary>
+    public System.Collections.Immutable.ImmutableSortedDictionary<string, FindingValue> Values { get; init; } =
+        System.Collections.Immutable.ImmutableSortedDictionary<string, FindingValue>.Empty;
+}
 
 /// <summary>The two kinds of run notification.</summary>
 public enum NotificationKind

@@ -7,6 +7,7 @@ using SettingLint.Core.Gate;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 
 namespace SettingLint.Core.Fixes;
 
@@ -105,7 +106,7 @@ public static class Suggestions
     /// <param name="findings">The check's findings.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
     /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
-    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, FileOverlay? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null)
+    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null)
     {
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(onlyRules);
@@ -126,7 +127,7 @@ public static class Suggestions
         {
             if (texts.TryGetValue(rel, out var known)) return known.Text;
             var full = Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar));
-            var bytes = overlay is not null ? overlay.Read(root, rel) : File.Exists(full) ? File.ReadAllBytes(full) : null;
+            var bytes = overlay is not null ? overlay.Read(rel) : File.Exists(full) ? File.ReadAllBytes(full) : null;
             if (SourceText.Decode(bytes) is not { } text) return null;
             texts[rel] = text;
             return text.Text;
@@ -140,7 +141,7 @@ public static class Suggestions
         {
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
-            var merged = overlay is null ? new FileOverlay(contents, []) : overlay with { Contents = overlay.Contents.SetItems(contents) };
+            var merged = new OverlaySource(overlay ?? new DiskSource(root), contents);
             var after = Run(rules, root, include, merged, [.. contents.Keys], electricalCode).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
@@ -159,9 +160,9 @@ public static class Suggestions
     }
 
     // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
-    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, FileOverlay? overlay, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
+    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
     {
         var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
-        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Overlay: overlay, Changes: changes, ElectricalCode: electricalCode));
+        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Source: overlay, Changes: changes, ElectricalCode: electricalCode));
     }
 }

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Text;
 using SettingLint.Core.Configuration;
 using SettingLint.Core.Documents;
+using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
 

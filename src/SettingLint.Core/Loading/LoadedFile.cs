@@ -25,7 +25,7 @@ public sealed record LoadedFile(
     /// <summary>A top-level key that is probably `kind` misspelt (`kidn`, `Kind`): such a file is reported, not skipped.</summary>
     public YScalar? MisspeltKindKey =>
         KindNode is null && Root is YMapping m
-            ? m.Entries.Select(e => e.Key).FirstOrDefault(k => k.Value.Length is >= 3 and <= 6 && Validation.Suggestions.Distance(k.Value.ToLowerInvariant(), "kind") <= 1)
+            ? m.Entries.Select(e => e.Key).FirstOrDefault(k => k.Value.Length is >= 3 and <= 6 && Documents.Suggestions.Distance(k.Value.ToLowerInvariant(), "kind") <= 1)
             : null;
 
     /// <summary>Whether loading failed before a tree could be had (syntax, encoding or a limit).</summary>

@@ -271,7 +271,7 @@ public static class YamlLoader
                             documents++;
                             if (documents == 2)
                             {
-                                findings.Add(EngineRules.WrongType, Span(ev.Start, ev.End), "",
+                                findings.Add(EngineRules.SecondDocument, Span(ev.Start, ev.End), "",
                                     "A setting file holds one YAML document; a second one starts here and would be ignored.");
                                 // The rest is not read into the tree, but it must still parse: a broken file is never passed silently.
                                 return DrainRest(parser) ? root : null;
@@ -448,7 +448,7 @@ public static class YamlLoader
                 parent.ExpectKey = false;
                 if (node is not YScalar key)
                 {
-                    findings.Add(EngineRules.WrongType, node.Span, "", "A key must be a plain word, not {what}.", ("what", node.Describe()));
+                    findings.Add(EngineRules.KeyNotPlain, node.Span, "", "A key must be a plain word, not {what}.", ("what", node.Describe()));
                     parent.SkipNextValue = true;
                     return true;
                 }

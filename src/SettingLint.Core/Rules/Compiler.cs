@@ -1,6 +1,7 @@
 using System.Runtime.CompilerServices;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Documents;
 using SettingLint.Core.Validation;
 
 namespace SettingLint.Core.Rules;

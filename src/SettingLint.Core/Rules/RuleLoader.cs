@@ -5,6 +5,7 @@ using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 
 namespace SettingLint.Core.Rules;
@@ -60,6 +61,18 @@ public sealed class RuleLoader(SchemaSet schemas)
             .OrderBy(f => f, StringComparer.Ordinal)
             .Select(f => new RuleSource(Path.GetRelativePath(displayRoot, f).Replace('\\', '/'), File.ReadAllBytes(f)))
             .ToList();
+    }
+
+    /// <summary>The rule files of a folder (absolute) of a source: every `rule.yaml` below it outside fixtures, named relative to the root.</summary>
+    public static IReadOnlyList<RuleSource> FromSource(IFileSource source, string folder)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        if (source.Probe(folder) != EntryKind.Folder) return [];
+        var rel = Discovery.RepositoryRoot.Relative(source.Root, folder);
+        return [.. source.FindFiles(rel == "." ? "" : rel, "rule.yaml")
+            .Where(f => !("/" + f).Contains("/fixtures/", StringComparison.Ordinal))
+            .Select(f => source.Read(f) is { } bytes ? new RuleSource(f, bytes) : null)
+            .OfType<RuleSource>()];
     }
 
     /// <summary>Loads and compiles rule files; overrides change levels and parameters.</summary>
@@ -146,11 +159,11 @@ public sealed class RuleLoader(SchemaSet schemas)
         }
         else if (!findings.HasAny)
         {
-            findings.Add(EngineRules.WrongType, SourceSpan.FileStart, "", "A rule file is a mapping of keys.");
+            findings.Add(EngineRules.NotAMapping, SourceSpan.FileStart, "", "A rule file is a mapping of keys.");
         }
         if (findings.HasAny)
         {
-            foreach (var f in findings.Findings) problems.Add(new Notification(NotificationKind.Configuration, "Rule file: " + f.Message, source.DisplayPath, f.Span));
+            foreach (var f in findings.Findings) problems.Add(new Notification(NotificationKind.Configuration, "Rule file: " + f.Message, source.DisplayPath, f.Span) { RuleId = f.RuleId, Values = f.Values });
             return null;
         }
         var r = (YMapping)loaded.Root!;
@@ -329,7 +342,7 @@ public sealed class RuleLoader(SchemaSet schemas)
             sb.Append("\n**Parameters:**\n");
             foreach (var p in ps) sb.Append("- `").Append(p.Name).Append("` = ").Append(p.Format(values[p.Index])).Append(": ").Append(p.Meaning).Append('\n');
         }
-        sb.Append("\nThese rules screen settings for review; they do not replace a protection study by a qualified engineer.");
+        sb.Append('\n').Append(Caution.Text);
         return sb.ToString();
     }
 

@@ -1,7 +1,6 @@
 using System.Collections.Immutable;
 using System.Runtime.CompilerServices;
 using SettingLint.Core.Binding;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;

@@ -13,8 +13,7 @@ namespace SettingLint.Reporting.Html;
 public static class HtmlReport
 {
     /// <summary>The caution on every page and every plot.</summary>
-    public const string Caution =
-        "These rules screen settings for review; they do not replace a protection study by a qualified engineer. Local codes and licensed practice prevail.";
+    public const string Caution = SettingLint.Core.Findings.Caution.Text;
 
     /// <summary>The page of a motor, relative to the report folder.</summary>
     public static string PagePath(MotorReport motor) => "motors/" + motor.Slug + ".html";

@@ -142,7 +142,7 @@ public sealed partial class HtmlReportTests
         repo.Write("p.yaml", motor);
         repo.Write("buses/sg-41a.yaml", File.ReadAllText(Path.Combine(HtmlTestSupport.Examples, "buses", "sg-41a.yaml")));
         repo.Write("models/standard-motor-relay.yaml", File.ReadAllText(Path.Combine(HtmlTestSupport.Examples, "models", "standard-motor-relay.yaml")));
-        var files = HtmlReport.Render(ReportBuilder.Build(ReportData.Collect([repo.Path]), ToolInfo.ForVersion("0.1.0")));
+        var files = HtmlReport.Render(ReportBuilder.Build(ReportData.Collect(new SettingLint.Core.Linting.CheckRequest(repo.Path, [])), ToolInfo.ForVersion("0.1.0")));
         var page = files.Single(f => f.Path.StartsWith("motors/", StringComparison.Ordinal)).Content;
         Assert.DoesNotContain("<b>pump</b>", page, StringComparison.Ordinal);
         Assert.Contains("&lt;b&gt;pump&lt;/b&gt; &amp; &#39;co&#39;", page, StringComparison.Ordinal);
@@ -167,7 +167,7 @@ public sealed class HtmlNotRunTests
             }
             folder.Write(relative, text);
         }
-        var model = ReportBuilder.Build(ReportData.Collect([folder.Path]), ToolInfo.ForVersion("0.1.0"));
+        var model = ReportBuilder.Build(ReportData.Collect(new SettingLint.Core.Linting.CheckRequest(folder.Path, [])), ToolInfo.ForVersion("0.1.0"));
         var files = HtmlReport.Render(model).ToDictionary(f => f.Path, f => f.Content, StringComparer.Ordinal);
         var onBus = model.Motors.Where(m => m.Bus == "SG-41A").ToList();
         Assert.NotEmpty(onBus);

@@ -22,7 +22,7 @@ internal static class HtmlTestSupport
     /// <summary>The demo plant's report data (the examples folder is checked once per test run).</summary>
     public static ReportData Demo => DemoData.Value;
 
-    private static readonly Lazy<ReportData> DemoData = new(() => ReportData.Collect([Examples]));
+    private static readonly Lazy<ReportData> DemoData = new(() => ReportData.Collect(new SettingLint.Core.Linting.CheckRequest(Examples, [])));
 
     public static ReportModel DemoModel(double nearMiss = ReportBuilder.DefaultNearMiss) => ReportBuilder.Build(Demo, ToolInfo.ForVersion("0.1.0"), nearMiss);
 

@@ -80,7 +80,7 @@ public sealed class HtmlWindowTests
         repo.Write("motors/w-7.yaml", motor);
         repo.Write("buses/bus-w.yaml", Bus);
         repo.Write("models/relay-w.yaml", Relay);
-        var data = ReportData.Collect([repo.Path]);
+        var data = ReportData.Collect(new SettingLint.Core.Linting.CheckRequest(repo.Path, []));
         Assert.Empty(data.Result.Notifications);
         return (data, SettingWindows.Derive(data.Outcomes));
     }

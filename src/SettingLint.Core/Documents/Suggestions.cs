@@ -1,4 +1,4 @@
-namespace SettingLint.Core.Validation;
+namespace SettingLint.Core.Documents;
 
 /// <summary>"Did you mean": the closest known key by edit distance, when it is close enough to be a typo.</summary>
 public static class Suggestions

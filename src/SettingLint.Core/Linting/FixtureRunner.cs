@@ -1,11 +1,12 @@
 using System.Collections.Immutable;
 using System.Text.RegularExpressions;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 
-namespace SettingLint.Core.Rules;
+namespace SettingLint.Core.Linting;
 
 /// <summary>An expected or actual finding of a fixture: file, line, rule.</summary>
 public sealed record FixtureLine(string File, int Line, string RuleId)
@@ -50,11 +51,11 @@ public static partial class FixtureRunner
     [GeneratedRegex(@"^[A-Z]{2,8}[0-9]{3}$", RegexOptions.CultureInvariant)]
     private static partial Regex RuleId();
 
-    /// <summary>Runs the fixtures of every rule folder under a folder (a pack, or one rule's folder).</summary>
+    /// <summary>Runs the fixtures of every rule folder under a folder (a pack, or one rule's folder), given as an absolute path.</summary>
     public static (ImmutableArray<FixtureResult> Results, ImmutableArray<Notification> LoadProblems) Run(string folder, SchemaSet? schemas = null)
     {
         var s = schemas ?? SchemaSet.Shared;
-        var full = Path.GetFullPath(folder);
+        var full = SourcePaths.Absolute(folder, null);
         // The whole pack is loaded, so a marker may name any of its rules; a single rule folder loads the built-in pack beside it.
         var packRoot = File.Exists(Path.Combine(full, "rule.yaml")) ? Path.GetDirectoryName(full)! : full;
         var loaded = new RuleLoader(s).Load(RuleLoader.FromFolder(packRoot, packRoot));
@@ -82,7 +83,8 @@ public static partial class FixtureRunner
             problems.Add("The rule has no fixtures folder.");
             return new FixtureResult(ruleId, fixtures, [], [], problems.ToImmutable(), 0);
         }
-        var result = new Checker(rules).Run(new CheckOptions([fixtures], Level.Note, Root: fixtures, Parallel: false));
+        // Through the one entry point, as `check` runs: the fixtures folder is the root, the pack's rules replace the configuration's.
+        var result = Linter.Check(new CheckRequest(fixtures, [fixtures]) { Root = fixtures, FailOn = Level.Note, Parallel = false, Rules = rules });
         foreach (var n in result.Notifications) problems.Add((n.File is null ? "" : n.File + ": ") + n.Message);
         var expected = new HashSet<FixtureLine>();
         var expectedValues = new Dictionary<FixtureLine, (int MarkerLine, ImmutableArray<MarkerValue> Values)>();

@@ -2,7 +2,7 @@ using System.Collections.Immutable;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 
-namespace SettingLint.Core.Engine;
+namespace SettingLint.Core.Rules;
 
 /// <summary>A compiled set of rules that the engine applies to every motor after binding.</summary>
 public interface IRuleSet

@@ -3,7 +3,7 @@ using System.Text.RegularExpressions;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Loading;
 
-namespace SettingLint.Core.Gate;
+namespace SettingLint.Core.Engine;
 
 /// <summary>
 /// One in-source acceptance, <c># settinglint-accept SL110 SL201: reason</c>: the rule ids it names, its reason,

@@ -4,8 +4,9 @@ using SettingLint.Core.Discovery;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Loading;
 using SettingLint.Core.Model;
+using SettingLint.Core.Sources;
 
-namespace SettingLint.Core.Gate;
+namespace SettingLint.Core.Engine;
 
 /// <summary>
 /// What changed since a revision, as root-relative paths, with the old contents the gate compares against; and the

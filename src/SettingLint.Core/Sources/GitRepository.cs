@@ -2,7 +2,7 @@ using System.Collections.Immutable;
 using System.Diagnostics;
 using System.Text;
 
-namespace SettingLint.Core.Gate;
+namespace SettingLint.Core.Sources;
 
 /// <summary>A git command failed or git is not there; the message is for the user (exit 2).</summary>
 public sealed class GitException(string message) : Exception(message);
@@ -110,6 +110,21 @@ public sealed class GitRepository
             pos += size + 1;
         }
         return result;
+    }
+
+    /// <summary>Every file of a commit's tree (recursively), with its mode, by its path relative to the top level.</summary>
+    public IReadOnlyList<(string Mode, string Path)> Tree(string commit)
+    {
+        var entries = new List<(string, string)>();
+        foreach (var line in Lines(["ls-tree", "-r", "-z", "--full-tree", commit]))
+        {
+            // "<mode> <type> <object>\t<path>"
+            var tab = line.IndexOf('\t', StringComparison.Ordinal);
+            var space = line.IndexOf(' ', StringComparison.Ordinal);
+            if (tab < 0 || space < 0) continue;
+            entries.Add((line[..space], line[(tab + 1)..]));
+        }
+        return entries;
     }
 
     /// <summary>Where git keeps this work tree's hooks (honours core.hooksPath), as an absolute path.</summary>

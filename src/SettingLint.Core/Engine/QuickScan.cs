@@ -3,7 +3,7 @@ using System.Collections.Immutable;
 using System.Text;
 using SettingLint.Core.Discovery;
 
-namespace SettingLint.Core.Gate;
+namespace SettingLint.Core.Engine;
 
 /// <summary>
 /// A quick read of the top-level <c>kind</c>, <c>bus</c> and <c>relay_model</c> lines of YAML files, without a YAML

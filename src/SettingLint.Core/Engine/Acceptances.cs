@@ -3,7 +3,7 @@ using System.Text.RegularExpressions;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Loading;
 
-namespace SettingLint.Core.Gate;
+namespace SettingLint.Core.Engine;
 
 /// <summary>Applies a file's acceptance comments to its findings, and reports faulty or stale ones as SL010.</summary>
 public static partial class Acceptances

@@ -1,0 +1,52 @@
+using SettingLint.Core.Discovery;
+using SettingLint.Core.Engine;
+using SettingLint.Core.Findings;
+using SettingLint.Core.Gate;
+using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
+using SettingLint.Core.Validation;
+
+namespace SettingLint.Core.Linting;
+
+/// <summary>The one way into the engine: every front end checks through <see cref="Check"/>.</summary>
+public static class Linter
+{
+    /// <summary>
+    /// Checks what the request names: configuration and rules (read through the request's source), discovery,
+    /// loading, validation, binding, rules, then the gate (acceptances, changed files, baseline). Never throws for
+    /// bad input: configuration problems are notifications (exit 2), an internal failure is one (exit 3).
+    /// </summary>
+    public static CheckResult Check(CheckRequest request)
+    {
+        ArgumentNullException.ThrowIfNull(request);
+        if (!Path.IsPathFullyQualified(request.WorkingDirectory))
+        {
+            throw new ArgumentException("The working folder of a check is an absolute path: " + request.WorkingDirectory, nameof(request));
+        }
+        IReadOnlyList<string> paths = request.Paths.Count == 0 ? ["."] : request.Paths;
+        var first = SourcePaths.Absolute(paths[0], request.WorkingDirectory);
+        var source = request.Source ?? new DiskSource(request.Root is { } root ? SourcePaths.Absolute(root, request.WorkingDirectory) : RepositoryRoot.Find(first));
+        var session = request.Rules is { } rules
+            ? new Session(source.Root, Configuration.SettingsConfig.Default, rules, [])
+            : Session.Open(source, first, SchemaSet.Shared);
+        var threshold = request.FailOn ?? session.Config.FailOn ?? Level.Error;
+        if (!session.Problems.IsEmpty) return session.Stopped(threshold, session.Problems);
+        if (!request.Observers.IsEmpty)
+        {
+            // The same compiled rules, with the observers listening: the one run gives findings and what reports draw.
+            var observers = request.Observers;
+            session = session with
+            {
+                Rules = new RuleSet(session.Rules.Rules)
+                {
+                    Outcomes = o => { foreach (var x in observers) x.OnOutcome(o); },
+                    Motors = m => { foreach (var x in observers) x.OnMotor(m); },
+                },
+            };
+        }
+        return GatedCheck.Run(session, source, request.WorkingDirectory, paths, threshold, request.Parallel, request.Options);
+    }
+
+    /// <summary>The repository root for a path (absolute, or relative to the working folder): the nearest folder upward with .git, else the path's own folder.</summary>
+    public static string FindRoot(string workingDirectory, string path) => RepositoryRoot.Find(SourcePaths.Absolute(path, workingDirectory));
+}
