@@ -22,10 +22,10 @@ public sealed record VersionedTextDocumentIdentifier(string Uri, int Version);
 public sealed record TextDocumentItem(string Uri, string LanguageId, int Version, string Text);
 
 /// <summary>A workspace folder given at initialization.</summary>
-public sealed record WorkspaceFolder(string Uri, string? Name);
+public sealed record WorkspaceFolder(string Uri, string? Name = null);
 
 /// <summary>What the server reads of the initialize request; the client's capabilities are not needed.</summary>
-public sealed record InitializeParams(string? RootUri, string? RootPath, IReadOnlyList<WorkspaceFolder>? WorkspaceFolders);
+public sealed record InitializeParams(string? RootUri = null, string? RootPath = null, IReadOnlyList<WorkspaceFolder>? WorkspaceFolders = null);
 
 /// <summary>The server's name and version.</summary>
 public sealed record ServerInfo(string Name, string? Version);
@@ -47,13 +47,13 @@ public sealed record InitializeResult(ServerCapabilities Capabilities, ServerInf
 public sealed record DidOpenTextDocumentParams(TextDocumentItem TextDocument);
 
 /// <summary>One change; without a range it is the whole new text.</summary>
-public sealed record TextDocumentContentChangeEvent(LspRange? Range, string Text);
+public sealed record TextDocumentContentChangeEvent(string Text, LspRange? Range = null);
 
 /// <summary>textDocument/didChange.</summary>
 public sealed record DidChangeTextDocumentParams(VersionedTextDocumentIdentifier TextDocument, IReadOnlyList<TextDocumentContentChangeEvent> ContentChanges);
 
 /// <summary>textDocument/didSave.</summary>
-public sealed record DidSaveTextDocumentParams(TextDocumentIdentifier TextDocument, string? Text);
+public sealed record DidSaveTextDocumentParams(TextDocumentIdentifier TextDocument, string? Text = null);
 
 /// <summary>textDocument/didClose.</summary>
 public sealed record DidCloseTextDocumentParams(TextDocumentIdentifier TextDocument);
@@ -80,7 +80,7 @@ public sealed record TextDocumentPositionParams(TextDocumentIdentifier TextDocum
 public sealed record MarkupContent(string Kind, string Value);
 
 /// <summary>The answer to hover.</summary>
-public sealed record Hover(MarkupContent Contents, LspRange? Range);
+public sealed record Hover(MarkupContent Contents, LspRange? Range = null);
 
 /// <summary>textDocument/codeAction (read for the seam only; see <see cref="SettingLanguageServer.CodeAction"/>).</summary>
 public sealed record CodeActionParams(TextDocumentIdentifier TextDocument, LspRange Range);
@@ -95,7 +95,10 @@ public sealed record LogMessageParams(int Type, string Message);
 /// Source-generated serialization of the protocol types, so that the server needs no reflection over them
 /// (the CLI is published with NativeAOT).
 /// </summary>
-[JsonSourceGenerationOptions(PropertyNamingPolicy = JsonKnownNamingPolicy.CamelCase, DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull)]
+// Required constructor parameters and non-nullable references are enforced, so that a message of the wrong shape is
+// refused when it is read (InvalidParams) instead of failing later on a null.
+[JsonSourceGenerationOptions(PropertyNamingPolicy = JsonKnownNamingPolicy.CamelCase, DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
+    RespectNullableAnnotations = true, RespectRequiredConstructorParameters = true)]
 [JsonSerializable(typeof(InitializeParams))]
 [JsonSerializable(typeof(InitializeResult))]
 [JsonSerializable(typeof(DidOpenTextDocumentParams))]
@@ -111,6 +114,8 @@ public sealed record LogMessageParams(int Type, string Message);
 [JsonSerializable(typeof(LogMessageParams))]
 [JsonSerializable(typeof(IReadOnlyList<Diagnostic>))]
 [JsonSerializable(typeof(JsonElement))]
+// The error data StreamJsonRpc attaches to an error answer for an exception.
+[JsonSerializable(typeof(StreamJsonRpc.Protocol.CommonErrorData))]
 [JsonSerializable(typeof(object))]
 [JsonSerializable(typeof(string))]
 [JsonSerializable(typeof(int))]

@@ -1,6 +1,8 @@
 using System.Collections.Immutable;
 using System.Text.Json;
+using System.Text.Json.Serialization.Metadata;
 using StreamJsonRpc;
+using StreamJsonRpc.Protocol;
 
 namespace SettingLint.Cli.Server;
 
@@ -17,9 +19,9 @@ public sealed class SettingLanguageServer
 
     /// <summary>initialize: remembers the workspace folders and says what the server offers.</summary>
     [JsonRpcMethod("initialize", UseSingleObjectParameterDeserialization = true)]
-    public InitializeResult Initialize(InitializeParams p)
+    public InitializeResult Initialize(JsonElement parameters)
     {
-        ArgumentNullException.ThrowIfNull(p);
+        var p = Read(parameters, LspJson.Default.InitializeParams);
         var folders = new List<string>();
         foreach (var uri in (p.WorkspaceFolders ?? []).Select(f => f.Uri).Append(p.RootUri))
         {
@@ -55,56 +57,82 @@ public sealed class SettingLanguageServer
 
     /// <summary>textDocument/didOpen.</summary>
     [JsonRpcMethod("textDocument/didOpen", UseSingleObjectParameterDeserialization = true)]
-    public void DidOpen(DidOpenTextDocumentParams p) => _state.Guard("didOpen", () =>
+    public void DidOpen(JsonElement parameters) => _state.Guard("didOpen", () =>
     {
+        var p = Read(parameters, LspJson.Default.DidOpenTextDocumentParams);
         _state.Documents.Open(p.TextDocument.Uri, p.TextDocument.Version, p.TextDocument.Text);
         _state.Worker.Request();
     });
 
     /// <summary>textDocument/didChange.</summary>
     [JsonRpcMethod("textDocument/didChange", UseSingleObjectParameterDeserialization = true)]
-    public void DidChange(DidChangeTextDocumentParams p) => _state.Guard("didChange", () =>
+    public void DidChange(JsonElement parameters) => _state.Guard("didChange", () =>
     {
+        var p = Read(parameters, LspJson.Default.DidChangeTextDocumentParams);
         if (_state.Documents.Change(p.TextDocument.Uri, p.TextDocument.Version, p.ContentChanges)) _state.Worker.Request();
     });
 
     /// <summary>textDocument/didSave: a saved configuration or rule file applies from now, so every open file is checked again.</summary>
     [JsonRpcMethod("textDocument/didSave", UseSingleObjectParameterDeserialization = true)]
-    public void DidSave(DidSaveTextDocumentParams p) => _state.Guard("didSave", () =>
+    public void DidSave(JsonElement parameters) => _state.Guard("didSave", () =>
     {
+        var p = Read(parameters, LspJson.Default.DidSaveTextDocumentParams);
         _state.Documents.Saved(p.TextDocument.Uri, p.Text);
         _state.Worker.Request();
     });
 
     /// <summary>textDocument/didClose: the file's diagnostics are cleared.</summary>
     [JsonRpcMethod("textDocument/didClose", UseSingleObjectParameterDeserialization = true)]
-    public void DidClose(DidCloseTextDocumentParams p) => _state.Guard("didClose", () =>
+    public void DidClose(JsonElement parameters) => _state.Guard("didClose", () =>
     {
+        var p = Read(parameters, LspJson.Default.DidCloseTextDocumentParams);
         if (_state.Documents.Close(p.TextDocument.Uri)) _state.Worker.Closed(p.TextDocument.Uri);
         _state.Worker.Request();
     });
 
     /// <summary>workspace/didChangeWatchedFiles: files changed on disk (a checkout, another editor); check again.</summary>
     [JsonRpcMethod("workspace/didChangeWatchedFiles", UseSingleObjectParameterDeserialization = true)]
-    public void DidChangeWatchedFiles(DidChangeWatchedFilesParams p) => _state.Guard("didChangeWatchedFiles", () =>
+    public void DidChangeWatchedFiles(JsonElement parameters) => _state.Guard("didChangeWatchedFiles", () =>
     {
+        var p = Read(parameters, LspJson.Default.DidChangeWatchedFilesParams);
         _ = p;
         _state.Worker.Request();
     });
 
     /// <summary>textDocument/hover: on a quantity or an element key of an open motor, from its last check.</summary>
     [JsonRpcMethod("textDocument/hover", UseSingleObjectParameterDeserialization = true)]
-    public Hover? Hover(TextDocumentPositionParams p) => _state.Guard("hover", () =>
-        _state.Worker.Facts.TryGetValue(p.TextDocument.Uri, out var facts) ? HoverText.At(facts, p.Position) : null);
+    public Hover? Hover(JsonElement parameters)
+    {
+        var p = Read(parameters, LspJson.Default.TextDocumentPositionParams);
+        return _state.Guard("hover", () => _state.Worker.Facts.TryGetValue(p.TextDocument.Uri, out var facts) ? HoverText.At(facts, p.Position) : null);
+    }
 
     /// <summary>
     /// textDocument/codeAction: the seam for fixes. No fix exists yet (another issue), so nothing is offered and the
     /// capability is not announced; when fixes exist, they are turned into actions here.
     /// </summary>
     [JsonRpcMethod("textDocument/codeAction", UseSingleObjectParameterDeserialization = true)]
-    public IReadOnlyList<CodeAction> CodeAction(CodeActionParams p)
+    public IReadOnlyList<CodeAction> CodeAction(JsonElement parameters)
     {
-        _ = p;
+        _ = Read(parameters, LspJson.Default.CodeActionParams);
         return ImmutableArray<CodeAction>.Empty;
+    }
+
+    /// <summary>
+    /// Reads a message's parameters with the source-generated types. Parameters of the wrong shape are the client's
+    /// error: the request is answered with InvalidParams (a notification's is logged), and the session goes on.
+    /// </summary>
+    private static T Read<T>(JsonElement parameters, JsonTypeInfo<T> type)
+    {
+        T? value;
+        try
+        {
+            value = parameters.Deserialize(type);
+        }
+        catch (JsonException ex)
+        {
+            throw new LocalRpcException("Invalid parameters: " + ex.Message) { ErrorCode = (int)JsonRpcErrorCode.InvalidParams };
+        }
+        return value ?? throw new LocalRpcException("Invalid parameters: none given.") { ErrorCode = (int)JsonRpcErrorCode.InvalidParams };
     }
 }
