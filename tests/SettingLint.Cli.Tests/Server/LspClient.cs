@@ -38,6 +38,12 @@ internal sealed class LspClient : IAsyncDisposable
         }
     }
 
+    /// <summary>Drops the notifications received so far (a long test would otherwise measure its own log).</summary>
+    public void Forget()
+    {
+        lock (_gate) _notifications.Clear();
+    }
+
     /// <summary>Sends a request and returns the whole response (with result or error).</summary>
     public async Task<JsonObject> Request(string method, JsonNode? parameters = null)
     {
