@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Text.Json.Serialization;
 using StreamJsonRpc;
 
@@ -11,24 +12,14 @@ public static class LanguageServerHost
     {
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(errors);
-        // System.Text.Json with the source-generated protocol types: no reflection over our types (NativeAOT).
-        var formatter = new SystemTextJsonFormatter();
-        formatter.JsonSerializerOptions.TypeInfoResolver = LspJson.Default;
-        formatter.JsonSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.CamelCase;
-        formatter.JsonSerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull;
-        using var rpc = new JsonRpc(new HeaderDelimitedMessageHandler(output, input, formatter));
-        var log = new Action<int, string>((type, message) =>
+        JsonRpc? connection = null;
+        var state = new ServerState(options, (type, message) =>
         {
             lock (errors) errors.WriteLine(message);
-            if (!rpc.IsDisposed) _ = Notify(rpc, "window/logMessage", new LogMessageParams(type, message));
+            if (connection is { IsDisposed: false } c) _ = Notify(c, "window/logMessage", new LogMessageParams(type, message));
         });
-        var state = new ServerState(options, log);
+        using var rpc = connection = Connect(input, output, state);
         state.Worker.Publish = p => Notify(rpc, "textDocument/publishDiagnostics", p);
-        var target = new SettingLanguageServer(state);
-        rpc.AddLocalRpcTarget(
-            RpcTargetMetadata.FromClass(typeof(SettingLanguageServer), new RpcTargetMetadata.ClassAndInterfaces(typeof(SettingLanguageServer))),
-            target,
-            new JsonRpcTargetOptions { DisposeOnDisconnect = false });
         rpc.StartListening();
 
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancel);
@@ -46,6 +37,28 @@ public static class LanguageServerHost
         }
         // A client that closes the connection without exit is treated as exit without shutdown.
         return ended == state.Exited.Task ? state.Exited.Task.Result : state.ShutdownRequested ? 0 : 1;
+    }
+
+    // StreamJsonRpc 2.26.150 marks the System.Text.Json formatter's constructor RequiresUnreferencedCode and
+    // RequiresDynamicCode ("not hardened"), and RpcTargetMetadata.FromClass RequiresDynamicCode; its NativeAOT guide
+    // names exactly this set-up (the formatter with a source-generated TypeInfoResolver, FromClass with the class and
+    // interfaces given) as the supported one. The NativeAOT-published CLI was run as a server (initialize, diagnostics,
+    // hover, an InvalidParams answer, shutdown and exit) and behaved as the JIT build does.
+    [UnconditionalSuppressMessage("Trimming", "IL2026", Justification = "Protocol types are source generated (LspJson); the AOT build was run as a server.")]
+    [UnconditionalSuppressMessage("AOT", "IL3050", Justification = "Handlers take JsonElement and return source-generated types; the AOT build was run as a server.")]
+    private static JsonRpc Connect(Stream input, Stream output, ServerState state)
+    {
+        // System.Text.Json with the source-generated protocol types: no reflection over our types.
+        var formatter = new SystemTextJsonFormatter();
+        formatter.JsonSerializerOptions.TypeInfoResolver = LspJson.Default;
+        formatter.JsonSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.CamelCase;
+        formatter.JsonSerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull;
+        var rpc = new JsonRpc(new HeaderDelimitedMessageHandler(output, input, formatter));
+        rpc.AddLocalRpcTarget(
+            RpcTargetMetadata.FromClass(typeof(SettingLanguageServer), new RpcTargetMetadata.ClassAndInterfaces(typeof(SettingLanguageServer))),
+            new SettingLanguageServer(state),
+            new JsonRpcTargetOptions { DisposeOnDisconnect = false });
+        return rpc;
     }
 
     // Notifications are sent with named arguments of declared types, so that the formatter serializes them through

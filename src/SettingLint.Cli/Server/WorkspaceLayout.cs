@@ -47,7 +47,4 @@ public static class WorkspaceLayout
         if (!Uri.TryCreate(uri, UriKind.Absolute, out var u) || !u.IsFile) return null;
         return Path.GetFullPath(u.LocalPath);
     }
-
-    /// <summary>The file: URI of a local path, as clients write it (percent-encoded).</summary>
-    public static string UriOf(string path) => new Uri(Path.GetFullPath(path)).AbsoluteUri;
 }
