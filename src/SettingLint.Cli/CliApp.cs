@@ -15,7 +15,7 @@ public static class CliApp
     public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
     {
         // Start-up: the YAML parser, the schemas and the built-in rules get ready on the thread pool while the rest starts.
-        if (args.Length > 0 && args[0] is "check" or "report" or "baseline" or "rules")
+        if (args.Length > 0 && args[0] is "check" or "report" or "baseline" or "rules" or "import" or "sheet")
         {
             SettingLint.Core.Loading.YamlLoader.Warm();
             SettingLint.Core.Validation.SchemaSet.Shared.Warm();
@@ -57,6 +57,7 @@ public static class CliApp
         root.Subcommands.Add(HookCommand.Create(stdout, stderr));
         root.Subcommands.Add(RulesCommand.Create(stdout, stderr));
         root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
+        root.Subcommands.Add(ImportCommand.Create(stdout, stderr));
         return root;
     }
 }

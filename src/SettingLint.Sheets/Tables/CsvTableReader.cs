@@ -80,7 +80,9 @@ public static class CsvTableReader
         {
             var fields = new string[row.ColCount];
             for (var i = 0; i < fields.Length; i++) fields[i] = row[i].ToString();
-            list.Add((row.LineNumberFrom, fields));
+            // The row's first line from its last: Sep 0.18 gives the first row of a file without header a LineNumberFrom
+            // of 2, while LineNumberToExcl is right for every row (tested by the import tests against the text itself).
+            list.Add((row.LineNumberToExcl - 1 - row.Span.Count('\n'), fields));
         }
         return list;
     }
