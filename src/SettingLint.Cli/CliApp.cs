@@ -58,6 +58,7 @@ public static class CliApp
         root.Subcommands.Add(RulesCommand.Create(stdout, stderr));
         root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
         root.Subcommands.Add(ImportCommand.Create(stdout, stderr));
+        root.Subcommands.Add(NewCommand.Create(stdout, stderr));
         return root;
     }
 }
