@@ -59,6 +59,7 @@ public static class CliApp
         root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
         root.Subcommands.Add(ImportCommand.Create(stdout, stderr));
         root.Subcommands.Add(NewCommand.Create(stdout, stderr));
+        root.Subcommands.Add(SheetCommand.Create(stdout, stderr));
         return root;
     }
 }

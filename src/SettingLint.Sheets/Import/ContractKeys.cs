@@ -12,6 +12,12 @@ public sealed record ContractKey(string Path, SchemaNode Schema, int Order)
     /// <summary>Whether the key takes a plain number (an integer or a float).</summary>
     public bool IsNumber => Dimension is null && (Schema.Names(JsonType.Number) || Schema.Names(JsonType.Integer)) && !Schema.Allows(JsonType.String);
 
+    /// <summary>The one value the key allows (the kind and format of a file), or null.</summary>
+    public string? FixedValue => Schema.Enum is [var only] ? only.ToString() : null;
+
+    /// <summary>Whether the key allows one value only.</summary>
+    public bool IsFixed => FixedValue is not null;
+
     /// <summary>Whether the key is a flag.</summary>
     public bool IsFlag => Dimension is null && Schema.Names(JsonType.Boolean) && !Schema.Allows(JsonType.String);
 }

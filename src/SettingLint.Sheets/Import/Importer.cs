@@ -322,9 +322,10 @@ public sealed class Importer
         else
         {
             var all = new List<(string, string)>();
-            foreach (var fixedKey in (string[])["kind", "format"])
+            // Keys with one allowed value (kind, format) are written whether the sheet has them or not.
+            foreach (var key in _keys.All.Where(k => k.IsFixed && values.All(v => v.Key != k)))
             {
-                if (values.All(v => v.Key.Path != fixedKey) && _keys.Find(fixedKey)?.Schema.Enum is [var only]) all.Add((fixedKey, only.ToString()));
+                all.Add((key.Path, key.FixedValue!));
             }
             all.AddRange(ordered.Select(v => (v.Key.Path, Scalar(v))));
             text = YamlText.Document(SchemaHeader(Path.GetDirectoryName(target)!), all);
