@@ -1,4 +1,5 @@
 using System.Text;
+using SettingLint.Tests.Shared;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Cli.Tests.Sheets;
@@ -61,6 +62,8 @@ public sealed class ImportTests
         var file = repo.Write("lists/bad.csv", csv);
         var run = Cli.Run("import", file, "--out", repo.PathOf("motors"), "--format", "sarif");
         Assert.Equal(1, run.Exit);
+        // Schema: Schemata/sarif-2.1.0.json shipped in the Sarif.Sdk 5.8.0 package (OASIS SARIF 2.1.0).
+        Assert.Empty(SarifValidation.SchemaErrors(run.Stdout));
         var results = SheetTestFiles.SarifResults(run.Stdout);
         Assert.All(results, r => Assert.Equal("lists/bad.csv", r.Uri));
         (string Rule, int Line, int Column) At(string rule, string needle, int occurrence = 1)
