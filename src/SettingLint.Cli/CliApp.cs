@@ -14,7 +14,7 @@ public static class CliApp
     public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
     {
         // Start-up: the YAML parser, the schemas and the built-in rules get ready on the thread pool while the rest starts.
-        if (args.Length > 0 && args[0] is "check" or "report" or "baseline" or "rules" or "fix" or "server")
+        if (args.Length > 0 && args[0] is "check" or "report" or "baseline" or "rules" or "fix" or "server" or "import" or "sheet")
         {
             SettingLint.Core.Loading.YamlLoader.Warm();
             SettingLint.Core.Validation.SchemaSet.Shared.Warm();
@@ -59,6 +59,9 @@ public static class CliApp
         root.Subcommands.Add(FixCommand.Create(stdout, stderr));
         root.Subcommands.Add(SchemaCommand.Create(stdout, stderr));
         root.Subcommands.Add(ServerCommand.Create(stderr));
+        root.Subcommands.Add(ImportCommand.Create(stdout, stderr));
+        root.Subcommands.Add(NewCommand.Create(stdout, stderr));
+        root.Subcommands.Add(SheetCommand.Create(stdout, stderr));
         return root;
     }
 }

@@ -70,6 +70,8 @@ public sealed class GitRevisionSource : IFileSource
     {
         if (!RepositoryRoot.Contains(Root, fullPath)) return EntryKind.Missing;
         var rel = Rel(fullPath);
+        // The root itself is a folder at every revision.
+        if (rel.Length == 0) return EntryKind.Folder;
         return _files.ContainsKey(rel) ? EntryKind.File : _folders.Contains(rel) ? EntryKind.Folder : EntryKind.Missing;
     }
 
