@@ -13,27 +13,9 @@ namespace SettingLint.Reporting.Tests.Html;
 public sealed class HtmlPlotMarkTests
 {
     // An invented 4.16 kV pump motor on a low-resistance grounded bus; numbers chosen to be typical, not from a datasheet.
-    private static MotorPlotData Motor() => new()
+    // HtmlPlotTests' invented 4.16 kV pump motor, on a low-resistance grounded bus.
+    private static MotorPlotData Motor() => HtmlPlotTests.Motor() with
     {
-        Motor = "T-9",
-        FullLoadCurrent = 120,
-        LockedRotorCurrent = 720,
-        AccelerationTime = 4,
-        AccelerationTimeMax = 6,
-        SafeStallTimeCold = 16,
-        SafeStallTimeHot = 12,
-        Thermal = new ThermalModel(138, 480, 1440),
-        AccelerationTimer = 7.5,
-        ShortCircuitPickup = 1300,
-        ShortCircuitDelay = 0.05,
-        GroundFaultPickup = 20,
-        GroundFaultDelay = 0.1,
-        FaultCurrentMin = 9000,
-        FaultCurrentMax = 15000,
-        InterruptingRating = 25000,
-        Upstream = new OvercurrentSetting(CurveKind.IecVeryInverse, 1000, 0.4, 12000),
-        BusTag = "BUS-T",
-        PhaseCtRatio = 40,
         Grounding = "low-resistance",
         GroundFaultCurrent = 400,
         AsymmetricalStartCurrent = 1.7 * 720,

@@ -11,7 +11,7 @@ namespace SettingLint.Reporting.Tests.Html;
 public sealed class HtmlPlotTests
 {
     // An invented 4.16 kV pump motor; numbers chosen to be typical, not taken from any datasheet.
-    private static MotorPlotData Motor(OvercurrentSetting? upstream = null, double? fullLoadLevel = null) => new()
+    internal static MotorPlotData Motor(OvercurrentSetting? upstream = null, double? fullLoadLevel = null) => new()
     {
         Motor = "T-9",
         FullLoadCurrent = 120,
