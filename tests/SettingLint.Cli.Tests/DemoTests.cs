@@ -40,12 +40,12 @@ public sealed class DemoTests
     public void Clean_motors_have_no_errors_or_warnings()
     {
         var result = Check();
-        foreach (var clean in (string[])["p-201", "p-301", "p-302", "p-501", "p-502"])
+        foreach (var clean in (string[])["motors/p-201", "motors/p-301", "motors/p-302", "motors/p-501", "motors/p-502", "intake/motors/hp-101", "intake/motors/hp-102", "intake/motors/sw-201"])
         {
-            var bad = result.Findings.Where(f => f.File == $"examples/motors/{clean}.yaml" && f.Level >= Level.Warning).Select(f => $"{f.RuleId} {f.Span}: {f.Message}");
+            var bad = result.Findings.Where(f => f.File == $"examples/{clean}.yaml" && f.Level >= Level.Warning).Select(f => $"{f.RuleId} {f.Span}: {f.Message}");
             Assert.Empty(bad);
         }
-        Assert.Equal(8, result.Motors.Length);
+        Assert.Equal(11, result.Motors.Length);
         Assert.Equal(ExitCodes.Findings, result.ExitCode);
     }
 

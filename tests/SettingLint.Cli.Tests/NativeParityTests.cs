@@ -1,4 +1,5 @@
 using System.Text;
+using SettingLint.Reporting;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Cli.Tests;
@@ -179,11 +180,15 @@ public sealed class NativeParityTests
     }
 
     // The in-process run's text as the console writes it: UTF-8 without a byte-order mark (.NET's default on Linux).
+    // Messages that name a command say how this process was started (ToolCommand): `dotnet .../settinglint.dll` in the
+    // test host, the executable's path for the native one. That one word differs by design; everything else must not.
     private static void AssertSame(CliRun jit, ProcessRun native)
     {
         Assert.True(jit.Exit == native.Exit, "exit codes differ: JIT " + jit + "\nnative " + native);
-        AssertBytes(Encoding.UTF8.GetBytes(jit.Stdout), native.Stdout, "stdout");
-        AssertBytes(Encoding.UTF8.GetBytes(jit.Stderr), native.Stderr, "stderr");
+        var nativeCommand = ToolCommand.Resolve(Environment.GetEnvironmentVariable("PATH") ?? "", NativeExecutable.Find(), null);
+        string AsNative(string text) => text.Replace(ToolCommand.Current, nativeCommand, StringComparison.Ordinal);
+        AssertBytes(Encoding.UTF8.GetBytes(AsNative(jit.Stdout)), native.Stdout, "stdout");
+        AssertBytes(Encoding.UTF8.GetBytes(AsNative(jit.Stderr)), native.Stderr, "stderr");
     }
 
     private static void AssertBytes(byte[] jit, byte[] native, string what)

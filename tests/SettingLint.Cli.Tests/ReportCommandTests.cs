@@ -19,11 +19,11 @@ public sealed class ReportCommandTests
         var output = Path.Combine(repo.Outer, "out");
         var run = Cli.Run("report", Examples, "--output", output);
         Assert.True(run.Exit == ExitCodes.Clean, run.ToString());
-        Assert.Contains("8 motors", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("11 motors", run.Stdout, StringComparison.Ordinal);
         Assert.Contains(Caution, run.Stdout, StringComparison.Ordinal);
         Assert.True(File.Exists(Path.Combine(output, "index.html")));
-        Assert.Equal(8, Directory.GetFiles(Path.Combine(output, "motors"), "*.html").Length);
-        Assert.Equal(16, Directory.GetFiles(Path.Combine(output, "svg"), "*.svg").Length);
+        Assert.Equal(11, Directory.GetFiles(Path.Combine(output, "motors"), "*.html").Length);
+        Assert.Equal(22, Directory.GetFiles(Path.Combine(output, "svg"), "*.svg").Length);
         var index = File.ReadAllText(Path.Combine(output, "index.html"));
         foreach (var tag in (string[])["B-401", "P-201", "P-202", "P-301", "P-302", "P-501", "P-502", "P-503"])
         {
@@ -59,7 +59,7 @@ public sealed class ReportCommandTests
         var at0 = Cli.Run("report", Examples, "--format", "json", "--near-miss", "0%");
         Assert.True(at10.Exit == ExitCodes.Clean, at10.ToString());
         var motors = at10.Json.GetProperty("motors").EnumerateArray().ToList();
-        Assert.Equal(8, motors.Count);
+        Assert.Equal(11, motors.Count);
         Assert.Equal(0.1, at10.Json.GetProperty("nearMiss").GetDouble(), 12);
         Assert.All(motors, m => Assert.True(m.GetProperty("margins").GetArrayLength() > 10));
         Assert.Contains(motors, m => m.GetProperty("windows").EnumerateArray().Any(w => w.GetProperty("setting").GetString() == "protection.acceleration.time"));

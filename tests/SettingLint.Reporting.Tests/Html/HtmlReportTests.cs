@@ -20,7 +20,7 @@ public sealed partial class HtmlReportTests
         var model = HtmlTestSupport.DemoModel();
         var index = Files(model)["index.html"];
         var listed = MotorRow().Matches(index).Select(m => m.Groups[1].Value).ToList();
-        Assert.Equal(8, listed.Count);
+        Assert.Equal(11, listed.Count);
         Assert.Equal(HtmlTestSupport.Demo.Result.Motors.Order(StringComparer.Ordinal), listed.Order(StringComparer.Ordinal));
         foreach (var m in model.Motors) Assert.Contains("href=\"" + HtmlReport.PagePath(m) + "\"", index, StringComparison.Ordinal);
     }
@@ -102,7 +102,7 @@ public sealed partial class HtmlReportTests
     {
         var json = JsonDocument.Parse(ReportJson.Render(HtmlTestSupport.DemoModel())).RootElement;
         var motors = json.GetProperty("motors").EnumerateArray().ToList();
-        Assert.Equal(8, motors.Count);
+        Assert.Equal(11, motors.Count);
         var p201 = motors.Single(m => m.GetProperty("tag").GetString() == "P-201");
         var sc = p201.GetProperty("windows").EnumerateArray().Single(w => w.GetProperty("setting").GetString() == "protection.short_circuit.pickup");
         Assert.Equal("SL201", sc.GetProperty("lower").GetProperty("ruleId").GetString());
