@@ -134,10 +134,16 @@ public sealed record MotorPlotData
         var acc = Positive("motor.acceleration_time");
         var accMax = Positive("motor.acceleration_time_max");
         var grounding = motor.Bus?.Grounding;
-        // A soft starter holds the start at its current limit along its ramp, the longest acceleration time (common
-        // practice; the same start as the protection library's start profile, which replaces this once it is on main).
+        // The start the thermal rules check, from the protection library's one start profile: a soft start at its
+        // current limit, a reduced-voltage start at its lowest voltage for acceleration_time_max, else the locked-rotor start.
         var limit = d.Text("starter.type") == "soft-starter" ? Positive("starter.soft_start_current_limit") : null;
-        ImmutableArray<StartStep> soft = limit is { } l && (accMax ?? acc) is { } ramp ? [new StartStep(l, ramp)] : [];
+        var voltage = Positive("motor.starting_voltage_min") ?? 1;
+        var profile = lrc is { } lr && acc is { } a && (limit is not null || d.Text("starter.type") != "soft-starter")
+            ? StartProfile.For(lr, a, accMax, Math.Min(1, voltage), limit)
+            : null;
+        ImmutableArray<StartStep> Steps(StartPoint? p) => p is null ? [] : [new StartStep(p.Current, p.Duration)];
+        var reduced = profile is { IsSoftStart: false } && voltage < 1 && profile.Points.Count > 1;
+        var shaped = profile is not null && (profile.IsSoftStart || reduced);
         return new MotorPlotData
         {
             Motor = motor.Tag,
@@ -145,9 +151,9 @@ public sealed record MotorPlotData
             LockedRotorCurrent = lrc,
             AccelerationTime = acc,
             AccelerationTimeMax = accMax,
-            StartSteps = soft,
-            LongestStartSteps = soft,
-            StartKind = limit is null ? null : "soft-start limit",
+            StartSteps = shaped ? Steps(profile!.Points[0]) : [],
+            LongestStartSteps = shaped ? Steps(profile!.Points[^1]) : [],
+            StartKind = profile is { IsSoftStart: true } ? "soft-start limit" : reduced ? "reduced-voltage start" : null,
             AsymmetricalStartCurrent = AsymmetricalStart(lrc, Positive("motor.rated_voltage"), BusNum("max_voltage")),
             AsymmetryFactor = lrc is null ? null : DefaultAsymmetryFactor,
             Grounding = grounding,
