@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Cli.Tests;
 
@@ -16,10 +17,8 @@ internal static class NativeExecutable
         Environment.GetEnvironmentVariable(Variable) is { Length: > 0 } path ? Path.GetFullPath(path) : null;
 
     /// <summary>Why the native tests skip, or null when they run: never skipped in CI, where a missing executable fails them instead.</summary>
-    public static string? SkipReason() =>
-        Find() is null && Environment.GetEnvironmentVariable("CI") != "true"
-            ? "No native executable: set " + Variable + " to a NativeAOT publish of the CLI (`dotnet publish src/SettingLint.Cli -c Release -r linux-x64 -o OUT`, then OUT/settinglint), as .ci/run does. In CI (CI=true) this test fails instead."
-            : null;
+    public static string? SkipReason() => ToolFacts.SkipReason(Find() is not null,
+        "No native executable: set " + Variable + " to a NativeAOT publish of the CLI (`dotnet publish src/SettingLint.Cli -c Release -r linux-x64 -o OUT`, then OUT/settinglint), as .ci/run does.");
 
     /// <summary>Runs the native executable with the arguments in a working folder: exit code and the raw bytes of both streams.</summary>
     public static ProcessRun Run(string workingDirectory, params string[] args)
