@@ -75,7 +75,7 @@ public sealed class ElectricalCodeTests
         var result = session.Check([repo.Root], null, parallel: false);
         Assert.Contains(result.Findings, f => f.RuleId == "SL201");
         Assert.DoesNotContain(result.Findings, f => f.RuleId == "SL801");
-        var set = Suggestions.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
+        var set = FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
         Assert.DoesNotContain(set.Refused, r => r.Why.Contains("SL801", StringComparison.Ordinal));
         Assert.Contains(set.Applied, f => f.Setting == "protection.short_circuit.pickup");
     }

@@ -96,7 +96,7 @@ public sealed record SourceText(string Text, bool Bom)
 /// makes a value for each, and keeps only the values that a second check of the changed files confirms (no finding
 /// left on the setting, none gained in the file). Both runs reach the other motors of the bus, as the first did.
 /// </summary>
-public static class Suggestions
+public static class FixFinder
 {
     /// <summary>Computes the fixes of the unsuppressed findings of a result (of some rules only, when given).</summary>
     /// <param name="rules">The run's rules.</param>
