@@ -47,7 +47,7 @@ public sealed class JUnitReporter : IReporter
         output.Write('\n');
     }
 
-    private sealed record Case(string ClassName, string Name, string? File, List<Finding> Failures, List<string> Out, string? Error = null);
+    private sealed record Case(string ClassName, string Name, List<Finding> Failures, List<string> Out, string? Error = null);
 
     private sealed record Suite(string Name, string? File, List<Case> Cases);
 
@@ -61,7 +61,7 @@ public sealed class JUnitReporter : IReporter
             {
                 var kind = n.Kind == NotificationKind.Internal ? "internal error" : "configuration error";
                 var where = n.File is { } f ? f + (n.Span is { } s ? ":" + Number(s.StartLine) : "") + ": " : "";
-                run.Cases.Add(new Case("run", kind + (n.File is { } file ? " in " + file : ""), n.File, [], [], where + n.Message));
+                run.Cases.Add(new Case("run", kind + (n.File is { } file ? " in " + file : ""), [], [], where + n.Message));
             }
             suites.Add(run);
         }
@@ -81,7 +81,7 @@ public sealed class JUnitReporter : IReporter
             var suite = new Suite(tag, file, []);
             // Every rule of the run, and any other rule that fired on the file (an engine rule outside the list).
             var ids = result.Rules.Select(r => r.Id).Concat(mine.Select(f => f.RuleId)).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal);
-            foreach (var id in ids) suite.Cases.Add(MakeCase(result, tag, CaseName(id), file, mine.Where(f => f.RuleId == id)));
+            foreach (var id in ids) suite.Cases.Add(MakeCase(result, tag, CaseName(id), mine.Where(f => f.RuleId == id)));
             suites.Add(suite);
         }
         foreach (var (file, findings) in byFile.Where(kv => !motorFiles.Contains(kv.Key)).OrderBy(kv => kv.Key, StringComparer.Ordinal))
@@ -89,16 +89,16 @@ public sealed class JUnitReporter : IReporter
             var suite = new Suite(file, file, []);
             foreach (var group in findings.GroupBy(f => f.RuleId, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal))
             {
-                suite.Cases.Add(MakeCase(result, file, CaseName(group.Key), file, group));
+                suite.Cases.Add(MakeCase(result, file, CaseName(group.Key), group));
             }
             suites.Add(suite);
         }
         return suites;
     }
 
-    private static Case MakeCase(CheckResult result, string className, string name, string file, IEnumerable<Finding> findings)
+    private static Case MakeCase(CheckResult result, string className, string name, IEnumerable<Finding> findings)
     {
-        var c = new Case(className, name, file, [], []);
+        var c = new Case(className, name, [], []);
         foreach (var f in findings)
         {
             if (result.Fails(f)) c.Failures.Add(f);
@@ -130,7 +130,7 @@ public sealed class JUnitReporter : IReporter
             xml.WriteStartElement("testcase");
             xml.WriteAttributeString("name", c.Name);
             xml.WriteAttributeString("classname", c.ClassName);
-            if (c.File is { } f) xml.WriteAttributeString("file", f);
+            // No `file` on a test case: junit-10.xsd allows it on the suite only, which carries it.
             foreach (var failure in c.Failures)
             {
                 xml.WriteStartElement("failure");

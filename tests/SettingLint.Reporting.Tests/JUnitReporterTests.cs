@@ -11,7 +11,8 @@ namespace SettingLint.Reporting.Tests;
 /// most servers follow is Jenkins' xunit plugin's junit-10.xsd (src/main/resources/org/jenkinsci/plugins/xunit/types/
 /// model/xsd/junit-10.xsd, MIT), from Maven Surefire's reports. The schema below states the part of it our report
 /// uses, in our own words: `testsuites` holding `testsuite`s (name, tests, failures and errors required); a
-/// `testsuite` holding `testcase`s (name required, classname, file); a `testcase` holding `failure`, `error`,
+/// `testsuite` (its `file` attribute allowed) holding `testcase`s (name required, classname, time: no `file`, which
+/// junit-10.xsd does not allow on a case); a `testcase` holding `failure`, `error`,
 /// `skipped`, `system-out` and `system-err` (message and type attributes). Counts must match the elements.
 /// </summary>
 public sealed class JUnitReporterTests
@@ -33,7 +34,6 @@ public sealed class JUnitReporterTests
               </xs:choice>
               <xs:attribute name="name" type="xs:string" use="required"/>
               <xs:attribute name="classname" type="xs:string"/>
-              <xs:attribute name="file" type="xs:string"/>
               <xs:attribute name="time" type="xs:string"/>
             </xs:complexType>
           </xs:element>
