@@ -1,5 +1,6 @@
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Linting;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Core.Tests;
@@ -170,5 +171,22 @@ public sealed class ScopedConfigTests
         Assert.Empty(result.Notifications);
         Assert.Equal((null, false), Verdict(result, "harbour-works/motors/m-1.yaml"));
         Assert.Equal((Level.Error, true), Verdict(result, "motors/m-1.yaml"));
+    }
+
+    // Outside git, a file checked on its own from its folder: the root is the outermost configuration (not the site's,
+    // which is nearer), so the motor's bus beside its folder is inside the repository and the site's code applies.
+    [Fact]
+    public void Outside_git_a_file_checked_from_its_folder_finds_the_root_above_its_sites_configuration()
+    {
+        using var repo = new TempRepo(git: false);
+        repo.Write(".settinglint.yaml", RootConfig);
+        repo.Write("harbour-works/.settinglint.yaml", HarbourConfig);
+        repo.Write("harbour-works/buses/bus-1.yaml", Samples.Bus);
+        repo.Write("harbour-works/motors/m-1.yaml", Motor("HW-P1"));
+        var result = Linter.Check(new CheckRequest(repo.PathOf("harbour-works/motors"), ["m-1.yaml"]));
+        Assert.Equal(repo.Root, result.RepositoryRoot);
+        Assert.Empty(result.Notifications);
+        Assert.DoesNotContain(result.Findings, f => f.RuleId == EngineRules.Reference);
+        Assert.Equal((null, false), Verdict(result, "harbour-works/motors/m-1.yaml"));
     }
 }

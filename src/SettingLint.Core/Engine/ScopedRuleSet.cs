@@ -12,7 +12,7 @@ namespace SettingLint.Core.Engine;
 /// sets them (on or off, severity, parameters). Folders that add no rule setting share the root's rule set; each other
 /// set of settings gets one rule set for the run, made on first use, with the root's listeners.
 /// </summary>
-public sealed class ScopedRuleSet : IStagedRuleSet
+internal sealed class ScopedRuleSet : IStagedRuleSet
 {
     private readonly RuleSet _root;
     private readonly ConfigScopes _scopes;
