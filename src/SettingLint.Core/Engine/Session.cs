@@ -58,7 +58,7 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
     public ConfigScopes? Scopes { get; init; }
 
     /// <summary>The rules a run applies: to each motor, <see cref="Rules"/> as its folder's configuration sets them.</summary>
-    public IRuleSet RunRules => Scopes is null ? Rules : new ScopedRuleSet(Rules, Scopes);
+    internal IRuleSet RunRules => Scopes is null ? Rules : new ScopedRuleSet(Rules, Scopes);
 
     /// <summary>Whether a root-relative file is checked under the include and exclude globs of its folder's configuration.</summary>
     public bool Includes(string relativePath) => Scopes?.For(relativePath).Effective.Includes(relativePath) ?? Config.Includes(relativePath);
