@@ -189,4 +189,22 @@ public sealed class ScopedConfigTests
         Assert.DoesNotContain(result.Findings, f => f.RuleId == EngineRules.Reference);
         Assert.Equal((null, false), Verdict(result, "harbour-works/motors/m-1.yaml"));
     }
+
+    // A suggested value is found and confirmed under the rules of the motor's folder: with SL201's asymmetry factor
+    // at 1.5 in Mill Road, its 50P suggestion is about 1.5/1.7 of the same motor's under the root's 1.7.
+    [Fact]
+    public void A_suggestion_is_found_under_the_rules_of_the_motors_folder()
+    {
+        using var repo = TwoSites();
+        repo.Write("mill-road/.settinglint.yaml", MillConfig + "    parameters:\n      asymmetry_factor: 1.5\n");
+        var session = Session.Open([repo.Root]);
+        var result = session.Check([repo.Root], null, parallel: false);
+        var set = Fixes.FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Includes, null, result.Findings,
+            System.Collections.Immutable.ImmutableHashSet<string>.Empty, session.ElectricalCodeOf, session.Scopes);
+        double Suggested(string file) => set.Applied.Single(f => f.MotorFile == file && f.Setting == "protection.short_circuit.pickup").NewSi;
+        var (mill, root) = (Suggested("mill-road/motors/m-1.yaml"), Suggested("motors/m-1.yaml"));
+        Assert.True(mill < root, $"{mill} < {root}");
+        // 1.5 / 1.7 = 0.882, within the rounding of each suggestion to a written step.
+        Assert.InRange(mill / root, 0.86, 0.90);
+    }
 }
