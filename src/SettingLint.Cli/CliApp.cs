@@ -58,6 +58,7 @@ public static class CliApp
         root.Subcommands.Add(ReportCommand.Create(stdout, stderr));
         root.Subcommands.Add(FixCommand.Create(stdout, stderr));
         root.Subcommands.Add(SchemaCommand.Create(stdout, stderr));
+        root.Subcommands.Add(ConfigCommand.Create(stdout, stderr));
         root.Subcommands.Add(ServerCommand.Create(stderr));
         root.Subcommands.Add(ImportCommand.Create(stdout, stderr));
         root.Subcommands.Add(NewCommand.Create(stdout, stderr));

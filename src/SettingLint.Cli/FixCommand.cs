@@ -71,7 +71,7 @@ public static class FixCommand
         if (result.Notifications.Any(n => n.Kind == NotificationKind.Internal)) return ExitCodes.Internal;
 
         var root = result.RepositoryRoot;
-        var set = FixFinder.Compute(session.Rules, root, session.Config.Includes, null, result.Findings, options.Rules, session.Config.ElectricalCodeOf);
+        var set = FixFinder.Compute(session.Rules, root, session.Includes, null, result.Findings, options.Rules, session.ElectricalCodeOf, session.Scopes);
         var changed = 0;
         foreach (var (file, old, text) in set.NewTexts())
         {

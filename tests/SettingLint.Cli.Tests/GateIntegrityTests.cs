@@ -28,6 +28,23 @@ public sealed class GateIntegrityTests
     }
 
     [Fact]
+    public void A_folders_configuration_that_turns_a_rule_off_or_changes_the_code_is_reported_at_its_line()
+    {
+        using var git = new GateGitRepo();
+        git.Write("motors/.settinglint.yaml", "electrical_code: NFPA 70\n");
+        git.Commit("the motors folder under the NEC");
+        git.Write("motors/.settinglint.yaml", "electrical_code: IEC 60364\nrules:\n  SL205: off\n");
+        git.Commit("quieter, under another code");
+
+        var run = git.CheckJson("--changed-since", "HEAD~1");
+        var found = GateFindings(run);
+        Assert.Equal(2, found.Length);
+        Assert.Contains(("SL011", "motors/.settinglint.yaml", 1, "warning",
+            "electrical_code is now IEC 60364 (it was NFPA 70): the rules of NFPA 70 (SL801) no longer run on some of the motors this file governs."), found);
+        Assert.Contains(("SL011", "motors/.settinglint.yaml", 3, "warning", "SL205 is switched off (it was warning): it no longer reports anything."), found);
+    }
+
+    [Fact]
     public void A_grown_baseline_and_a_new_acceptance_are_reported_and_a_changed_parameter_is_a_note()
     {
         using var git = new GateGitRepo();

@@ -193,7 +193,7 @@ public sealed class DiscoveryTests
     }
 
     [Fact]
-    public void Outside_git_the_root_is_the_nearest_folder_with_a_configuration_else_the_current_folder()
+    public void Outside_git_the_root_is_the_outermost_folder_with_a_configuration_else_the_current_folder()
     {
         using var repo = new TempRepo(git: false);
         var motor = repo.Write("plant/motors/p-101.yaml", "kind: motor-protection\n");
@@ -203,8 +203,11 @@ public sealed class DiscoveryTests
         // A .settinglint.yaml above the file marks the root, wherever the current folder is.
         repo.Write("plant/.settinglint.yaml", "fail_on: error\n");
         Assert.Equal(repo.PathOf("plant"), RepositoryRoot.Find(motor, repo.PathOf("plant/motors")));
+        // A folder's own configuration below it does not move the root: the outermost configuration marks it.
+        repo.Write("plant/motors/.settinglint.yaml", "electrical_code: IEC 60364\n");
+        Assert.Equal(repo.PathOf("plant"), RepositoryRoot.Find(motor, repo.PathOf("plant/motors")));
+        Assert.Equal(repo.PathOf("plant"), RepositoryRoot.Find(motor, repo.Outer + "-elsewhere"));
         // A git work tree wins over a nearer configuration.
-        repo.Write("plant/motors/.settinglint.yaml", "fail_on: error\n");
         Directory.CreateDirectory(repo.PathOf(".git"));
         Assert.Equal(repo.Root, RepositoryRoot.Find(motor, repo.PathOf("plant/motors")));
     }

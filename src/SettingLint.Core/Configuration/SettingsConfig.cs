@@ -25,7 +25,7 @@ public sealed record SettingsConfig(
     /// <summary>`electrical_code`: the electrical code that governs the repository's installations; null when not declared.</summary>
     public string? ElectricalCode { get; init; }
 
-    /// <summary>The electrical code declared for a root-relative file (today one per repository; a folder's own configuration may refine it).</summary>
+    /// <summary>The electrical code this file declares, for every file (a folder's own configuration refines it: <see cref="ConfigScopes"/>).</summary>
     public string? ElectricalCodeOf(string relativePath) => ElectricalCode;
 
     public static SettingsConfig Default { get; } = new(null, null, [], [], ["builtin"], new RuleOverrides(new Dictionary<string, RuleOverride>()));
@@ -38,23 +38,25 @@ public sealed record SettingsConfig(
     }
 
     /// <summary>
-    /// Finds the config from the checked path (absolute) upward to the source's root, and reads it through the source;
-    /// problems carry the file's positions.
+    /// Finds the run's root configuration, the outermost one between the source's root and the checked path (absolute),
+    /// and reads it through the source; problems carry the file's positions. Files nearer the checked path are the
+    /// configuration of their folders (<see cref="ConfigScopes"/>), whichever folder a run starts from.
     /// </summary>
     public static (SettingsConfig Config, ImmutableArray<Notification> Problems) Load(IFileSource source, string checkedPath, SchemaSet schemas)
     {
         ArgumentNullException.ThrowIfNull(source);
         var root = source.Root;
         var dir = source.Probe(checkedPath) == EntryKind.Folder ? checkedPath : Path.GetDirectoryName(checkedPath) ?? root;
+        string? outermost = null;
         for (var d = dir; d is not null && Discovery.RepositoryRoot.Contains(root, d); d = Path.GetDirectoryName(d))
         {
             foreach (var name in (string[])[FileName, ".settinglint.yml"])
             {
                 var f = Path.Combine(d, name);
-                if (source.Probe(f) == EntryKind.File) return Read(source, f, schemas);
+                if (source.Probe(f) == EntryKind.File) { outermost = f; break; }
             }
         }
-        return (Default, []);
+        return outermost is null ? (Default, []) : Read(source, outermost, schemas);
     }
 
     private static (SettingsConfig, ImmutableArray<Notification>) Read(IFileSource source, string path, SchemaSet schemas)

@@ -1,8 +1,8 @@
 namespace SettingLint.Core.Discovery;
 
 /// <summary>
-/// Finds the repository root: the nearest folder upward that holds `.git`; outside a git work tree, the nearest that
-/// holds a `.settinglint.yaml`; else the current folder when the checked path lies below it, else the checked folder.
+/// Finds the repository root: the nearest folder upward that holds `.git`; outside a git work tree, the outermost that
+/// holds a `.settinglint.yaml` (the nearer ones are folders' own configurations); else the current folder when the checked path lies below it, else the checked folder.
 /// A file checked on its own outside git (`check motors/p-101.yaml`) thus still reaches `../buses/` beside it.
 /// </summary>
 public static class RepositoryRoot
@@ -15,15 +15,20 @@ public static class RepositoryRoot
     {
         var full = Path.GetFullPath(checkedPath);
         var start = Directory.Exists(full) ? full : Path.GetDirectoryName(full) ?? full;
-        foreach (var marker in (string[])[".git", ".settinglint.yaml"])
+        for (var dir = start; dir is not null; dir = Path.GetDirectoryName(dir))
         {
-            for (var dir = start; dir is not null; dir = Path.GetDirectoryName(dir))
-            {
-                var path = Path.Combine(dir, marker);
-                // `.git` is a folder, or a file in a linked work tree or submodule.
-                if (Directory.Exists(path) && marker == ".git" || File.Exists(path)) return Trim(dir);
-            }
+            // `.git` is a folder, or a file in a linked work tree or submodule.
+            var git = Path.Combine(dir, ".git");
+            if (Directory.Exists(git) || File.Exists(git)) return Trim(dir);
         }
+        // Outside git, the outermost configuration: a nearer one is a folder's own (scoped) configuration, and taking
+        // its folder as the root would cut its files off from the root configuration and from `../` beside them.
+        string? configured = null;
+        for (var dir = start; dir is not null; dir = Path.GetDirectoryName(dir))
+        {
+            if (File.Exists(Path.Combine(dir, ".settinglint.yaml")) || File.Exists(Path.Combine(dir, ".settinglint.yml"))) configured = dir;
+        }
+        if (configured is not null) return Trim(configured);
         var cwd = Trim(Path.GetFullPath(currentDirectory));
         return Contains(cwd, start) ? cwd : Trim(start);
     }

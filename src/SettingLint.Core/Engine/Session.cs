@@ -45,7 +45,36 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         // reported for that alone, not also as missing.
         var unknown = config.Overrides.ById.Keys.Where(id => !merged.Rules.Any(r => r.Id == id) && !EngineRules.All.Any(r => r.Id == id))
             .Select(id => new Notification(NotificationKind.Configuration, $"Configuration: the rule {id} is not in any loaded pack.", config.File));
-        return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown]);
+        return new Session(root, config, new RuleSet(loaded.Rules), [.. problems, .. loaded.Problems, .. unknown])
+        {
+            Scopes = problems.IsEmpty ? new ConfigScopes(source, s, config, merged, loaded.Rules) : null,
+        };
+    }
+
+    /// <summary>
+    /// The configuration of each folder below the root configuration (its `.settinglint.yaml` files); null for a session
+    /// made without reading configuration (the rule fixtures).
+    /// </summary>
+    public ConfigScopes? Scopes { get; init; }
+
+    /// <summary>The rules a run applies: to each motor, <see cref="Rules"/> as its folder's configuration sets them.</summary>
+    internal IRuleSet RunRules => Scopes is null ? Rules : new ScopedRuleSet(Rules, Scopes);
+
+    /// <summary>Whether a root-relative file is checked under the include and exclude globs of its folder's configuration.</summary>
+    public bool Includes(string relativePath) => Scopes?.For(relativePath).Effective.Includes(relativePath) ?? Config.Includes(relativePath);
+
+    /// <summary>`electrical_code` of the configuration that governs a root-relative file; null when none declares one.</summary>
+    public string? ElectricalCodeOf(string relativePath) =>
+        Scopes is null ? Config.ElectricalCodeOf(relativePath) : Scopes.For(relativePath).Effective.ElectricalCode?.Value;
+
+    /// <summary>
+    /// A run's result, or, when a folder's configuration file that the run met has problems, a result with those
+    /// problems alone (exit 2), as for the root configuration's.
+    /// </summary>
+    public CheckResult Finish(CheckResult result)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        return Scopes?.Problems is { IsEmpty: false } found ? Stopped(result.FailOn, found) : result;
     }
 
     /// <summary>A result with no findings that carries the session's problems (exit 2), or other problems that stop a run.</summary>
@@ -57,7 +86,7 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
     /// place where the configuration becomes options, for this session's own run and the gate's.
     /// </summary>
     public CheckOptions Options(IReadOnlyList<string> paths, Level threshold, bool parallel) =>
-        new(paths, threshold, Parallel: parallel, Include: Config.Includes, Root: Root, ElectricalCode: Config.ElectricalCodeOf);
+        new(paths, threshold, Parallel: parallel, Include: Includes, Root: Root, ElectricalCode: ElectricalCodeOf);
 
     /// <summary>Runs the check of absolute paths on disk without the gate; configuration problems give a result with no findings and exit 2.</summary>
     /// <remarks>Front ends call <c>Linter.Check</c>, which adds the gate, sources and observers; this is the engine's own run.</remarks>
@@ -65,6 +94,6 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
     {
         var threshold = failOn ?? Config.FailOn ?? Level.Error;
         if (Problems.Length > 0) return Stopped(threshold, Problems);
-        return new Checker(Rules).Run(Options(paths, threshold, parallel));
+        return Finish(new Checker(RunRules).Run(Options(paths, threshold, parallel)));
     }
 }

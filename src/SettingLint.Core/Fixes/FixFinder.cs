@@ -106,8 +106,10 @@ public static class FixFinder
     /// <param name="findings">The check's findings.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
     /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
-    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null)
+    /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is found and confirmed under its folder's rules.</param>
+    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null, Configuration.ConfigScopes? scopes = null)
     {
+        IRuleSet Scoped(RuleSet r) => scopes is null ? r : new Engine.ScopedRuleSet(r, scopes);
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(onlyRules);
         var unreadable = findings.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)).Select(f => f.File).ToHashSet(StringComparer.Ordinal);
@@ -120,7 +122,7 @@ public static class FixFinder
         var outcomes = new ConcurrentQueue<RuleOutcome>();
         var motors = new ConcurrentDictionary<string, MotorProtection>(StringComparer.Ordinal);
         var listening = new RuleSet(rules.Rules) { Outcomes = outcomes.Enqueue, Motors = m => motors.TryAdd(m.Document.RelativePath, m) };
-        Run(listening, root, include, overlay, files, electricalCode);
+        Run(Scoped(listening), root, include, overlay, files, electricalCode);
 
         var texts = new Dictionary<string, SourceText>(StringComparer.Ordinal);
         string? Read(string rel)
@@ -142,7 +144,7 @@ public static class FixFinder
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
             var merged = new OverlaySource(overlay ?? new DiskSource(root), contents);
-            var after = Run(rules, root, include, merged, [.. contents.Keys], electricalCode).Findings;
+            var after = Run(Scoped(rules), root, include, merged, [.. contents.Keys], electricalCode).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
             {

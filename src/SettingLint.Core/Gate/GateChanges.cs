@@ -43,7 +43,11 @@ internal static class GateChanges
             var found = new Found(rel);
             if (rel == baselineFile) CompareBaseline(old, now, found);
             else if (!Discovery.FileDiscovery.IsYaml(rel)) continue;
-            else if (name is SettingsConfig.FileName or ".settinglint.yml") CompareConfig(rel, old, now, found, defaultLevelOf);
+            else if (name is SettingsConfig.FileName or ".settinglint.yml")
+            {
+                // A folder's file says what changes from the files above it: a rule it does not name keeps their level.
+                CompareConfig(rel, old, now, found, defaultLevelOf, Inherited(rel, changes, readNew, defaultLevelOf, oldSide: true), Inherited(rel, changes, readNew, defaultLevelOf, oldSide: false));
+            }
             else if (packs.Any(p => rel.StartsWith(p, StringComparison.Ordinal))) CompareRule(rel, old, now, found);
             else CompareAcceptances(rel, old, now, found, findings);
             result.AddRange(found.Items);
@@ -73,7 +77,46 @@ internal static class GateChanges
 
     // ---- configuration
 
-    private sealed record RuleEntry(Level? Level, bool Off, SourceSpan Span, ImmutableDictionary<string, (string Text, SourceSpan Span)> Parameters);
+    private sealed record RuleEntry(Level? Level, bool Off, SourceSpan Span, ImmutableDictionary<string, (string Text, SourceSpan Span)> Parameters)
+    {
+        /// <summary>`on` (or `enabled: true`): the rule runs again where a farther file switched it off.</summary>
+        public bool On { get; init; }
+    }
+
+    /// <summary>
+    /// The level of a rule in the folder of a configuration file before that file applies: its default, then every
+    /// configuration file in the folders above, on the old side of the change or the new.
+    /// </summary>
+    private static Func<string, Level?> Inherited(string rel, ChangeSet changes, Func<string, byte[]?> readNew, Func<string, Level?> defaultLevelOf, bool oldSide)
+    {
+        var views = new List<ConfigView>();
+        var folders = rel.Split('/')[..^1];
+        for (var depth = 0; depth < folders.Length; depth++)
+        {
+            var prefix = string.Concat(folders[..depth].Select(f => f + "/"));
+            foreach (var name in (string[])[SettingsConfig.FileName, ".settinglint.yml"])
+            {
+                var path = prefix + name;
+                var changed = changes.Changed.Contains(path) || changes.Deleted.Contains(path);
+                var bytes = oldSide && changed ? changes.OldContents.GetValueOrDefault(path) : readNew(path);
+                if (bytes is null) continue;
+                views.Add(ReadConfig(Load(path, bytes)));
+                break;
+            }
+        }
+        return id =>
+        {
+            var level = defaultLevelOf(id);
+            foreach (var v in views)
+            {
+                if (v.Rules.GetValueOrDefault(id) is not { } r) continue;
+                if (r.Off) level = Level.None;
+                else if (r.Level is { } l) level = l;
+                else if (r.On && level == Level.None) level = defaultLevelOf(id);
+            }
+            return level;
+        };
+    }
 
     private sealed record ConfigView(
         Level FailOn,
@@ -82,7 +125,11 @@ internal static class GateChanges
         ImmutableArray<(string Text, SourceSpan Span)> Packs,
         ImmutableArray<(string Text, SourceSpan Span)> Include,
         ImmutableArray<(string Text, SourceSpan Span)> Exclude,
-        SourceSpan RulesSpan);
+        SourceSpan RulesSpan)
+    {
+        /// <summary>`electrical_code` and its place; null when the file does not declare one.</summary>
+        public (string Text, SourceSpan Span)? ElectricalCode { get; init; }
+    }
 
     private static ConfigView ReadConfig(LoadedFile? file)
     {
@@ -102,7 +149,7 @@ internal static class GateChanges
                 switch (e.Value)
                 {
                     case YScalar s:
-                        rules[e.Key.Value] = new RuleEntry(s.Value is "off" or "on" ? null : Levels.Parse(s.Value), s.Value == "off", s.Span, ImmutableDictionary<string, (string, SourceSpan)>.Empty);
+                        rules[e.Key.Value] = new RuleEntry(s.Value is "off" or "on" ? null : Levels.Parse(s.Value), s.Value == "off", s.Span, ImmutableDictionary<string, (string, SourceSpan)>.Empty) { On = s.Value == "on" };
                         break;
                     case YMapping o:
                     {
@@ -111,7 +158,7 @@ internal static class GateChanges
                         var prm = o["parameters"] is YMapping pm
                             ? pm.Entries.Where(p => p.Value is YScalar).ToImmutableDictionary(p => p.Key.Value, p => (((YScalar)p.Value).Value, p.Value.Span), StringComparer.Ordinal)
                             : ImmutableDictionary<string, (string, SourceSpan)>.Empty;
-                        rules[e.Key.Value] = new RuleEntry(level, off, e.Key.Span, prm);
+                        rules[e.Key.Value] = new RuleEntry(level, off, e.Key.Span, prm) { On = o["enabled"] is YScalar { Value: "true" or "True" or "TRUE" } };
                         break;
                     }
                 }
@@ -120,7 +167,10 @@ internal static class GateChanges
         ImmutableArray<(string, SourceSpan)> List(string key) =>
             m?[key] is YSequence s ? [.. s.Items.OfType<YScalar>().Select(x => (x.Value, x.Span))] : [];
         var packs = m?["packs"] is YSequence ? List("packs") : [("builtin", SourceSpan.FileStart)];
-        return new ConfigView(failOn, failOnSpan, rules.ToImmutable(), packs, List("include"), List("exclude"), m?.Find("rules")?.Key.Span ?? SourceSpan.FileStart);
+        return new ConfigView(failOn, failOnSpan, rules.ToImmutable(), packs, List("include"), List("exclude"), m?.Find("rules")?.Key.Span ?? SourceSpan.FileStart)
+        {
+            ElectricalCode = m?["electrical_code"] is YScalar ec ? (ec.Value, ec.Span) : null,
+        };
     }
 
     // How strict a threshold is: note fails on the most, never on nothing.
@@ -128,7 +178,7 @@ internal static class GateChanges
 
     private static string FailOnToken(Level l) => l == Level.None ? "never" : l.Token();
 
-    private static void CompareConfig(string rel, byte[]? oldBytes, byte[]? newBytes, Found found, Func<string, Level?> defaultLevelOf)
+    private static void CompareConfig(string rel, byte[]? oldBytes, byte[]? newBytes, Found found, Func<string, Level?> defaultLevelOf, Func<string, Level?> oldInherited, Func<string, Level?> newInherited)
     {
         var old = ReadConfig(Load(rel, oldBytes));
         var now = ReadConfig(Load(rel, newBytes));
@@ -143,8 +193,12 @@ internal static class GateChanges
             var o = old.Rules.GetValueOrDefault(id);
             var n = now.Rules.GetValueOrDefault(id);
             var defaultLevel = defaultLevelOf(id) ?? Level.Error;
-            Level Effective(RuleEntry? r) => r is null ? defaultLevel : r.Off ? Level.None : r.Level ?? defaultLevel;
-            var (ol, nl) = (Effective(o), Effective(n));
+            Level Effective(RuleEntry? r, Func<string, Level?> inherited)
+            {
+                var above = inherited(id) ?? defaultLevel;
+                return r is null ? above : r.Off ? Level.None : r.Level ?? (r.On && above == Level.None ? defaultLevel : above);
+            }
+            var (ol, nl) = (Effective(o, oldInherited), Effective(n, newInherited));
             var span = n?.Span ?? now.RulesSpan;
             if (nl == Level.None && ol != Level.None)
             {
@@ -166,6 +220,7 @@ internal static class GateChanges
                     ("parameter", p), ("id", id), ("old", ot ?? "the rule's default"), ("new", nt ?? "the rule's default"));
             }
         }
+        CompareCode(old, now, found);
         foreach (var (pack, _) in old.Packs.Where(p => !now.Packs.Any(q => q.Text == p.Text)))
         {
             found.Warn(now.Packs.IsEmpty ? SourceSpan.FileStart : now.Packs[0].Span, "packs",
@@ -187,6 +242,28 @@ internal static class GateChanges
                 found.Warn(now.Include.IsEmpty ? SourceSpan.FileStart : now.Include[0].Span, "include",
                     "Files matching {glob} are no longer included: they are not checked.", ("glob", glob));
             }
+        }
+    }
+
+    // The governing code decides which rules run (SL801 only under NFPA 70). Moving away from NFPA 70, declared or
+    // implied by a 60 Hz bus when none is declared, stops the built-in rules of that code: a warning. Any other change
+    // stops the rules of a company's own packs written for the old code and starts those of the new: a note, for the
+    // reviewer to judge. The same in the root's file and in a folder's.
+    private static void CompareCode(ConfigView old, ConfigView now, Found found)
+    {
+        var (o, n) = (old.ElectricalCode?.Text, now.ElectricalCode?.Text);
+        if (o == n) return;
+        var span = now.ElectricalCode?.Span ?? SourceSpan.FileStart;
+        (string, FindingValue)[] values = [("new", n ?? "not declared"), ("old", o ?? "not declared")];
+        if (n != Model.ElectricalCodes.Nfpa70 && (o is null || o == Model.ElectricalCodes.Nfpa70))
+        {
+            found.Warn(span, "electrical_code",
+                "electrical_code is now {new} (it was {old}): the rules of NFPA 70 (SL801) no longer run on some of the motors this file governs.", values);
+        }
+        else
+        {
+            found.Note(span, "electrical_code",
+                "electrical_code is now {new} (it was {old}): check which rules of the packs in use stop or start running.", values);
         }
     }
 

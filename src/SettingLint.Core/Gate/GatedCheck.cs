@@ -91,7 +91,9 @@ internal static class GatedCheck
             Source = view,
             WorkingDirectory = workingDirectory,
         };
-        var result = new Checker(session.Rules).Run(options);
+        var result = new Checker(session.RunRules).Run(options);
+        // A folder's configuration with problems is met only as its files are discovered; it stops the run as the root's does.
+        if (session.Finish(result) is var finished && !ReferenceEquals(finished, result)) return finished;
 
         if (changes is not null)
         {
