@@ -3,6 +3,7 @@ using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Reporting;
 using SettingLint.Tests.Shared;
+using SettingLint.Tests.Support;
 
 namespace SettingLint.Cli.Tests;
 
@@ -50,6 +51,33 @@ public sealed class DemoTests
         }
         Assert.Equal(11, result.Motors.Length);
         Assert.Equal(ExitCodes.Findings, result.ExitCode);
+    }
+
+    [Fact]
+    public void The_intake_site_is_governed_by_IEC_60364_from_its_own_folder_and_the_main_site_by_NFPA_70()
+    {
+        var examples = Path.Combine(RepositoryPaths.Root(), "examples");
+        var intake = Cli.Run("config", "show", Path.Combine(examples, "intake", "motors", "sw-201.yaml"));
+        Assert.Equal(0, intake.Exit);
+        Assert.Contains("electrical_code: IEC 60364  (examples/intake/.settinglint.yaml:", intake.Stdout, StringComparison.Ordinal);
+        var main = Cli.Run("config", "show", Path.Combine(examples, "motors", "p-201.yaml"));
+        Assert.Contains("electrical_code: NFPA 70  (examples/.settinglint.yaml:", main.Stdout, StringComparison.Ordinal);
+
+        // NFPA 70 430.32(A)(1) caps an overload pickup at 125 % of FLC for a service factor of 1.15 or more, 115 %
+        // otherwise. Raise one motor of each site to 1.30 x FLC: SL801 fires on the main site's P-201 (service factor
+        // 1.15), and does not run on the intake site's SW-201, where IEC 60364 governs.
+        using var repo = Server.ServerSession.DemoRepo();
+        Raise(repo, "motors/p-201.yaml", "pickup: 1.15 xFLC");
+        Raise(repo, "intake/motors/sw-201.yaml", "pickup: 1.05 xFLC");
+        var found = Session.Open([repo.Root]).Check([repo.Root], null).Findings.Where(f => f.RuleId == "SL801").Select(f => f.File).ToList();
+        Assert.Equal(["motors/p-201.yaml"], found);
+    }
+
+    private static void Raise(TempRepo repo, string file, string pickup)
+    {
+        var text = File.ReadAllText(repo.PathOf(file));
+        Assert.Contains(pickup, text, StringComparison.Ordinal);
+        repo.Write(file, text.Replace(pickup, "pickup: 1.30 xFLC", StringComparison.Ordinal));
     }
 
     [Fact]
