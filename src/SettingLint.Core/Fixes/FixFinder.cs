@@ -112,7 +112,7 @@ public sealed record SourceText(string Text, bool Bom)
 /// the changed files confirms (no finding left on the setting, none gained in the file). The second check reads through
 /// the first's file source (the staged contents, an editor's buffers) and reaches the other motors of the bus, as the first did.
 /// </summary>
-public static class FixFinder
+internal static class FixFinder
 {
     /// <summary>Computes the fixes of the unsuppressed findings of a check (of some rules only, when given).</summary>
     /// <param name="rules">The run's rules (without listeners).</param>
