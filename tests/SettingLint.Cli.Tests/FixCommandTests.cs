@@ -56,6 +56,18 @@ public sealed class FixCommandTests
         Assert.Empty(Cli.CheckJson(repo).Findings);
     }
 
+    // The demo's B-401: a core-balance 50G at 2 A sec through a 250:5 CT is 100 A pri, above SL302's 20 % of the 400 A
+    // resistor current (80 A pri, common practice). SL302 prefers the lowest pickup, but no rule bounds a core-balance
+    // element from below (SL303's false residual is for residual connections), so the fix is the least change: the
+    // highest 0.01 xCT step (2.5 A pri) at or below 80 A, which is 80 A = 1.6 A sec; never the relay's 0.05 xCT minimum.
+    [Fact]
+    public void A_preferred_side_needs_a_rule_bound_on_that_side_not_only_the_relay_range()
+    {
+        var run = Cli.Run("check", Path.Combine(RepositoryPaths.Root(), "examples"));
+        var line = run.Stdout.Split('\n').Single(l => l.Contains("b-401.yaml:45:13: ", StringComparison.Ordinal) && l.Contains(" SL302: ", StringComparison.Ordinal));
+        Assert.EndsWith("[suggested: 1.6 A sec]", line, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Check_shows_the_suggestion_in_text_and_json_and_leaves_the_file_alone()
     {

@@ -54,8 +54,8 @@ internal static class FixPlanner
     }
 
     /// <summary>
-    /// The side the rules bounding a window prefer, when every one of them that states a side states the same one;
-    /// none when they disagree (then neither is favoured, and the fix makes the least change).
+    /// The side the rules bounding a window prefer, when every one of them that states a side states the same one and one
+    /// of them bounds the window on that side; none otherwise (then neither is favoured, and the fix makes the least change).
     /// </summary>
     public static (PreferredSide Side, string Why)? Preferred(SettingWindow window, IReadOnlyDictionary<string, FixPreference>? preferences)
     {
@@ -64,6 +64,11 @@ internal static class FixPlanner
         var stated = window.Lower.Concat(window.Upper).Select(b => b.RuleId).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal)
             .Where(preferences.ContainsKey).Select(id => (Id: id, Prefer: preferences[id])).ToList();
         if (stated.Count == 0 || stated.Any(s => s.Prefer.Side != stated[0].Prefer.Side)) return null;
+        // The end of the window is taken only where a rule that prefers it bounds it: the lowest pickup above the start's
+        // bound, never a bound of the relay's range alone (a core-balance 50G with no lower rule keeps the least change).
+        var ids = stated.Select(s => s.Id).ToHashSet(StringComparer.Ordinal);
+        var bounds = stated[0].Prefer.Side == PreferredSide.Lowest ? window.Lower : window.Upper;
+        if (!bounds.Any(b => ids.Contains(b.RuleId))) return null;
         var side = stated[0].Prefer.Side == PreferredSide.Lowest ? "lowest" : "highest";
         return (stated[0].Prefer.Side, string.Join(", ", stated.Select(s => s.Id)) + " prefer" + (stated.Count == 1 ? "s" : "") + " the " + side + " value: " + stated[0].Prefer.Reason);
     }
