@@ -1,8 +1,5 @@
 using System.CommandLine;
-using System.Collections.Immutable;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
-using SettingLint.Core.Fixes;
 using SettingLint.Core.Gate;
 using SettingLint.Core.Linting;
 using SettingLint.Reporting;
@@ -119,20 +116,8 @@ public static class CheckCommand
         var started = DateTimeOffset.UtcNow;
         var paths = options.Paths.Count == 0 ? (IReadOnlyList<string>)["."] : options.Paths;
         var gate = new GateOptions(!options.NoSuppress, options.Baseline, options.ChangedSince, options.Staged, options.AllFiles);
-        var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), paths) { FailOn = options.FailOn, Options = gate });
-        // A staged check reads the index; the suggestions would read the working tree, so they wait for a plain check.
-        if (!options.Staged && options.Suggest && result.Notifications.IsEmpty)
-        {
-            var session = Session.Open([Path.GetFullPath(paths[0])]);
-            var set = FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.ElectricalCodeOf, session.Scopes);
-            // A conflict stands with the findings on its setting: unchanged from the baseline when they all are.
-            var conflicts = set.Conflicts().Select(c =>
-            {
-                var states = result.Findings.Where(f => f.File == c.File && f.KeyPath == c.KeyPath && f.Suppression is null).Select(f => f.BaselineState).ToList();
-                return states.Any(s => s is not null) ? c with { BaselineState = states.Any(s => s is not BaselineState.Unchanged) ? BaselineState.New : BaselineState.Unchanged } : c;
-            });
-            result = result with { Findings = [.. set.Attach(result.Findings).AddRange(conflicts).Order(Finding.Order)] };
-        }
+        // Suggested values come from the same run's outcomes, confirmed through the files it read (the index with --staged).
+        var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), paths) { FailOn = options.FailOn, Options = gate, Suggest = options.Suggest });
         var context = new ReportContext(Directory.GetCurrentDirectory(), options.Timestamps, options.SarifOmitSuppressed, ToolInfo.ForVersion(Version))
         {
             ShowAccepted = options.ShowAccepted,

@@ -2,12 +2,10 @@ using System.Collections.Immutable;
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Fixes;
 using SettingLint.Core.Gate;
-using SettingLint.Core.Model;
-using SettingLint.Core.Rules;
+using SettingLint.Core.Linting;
 using SettingLint.Reporting;
 
 namespace SettingLint.Cli;
@@ -16,7 +14,14 @@ namespace SettingLint.Cli;
 /// <param name="Paths">Files or folders whose findings to fix.</param>
 /// <param name="Rules">Fix only the findings of these rules; empty for all.</param>
 /// <param name="DryRun">Print a unified diff instead of writing.</param>
-public sealed record FixOptionsRecord(IReadOnlyList<string> Paths, IReadOnlySet<string> Rules, bool DryRun);
+public sealed record FixOptionsRecord(IReadOnlyList<string> Paths, IReadOnlySet<string> Rules, bool DryRun)
+{
+    /// <summary>Fix only the files `check --changed-since REV` would check, as they are in the working tree.</summary>
+    public string? ChangedSince { get; init; }
+
+    /// <summary>Fix only the files `check --staged` would check, from their staged contents (a file whose working copy differs is left alone).</summary>
+    public bool Staged { get; init; }
+}
 
 /// <summary>
 /// `settinglint fix [PATH...]`: writes, for each setting a finding is on, the value that every rule on that setting
@@ -29,9 +34,11 @@ public static class FixCommand
         var paths = new Argument<string[]>("paths") { Description = "Files or folders to fix (default: the current folder).", Arity = ArgumentArity.ZeroOrMore };
         var rule = new Option<string[]>("--rule") { Description = "Fix only the findings of this rule (repeatable), such as --rule SL201.", AllowMultipleArgumentsPerToken = false };
         var dryRun = new Option<bool>("--dry-run") { Description = "Print what would change as a unified diff, and write nothing." };
+        var changedSince = new Option<string?>("--changed-since") { Description = "Fix only the setting files `check --changed-since` would check: those changed since this git revision and the files that depend on them." };
+        var staged = new Option<bool>("--staged") { Description = "Fix only the files `check --staged` would check, as staged; the fixed files are written to the working tree (stage them to commit the fix)." };
         var command = new Command("fix", "Rewrite settings that rules find wrong with a value every rule on the setting accepts, on the relay's step, in the file's own unit.\n\n" + CliApp.Caution)
         {
-            paths, rule, dryRun,
+            paths, rule, dryRun, changedSince, staged,
         };
         command.SetAction(parse =>
         {
@@ -42,7 +49,11 @@ public static class FixCommand
                 return ExitCodes.Usage;
             }
             var rules = (parse.GetValue(rule) ?? []).ToHashSet(StringComparer.Ordinal);
-            return Execute(new FixOptionsRecord(given.Length == 0 ? ["."] : given, rules, parse.GetValue(dryRun)), stdout, stderr);
+            return Execute(new FixOptionsRecord(given.Length == 0 ? ["."] : given, rules, parse.GetValue(dryRun))
+            {
+                ChangedSince = parse.GetValue(changedSince),
+                Staged = parse.GetValue(staged),
+            }, stdout, stderr);
         });
         return command;
     }
@@ -51,27 +62,27 @@ public static class FixCommand
     public static int Execute(FixOptionsRecord options, TextWriter stdout, TextWriter stderr)
     {
         ArgumentNullException.ThrowIfNull(options);
-        // The engine takes absolute paths: the command line's are made so against the current folder here.
-        IReadOnlyList<string> paths = options.Paths.Count == 0 ? [Directory.GetCurrentDirectory()] : [.. options.Paths.Select(Path.GetFullPath)];
-        var session = Session.Open(paths);
-        if (!session.Problems.IsEmpty)
+        // The one run of `check` (with --staged or --changed-since, the same files), asked for its suggestions.
+        var fixes = new FixesObserver();
+        var result = Linter.Check(new CheckRequest(Directory.GetCurrentDirectory(), options.Paths.Count == 0 ? ["."] : options.Paths)
         {
-            foreach (var p in session.Problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
-            return ExitCodes.Usage;
-        }
-        var unknown = options.Rules.Where(r => !session.Rules.Rules.Any(x => x.Id == r)).Order(StringComparer.Ordinal).ToList();
+            Options = new GateOptions(ChangedSince: options.ChangedSince, Staged: options.Staged),
+            Suggest = true,
+            SuggestRules = options.Rules,
+            Observers = [fixes],
+        });
+        foreach (var n in result.Notifications) stderr.WriteLine(Where(n) + (n.Kind == NotificationKind.Internal ? "internal error: " : "error: ") + n.Message);
+        if (result.Notifications.Any(n => n.Kind == NotificationKind.Configuration)) return ExitCodes.Usage;
+        if (result.Notifications.Any(n => n.Kind == NotificationKind.Internal)) return ExitCodes.Internal;
+        var unknown = options.Rules.Where(r => !result.Rules.Any(x => x.Id == r)).Order(StringComparer.Ordinal).ToList();
         if (unknown.Count > 0)
         {
             stderr.WriteLine("settinglint: --rule names a rule that is not loaded: " + string.Join(", ", unknown));
             return ExitCodes.Usage;
         }
-        var result = session.Check(paths, null);
-        foreach (var n in result.Notifications) stderr.WriteLine(Where(n) + (n.Kind == NotificationKind.Internal ? "internal error: " : "error: ") + n.Message);
-        if (result.Notifications.Any(n => n.Kind == NotificationKind.Configuration)) return ExitCodes.Usage;
-        if (result.Notifications.Any(n => n.Kind == NotificationKind.Internal)) return ExitCodes.Internal;
 
         var root = result.RepositoryRoot;
-        var set = FixFinder.Compute(session.Rules, root, session.Includes, null, result.Findings, options.Rules, session.ElectricalCodeOf, session.Scopes);
+        var set = fixes.Set;
         var changed = 0;
         foreach (var (file, old, text) in set.NewTexts())
         {
@@ -86,12 +97,19 @@ public static class FixCommand
                 stderr.WriteLine($"settinglint: {file} lies outside the repository; not written.");
                 continue;
             }
+            // Staged: the fix is of the index's text; a working copy with other changes is not overwritten with it.
+            if (options.Staged && !(File.Exists(full) && File.ReadAllBytes(full).AsSpan().SequenceEqual(old.Encode(old.Text))))
+            {
+                stderr.WriteLine($"settinglint: {file} has changes that are not staged; not written (stage or stash them, then fix again).");
+                continue;
+            }
             WriteAtomically(full, old.Encode(text));
             changed++;
         }
         foreach (var f in set.Applied)
         {
-            stdout.WriteLine($"{f.MotorFile}:{f.Span.StartLine}:{f.Span.StartColumn}: {(options.DryRun ? "would set" : "set")} {f.Setting} {f.OldWritten} -> {f.Written}: {f.Shown(f.OldSi)} -> {f.Shown(f.NewSi)} [{string.Join(", ", f.RuleIds)}]");
+            stdout.WriteLine($"{f.MotorFile}:{f.Span.StartLine}:{f.Span.StartColumn}: {(options.DryRun ? "would set" : "set")} {f.Setting} {f.OldWritten} -> {f.Written}: {f.Shown(f.OldSi)} -> {f.Shown(f.NewSi)} [{string.Join(", ", f.RuleIds)}]"
+                + (f.Preference is { } why ? " (" + why + ")" : ""));
         }
         foreach (var (f, why) in set.Refused)
         {
@@ -99,8 +117,17 @@ public static class FixCommand
         }
         var files = set.Applied.Select(f => f.MotorFile).Distinct(StringComparer.Ordinal).Count();
         stdout.WriteLine($"settinglint fix: {(options.DryRun ? "would change" : "changed")} {Count(set.Applied.Length, "value")} in {Count(options.DryRun ? files : changed, "file")}; {Count(set.Refused.Length, "setting")} without a fix.");
+        if (options.Staged && !options.DryRun && changed > 0) stdout.WriteLine("settinglint fix: the fixed files are written to the working tree; stage them to commit the fix.");
         stdout.WriteLine(CliApp.Caution);
         return ExitCodes.Clean;
+    }
+
+    /// <summary>Receives the run's fixes.</summary>
+    private sealed class FixesObserver : ICheckObserver
+    {
+        public SuggestionSet Set { get; private set; } = SuggestionSet.None;
+
+        public void OnFixes(SuggestionSet fixes) => Set = fixes;
     }
 
     /// <summary>Writes a temporary file beside the target and renames it over, so that an interrupted run leaves the old or the new file.</summary>

@@ -70,7 +70,8 @@ public static class ReportCommand
     public static int Execute(ReportOptionsRecord options, TextWriter stdout, TextWriter stderr)
     {
         ArgumentNullException.ThrowIfNull(options);
-        var request = new CheckRequest(Directory.GetCurrentDirectory(), [options.Path]);
+        // With the suggested values, so that each finding and window shows what `fix` would write.
+        var request = new CheckRequest(Directory.GetCurrentDirectory(), [options.Path]) { Suggest = true };
         var data = ReportData.Collect(request);
         var configuration = data.Result.Notifications.Where(n => n.Kind == NotificationKind.Configuration).ToList();
         if (configuration.Count > 0)
@@ -135,7 +136,7 @@ public static class ReportCommand
         var then = GitRevisionSource.At(root, revision);
         var checkedPath = SourcePaths.Absolute(options.Path, request.WorkingDirectory);
         // The checked path may not exist yet at the revision: then every motor is new.
-        var oldData = then.Probe(checkedPath) is EntryKind.File or EntryKind.Folder ? ReportData.Collect(request with { Source = then }) : ReportData.Empty(root);
+        var oldData = then.Probe(checkedPath) is EntryKind.File or EntryKind.Folder ? ReportData.Collect(request with { Source = then, Suggest = false }) : ReportData.Empty(root);
         var before = ReportBuilder.Build(oldData, tool, options.NearMiss);
         return ReportChanges.Compare(before, now, oldData.Motors, nowData.Motors, revision);
     }

@@ -38,6 +38,36 @@ public sealed class FixCommandTests
         Assert.Empty(Cli.CheckJson(repo).Findings);
     }
 
+    // SL202 (common practice; the 1.5 security factor from memory): pickup <= 0.866 x fault_current_min / 1.5. With a
+    // weakest source of 3 kA that is 1732 A pri = 115.5 A sec, so 150 A sec (2250 A pri) is too high. The least change
+    // would be 115 A sec; SL201 and SL202 prefer the lowest pickup (rule.yaml's prefer), so the fix goes to the lowest
+    // value above the start: 44.52 A sec rounded up in the written form (whole A sec) is 45 A sec (675 A pri).
+    [Fact]
+    public void A_pickup_too_high_comes_down_to_the_most_sensitive_value_above_the_start()
+    {
+        var motor = Samples.MotorWith("pickup: 7.2 A sec", "pickup: 150 A sec");
+        using var repo = Repo(motor, "SL201", "SL202");
+        repo.Write("buses/bus-1.yaml", Bus + "fault_current_min: 3 kA\n");
+        Assert.Contains(Cli.CheckJson(repo).Findings, f => f.Rule == "SL202");
+        var run = Cli.Run("fix", repo.Root);
+        Assert.Contains("set protection.short_circuit.pickup 150 A sec -> 45 A sec: 2.25 kA pri (150 A sec) -> 675 A pri (45 A sec) [SL201, SL202] "
+            + "(SL201, SL202 prefer the lowest value: the most sensitive pickup that still rides through the offset start)", run.Stdout, StringComparison.Ordinal);
+        Assert.Equal(Samples.MotorWith("pickup: 7.2 A sec", "pickup: 45 A sec"), File.ReadAllText(repo.PathOf("motors/m-1.yaml")));
+        Assert.Empty(Cli.CheckJson(repo).Findings);
+    }
+
+    // The demo's B-401: a core-balance 50G at 2 A sec through a 250:5 CT is 100 A pri, above SL302's 20 % of the 400 A
+    // resistor current (80 A pri, common practice). SL302 prefers the lowest pickup, but no rule bounds a core-balance
+    // element from below (SL303's false residual is for residual connections), so the fix is the least change: the
+    // highest 0.01 xCT step (2.5 A pri) at or below 80 A, which is 80 A = 1.6 A sec; never the relay's 0.05 xCT minimum.
+    [Fact]
+    public void A_preferred_side_needs_a_rule_bound_on_that_side_not_only_the_relay_range()
+    {
+        var run = Cli.Run("check", Path.Combine(RepositoryPaths.Root(), "examples"));
+        var line = run.Stdout.Split('\n').Single(l => l.Contains("b-401.yaml:45:13: ", StringComparison.Ordinal) && l.Contains(" SL302: ", StringComparison.Ordinal));
+        Assert.EndsWith("[suggested: 1.6 A sec]", line, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Check_shows_the_suggestion_in_text_and_json_and_leaves_the_file_alone()
     {

@@ -131,6 +131,53 @@ public sealed class ReportCommandTests
         Assert.False(File.Exists(Path.Combine(repo.Root, "examples", "motors", "p-502.yaml")));
     }
 
+    // P-202's planted 46 A pri is below SL201's 1761 A (1.7 x its 1036 A start at 4370 V, common practice) and the relay's
+    // 200 A minimum (SL108); the lowest 0.01 xCT step (2 A through its 200:5 CT) above is 1762 A pri, written as primary.
+    [Fact]
+    public void The_page_shows_the_suggested_value_with_the_finding_and_beside_the_window()
+    {
+        using var repo = new TempRepo();
+        var output = Path.Combine(repo.Outer, "out");
+        Assert.Equal(ExitCodes.Clean, Cli.Run("report", Examples, "--output", output).Exit);
+        var page = File.ReadAllText(Path.Combine(output, "motors", "p-202.html"));
+        var findings = page[page.IndexOf("<h2 id=\"findings\">", StringComparison.Ordinal)..page.IndexOf("<h2 id=\"plots\">", StringComparison.Ordinal)];
+        var sl201 = findings[findings.IndexOf("<tr data-rule=\"SL201\">", StringComparison.Ordinal)..];
+        Assert.StartsWith("<tr data-rule=\"SL201\">", sl201, StringComparison.Ordinal);
+        Assert.Contains("suggested: <b>1762 A pri</b>", sl201[..sl201.IndexOf("</tr>", StringComparison.Ordinal)], StringComparison.Ordinal);
+        var windows = page[page.IndexOf("<h2 id=\"windows\">", StringComparison.Ordinal)..page.IndexOf("<h2 id=\"margins\">", StringComparison.Ordinal)];
+        var row = windows[windows.IndexOf("data-setting=\"protection.short_circuit.pickup\"", StringComparison.Ordinal)..];
+        Assert.Contains("suggested: <b>1762 A pri</b>", row[..row.IndexOf("</tr>", StringComparison.Ordinal)], StringComparison.Ordinal);
+        // A motor without findings suggests nothing.
+        Assert.DoesNotContain("suggested:", File.ReadAllText(Path.Combine(output, "motors", "p-201.html")), StringComparison.Ordinal);
+    }
+
+    // P-201's 50P lowered from 46 A sec to 30 A sec (1200 A pri) is below SL201's 1761 A; the lowest 0.01 xCT step above
+    // through its 200:5 CT is 1762 A = 44.05 A sec, written in A sec as the file writes it.
+    [Fact]
+    public void The_change_view_shows_what_fix_would_write()
+    {
+        using var repo = new TempRepo(git: false);
+        CopyExamples(repo.Root);
+        Git(repo.Root, "init", "-q");
+        Git(repo.Root, "add", "-A");
+        Git(repo.Root, "commit", "-q", "-m", "demo");
+        var p201 = Path.Combine(repo.Root, "examples", "motors", "p-201.yaml");
+        File.WriteAllText(p201, Samples.Replace(File.ReadAllText(p201), "pickup: 46 A sec ", "pickup: 30 A sec "));
+
+        var output = Path.Combine(repo.Outer, "out");
+        Assert.Equal(ExitCodes.Clean, Cli.Run("report", Path.Combine(repo.Root, "examples"), "--output", output, "--changed-since", "HEAD").Exit);
+        var page = File.ReadAllText(Path.Combine(output, "motors", "p-201.html"));
+        var changes = page[page.IndexOf("<h2 id=\"changes\">", StringComparison.Ordinal)..page.IndexOf("<h2 id=\"findings\">", StringComparison.Ordinal)];
+        Assert.Contains("What <code>settinglint fix</code> would write", changes, StringComparison.Ordinal);
+        var row = changes[changes.IndexOf("<table class=\"fix-changes\">", StringComparison.Ordinal)..];
+        row = row[row.IndexOf("<tr data-path=\"protection.short_circuit.pickup\">", StringComparison.Ordinal)..];
+        row = row[..row.IndexOf("</tr>", StringComparison.Ordinal)];
+        Assert.Contains("suggested: <b>44.05 A sec</b>", row, StringComparison.Ordinal);
+        Assert.Contains("30 A sec", row, StringComparison.Ordinal);
+        // The report writes nothing into the repository.
+        Assert.Contains("pickup: 30 A sec ", File.ReadAllText(p201), StringComparison.Ordinal);
+    }
+
     [Fact]
     public void An_output_folder_that_cannot_be_written_is_a_usage_error()
     {

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Fixes;
+using SettingLint.Core.Linting;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 using SettingLint.Tests.Support;
@@ -71,11 +72,11 @@ public sealed class ElectricalCodeTests
         using var repo = new TempRepo();
         Samples.WriteMinimal(repo, HighPickup);
         repo.Write(".settinglint.yaml", "electrical_code: IEC 60364\n");
-        var session = Session.Open([repo.Root]);
-        var result = session.Check([repo.Root], null, parallel: false);
-        Assert.Contains(result.Findings, f => f.RuleId == "SL201");
+        var fixes = new FixesKept();
+        var result = Linter.Check(new CheckRequest(repo.Root, [repo.Root]) { Parallel = false, Suggest = true, Observers = [fixes] });
+        Assert.Contains(result.Findings, f => f.RuleId == "SL201" && f.Fix is not null);
         Assert.DoesNotContain(result.Findings, f => f.RuleId == "SL801");
-        var set = FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
+        var set = fixes.Set!;
         Assert.DoesNotContain(set.Refused, r => r.Why.Contains("SL801", StringComparison.Ordinal));
         Assert.Contains(set.Applied, f => f.Setting == "protection.short_circuit.pickup");
     }
@@ -89,5 +90,12 @@ public sealed class ElectricalCodeTests
         Assert.Empty(session.Problems);
         var result = session.Check([repo.Root], null, parallel: false);
         return [.. result.Findings.Where(f => f.RuleId == "SL801")];
+    }
+
+    private sealed class FixesKept : ICheckObserver
+    {
+        public SuggestionSet? Set { get; private set; }
+
+        public void OnFixes(SuggestionSet fixes) => Set = fixes;
     }
 }

@@ -197,14 +197,20 @@ public sealed class ScopedConfigTests
     {
         using var repo = TwoSites();
         repo.Write("mill-road/.settinglint.yaml", MillConfig + "    parameters:\n      asymmetry_factor: 1.5\n");
-        var session = Session.Open([repo.Root]);
-        var result = session.Check([repo.Root], null, parallel: false);
-        var set = Fixes.FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Includes, null, result.Findings,
-            System.Collections.Immutable.ImmutableHashSet<string>.Empty, session.ElectricalCodeOf, session.Scopes);
+        var fixes = new FixesKept();
+        Linter.Check(new CheckRequest(repo.Root, [repo.Root]) { Parallel = false, Suggest = true, Observers = [fixes] });
+        var set = fixes.Set!;
         double Suggested(string file) => set.Applied.Single(f => f.MotorFile == file && f.Setting == "protection.short_circuit.pickup").NewSi;
         var (mill, root) = (Suggested("mill-road/motors/m-1.yaml"), Suggested("motors/m-1.yaml"));
         Assert.True(mill < root, $"{mill} < {root}");
         // 1.5 / 1.7 = 0.882, within the rounding of each suggestion to a written step.
         Assert.InRange(mill / root, 0.86, 0.90);
+    }
+
+    private sealed class FixesKept : ICheckObserver
+    {
+        public Fixes.SuggestionSet? Set { get; private set; }
+
+        public void OnFixes(Fixes.SuggestionSet fixes) => Set = fixes;
     }
 }

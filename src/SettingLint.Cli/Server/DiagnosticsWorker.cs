@@ -35,6 +35,10 @@ internal sealed class DiagnosticsWorker
     /// <summary>The last check's facts of each open motor, by URI, for hover.</summary>
     public ImmutableDictionary<string, MotorFacts> Facts { get; private set; } = ImmutableDictionary.Create<string, MotorFacts>(StringComparer.Ordinal);
 
+    /// <summary>The last check's findings with a fix of each open file, by URI, with the version of the text they are of.</summary>
+    public ImmutableDictionary<string, (int Version, ImmutableArray<SettingLint.Core.Findings.Finding> Findings)> Fixes { get; private set; } =
+        ImmutableDictionary.Create<string, (int, ImmutableArray<SettingLint.Core.Findings.Finding>)>(StringComparer.Ordinal);
+
     /// <summary>Asks for a check of every open file.</summary>
     public void Request() => _requests.Writer.TryWrite(true);
 
@@ -48,6 +52,7 @@ internal sealed class DiagnosticsWorker
         {
             _published = _published.Remove(uri);
             Facts = Facts.Remove(uri);
+            Fixes = Fixes.Remove(uri);
         }
         _ = Send(new PublishDiagnosticsParams(uri, null, []));
     }
@@ -76,6 +81,7 @@ internal sealed class DiagnosticsWorker
         var folders = _state.WorkspaceFolders;
         var files = docs.Values.Where(d => d.Path is not null).ToList();
         var facts = ImmutableDictionary.CreateBuilder<string, MotorFacts>(StringComparer.Ordinal);
+        var fixes = ImmutableDictionary.CreateBuilder<string, (int, ImmutableArray<SettingLint.Core.Findings.Finding>)>(StringComparer.Ordinal);
         var publish = new List<(OpenDocument Doc, IReadOnlyList<Diagnostic> Diagnostics)>();
         foreach (var group in files.GroupBy(d => WorkspaceLayout.ScopeOf(d.Path!, folders)))
         {
@@ -93,6 +99,7 @@ internal sealed class DiagnosticsWorker
                 {
                     var rel = rels[doc.Uri];
                     publish.Add((doc, DiagnosticMapper.Of(run.Result, rel, _tool)));
+                    fixes[doc.Uri] = (doc.Version, [.. run.Result.Findings.Where(f => f.File == rel && f.Fix is not null && f.Suppression is null)]);
                     if (run.Motors.TryGetValue(rel, out var motor))
                     {
                         facts[doc.Uri] = new MotorFacts(motor, [.. run.Outcomes.Where(o => o.MotorFile == rel)],
@@ -111,6 +118,7 @@ internal sealed class DiagnosticsWorker
             // Facts of files closed meanwhile are not kept.
             var open = _state.Documents.Snapshot();
             Facts = facts.Where(kv => open.ContainsKey(kv.Key)).ToImmutableDictionary(StringComparer.Ordinal);
+            Fixes = fixes.Where(kv => open.ContainsKey(kv.Key)).ToImmutableDictionary(StringComparer.Ordinal);
         }
         // Hover facts first, then diagnostics: a client that hovers once the diagnostics came sees the same check.
         foreach (var (doc, diagnostics) in publish) await PublishIfChanged(doc, diagnostics).ConfigureAwait(false);

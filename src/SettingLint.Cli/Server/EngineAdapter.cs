@@ -40,6 +40,8 @@ public sealed class EngineAdapter
             Root = root,
             Source = new OverlaySource(new DiskSource(root), overlays),
             Observers = [observer],
+            // The fixes that code actions offer, confirmed through the same buffers.
+            Suggest = true,
         });
         var (motors, outcomes) = (observer.Motors, observer.Outcomes);
         return new EngineRun(result, motors.ToImmutableDictionary(StringComparer.Ordinal),

@@ -38,7 +38,7 @@ public sealed record TextDocumentSyncOptions(bool OpenClose, int Change, SaveOpt
 public sealed record SaveOptions(bool IncludeText);
 
 /// <summary>What the server offers.</summary>
-public sealed record ServerCapabilities(TextDocumentSyncOptions TextDocumentSync, bool HoverProvider);
+public sealed record ServerCapabilities(TextDocumentSyncOptions TextDocumentSync, bool HoverProvider, bool CodeActionProvider = false);
 
 /// <summary>The answer to initialize.</summary>
 public sealed record InitializeResult(ServerCapabilities Capabilities, ServerInfo ServerInfo);
@@ -82,11 +82,18 @@ public sealed record MarkupContent(string Kind, string Value);
 /// <summary>The answer to hover.</summary>
 public sealed record Hover(MarkupContent Contents, LspRange? Range = null);
 
-/// <summary>textDocument/codeAction (read for the seam only; see <see cref="SettingLanguageServer.CodeAction"/>).</summary>
+/// <summary>textDocument/codeAction: the document and the range the client asks about (its diagnostics are not needed).</summary>
 public sealed record CodeActionParams(TextDocumentIdentifier TextDocument, LspRange Range);
 
-/// <summary>A code action (title and kind only, until fixes exist).</summary>
-public sealed record CodeAction(string Title, string Kind);
+/// <summary>Replaces the text of a range (LSP TextEdit).</summary>
+public sealed record TextEdit(LspRange Range, string NewText);
+
+/// <summary>Edits by document URI (LSP WorkspaceEdit with <c>changes</c>).</summary>
+public sealed record WorkspaceEdit(IReadOnlyDictionary<string, IReadOnlyList<TextEdit>> Changes);
+
+/// <summary>A code action: a fix as a quick fix with its edit, and the diagnostics it resolves.</summary>
+/// <param name="Kind">quickfix.</param>
+public sealed record CodeAction(string Title, string Kind, IReadOnlyList<Diagnostic>? Diagnostics = null, bool? IsPreferred = null, WorkspaceEdit? Edit = null);
 
 /// <summary>window/logMessage and window/showMessage (type 1 error, 2 warning, 3 info, 4 log).</summary>
 public sealed record LogMessageParams(int Type, string Message);

@@ -1,4 +1,3 @@
-using System.Collections.Immutable;
 using System.Text.Json;
 using System.Text.Json.Serialization.Metadata;
 using StreamJsonRpc;
@@ -30,8 +29,8 @@ public sealed class SettingLanguageServer
         if (folders.Count == 0 && p.RootPath is { Length: > 0 } rootPath) folders.Add(Path.GetFullPath(rootPath));
         _state.WorkspaceFolders = [.. folders.Distinct(StringComparer.Ordinal)];
         // Full text on every change: setting files are small, and a whole-file overlay is what the engine reads.
-        // No code actions yet: fixes are another issue (see CodeAction below).
-        return new InitializeResult(new ServerCapabilities(new TextDocumentSyncOptions(true, 1, new SaveOptions(false)), HoverProvider: true),
+        // Code actions: the checked value of each finding on a setting, as a quick fix.
+        return new InitializeResult(new ServerCapabilities(new TextDocumentSyncOptions(true, 1, new SaveOptions(false)), HoverProvider: true, CodeActionProvider: true),
             new ServerInfo("settinglint", CheckCommand.Version));
     }
 
@@ -108,14 +107,20 @@ public sealed class SettingLanguageServer
     }
 
     /// <summary>
-    /// textDocument/codeAction: the seam for fixes. No fix exists yet (another issue), so nothing is offered and the
-    /// capability is not announced; when fixes exist, they are turned into actions here.
+    /// textDocument/codeAction: the fixes of the last check of the document (the value every rule on a setting accepts,
+    /// confirmed by a second check), each a quick fix that replaces exactly the value's characters. Only while the buffer
+    /// is still the one checked: after an edit, the next check brings new fixes.
     /// </summary>
     [JsonRpcMethod("textDocument/codeAction", UseSingleObjectParameterDeserialization = true)]
     public IReadOnlyList<CodeAction> CodeAction(JsonElement parameters)
     {
-        _ = Read(parameters, LspJson.Default.CodeActionParams);
-        return ImmutableArray<CodeAction>.Empty;
+        var p = Read(parameters, LspJson.Default.CodeActionParams);
+        return _state.Guard("codeAction", () =>
+        {
+            if (!_state.Worker.Fixes.TryGetValue(p.TextDocument.Uri, out var checkedFixes)) return [];
+            if (!_state.Documents.Snapshot().TryGetValue(p.TextDocument.Uri, out var doc) || doc.Version != checkedFixes.Version) return [];
+            return FixActions.Of(p.TextDocument.Uri, checkedFixes.Findings, p.Range);
+        }) ?? [];
     }
 
     /// <summary>

@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.Collections.Immutable;
 using System.Text;
 using SettingLint.Core.Engine;
@@ -57,6 +56,22 @@ public sealed record SuggestionSet(ImmutableArray<SettingFix> Applied, Immutable
         return found.ToImmutable();
     }
 
+    /// <summary>
+    /// A check's result with the fixes attached to their findings and the conflicts added. A conflict stands with the
+    /// findings on its setting: unchanged from the baseline when they all are.
+    /// </summary>
+    public CheckResult ApplyTo(CheckResult result)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        if (Applied.IsEmpty && Refused.IsEmpty) return result;
+        var conflicts = Conflicts().Select(c =>
+        {
+            var states = result.Findings.Where(f => f.File == c.File && f.KeyPath == c.KeyPath && f.Suppression is null).Select(f => f.BaselineState).ToList();
+            return states.Any(s => s is not null) ? c with { BaselineState = states.Any(s => s is not BaselineState.Unchanged) ? BaselineState.New : BaselineState.Unchanged } : c;
+        });
+        return result with { Findings = [.. Attach(result.Findings).AddRange(conflicts).Order(Finding.Order)] };
+    }
+
     /// <summary>Each fixed file's new text.</summary>
     public IEnumerable<(string File, SourceText Old, string New)> NewTexts() =>
         Applied.GroupBy(f => f.MotorFile, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal)
@@ -92,26 +107,32 @@ public sealed record SourceText(string Text, bool Bom)
 }
 
 /// <summary>
-/// Works out the fixes of a check's findings: derives the setting windows of the motors with a finding on a setting,
-/// makes a value for each, and keeps only the values that a second check of the changed files confirms (no finding
-/// left on the setting, none gained in the file). Both runs reach the other motors of the bus, as the first did.
+/// Works out the fixes of a check's findings from the same check's rule outcomes and motors: derives the setting windows
+/// of the motors with a finding on a setting, makes a value for each, and keeps only the values that a second check of
+/// the changed files confirms (no finding left on the setting, none gained in the file). The second check reads through
+/// the first's file source (the staged contents, an editor's buffers) and reaches the other motors of the bus, as the first did.
 /// </summary>
-public static class FixFinder
+internal static class FixFinder
 {
-    /// <summary>Computes the fixes of the unsuppressed findings of a result (of some rules only, when given).</summary>
-    /// <param name="rules">The run's rules.</param>
-    /// <param name="root">The repository root.</param>
+    /// <summary>Computes the fixes of the unsuppressed findings of a check (of some rules only, when given).</summary>
+    /// <param name="rules">The run's rules (without listeners).</param>
+    /// <param name="source">The files as the check read them.</param>
     /// <param name="include">The configuration's include and exclude.</param>
-    /// <param name="overlay">Contents read instead of the disk (staged files, editor buffers), when the check had them.</param>
     /// <param name="findings">The check's findings.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
     /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
-    /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is found and confirmed under its folder's rules.</param>
-    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null, Configuration.ConfigScopes? scopes = null)
+    /// <param name="outcomes">Every rule outcome of the check.</param>
+    /// <param name="motors">The motors the check bound, by root-relative file.</param>
+    /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is confirmed under its folder's rules.</param>
+    public static SuggestionSet Compute(RuleSet rules, IFileSource source, Func<string, bool>? include, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules,
+        Func<string, string?>? electricalCode, IEnumerable<RuleOutcome> outcomes, IReadOnlyDictionary<string, MotorProtection> motors, Configuration.ConfigScopes? scopes = null)
     {
         IRuleSet Scoped(RuleSet r) => scopes is null ? r : new Engine.ScopedRuleSet(r, scopes);
         ArgumentNullException.ThrowIfNull(rules);
+        ArgumentNullException.ThrowIfNull(source);
         ArgumentNullException.ThrowIfNull(onlyRules);
+        ArgumentNullException.ThrowIfNull(outcomes);
+        ArgumentNullException.ThrowIfNull(motors);
         var unreadable = findings.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)).Select(f => f.File).ToHashSet(StringComparer.Ordinal);
         var files = findings
             .Where(f => f.Suppression is null && f.KeyPath.StartsWith(FixPlanner.SettingPrefix, StringComparison.Ordinal) && !unreadable.Contains(f.File)
@@ -119,23 +140,18 @@ public static class FixFinder
             .Select(f => f.File).ToImmutableSortedSet(StringComparer.Ordinal);
         if (files.IsEmpty) return SuggestionSet.None;
 
-        var outcomes = new ConcurrentQueue<RuleOutcome>();
-        var motors = new ConcurrentDictionary<string, MotorProtection>(StringComparer.Ordinal);
-        var listening = new RuleSet(rules.Rules) { Outcomes = outcomes.Enqueue, Motors = m => motors.TryAdd(m.Document.RelativePath, m) };
-        Run(Scoped(listening), root, include, overlay, files, electricalCode);
-
+        var root = source.Root;
         var texts = new Dictionary<string, SourceText>(StringComparer.Ordinal);
         string? Read(string rel)
         {
             if (texts.TryGetValue(rel, out var known)) return known.Text;
-            var full = Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar));
-            var bytes = overlay is not null ? overlay.Read(rel) : File.Exists(full) ? File.ReadAllBytes(full) : null;
-            if (SourceText.Decode(bytes) is not { } text) return null;
+            if (SourceText.Decode(source.Read(rel)) is not { } text) return null;
             texts[rel] = text;
             return text.Text;
         }
         var windows = SettingWindows.Derive(outcomes.Where(o => files.Contains(o.MotorFile)));
-        var plan = FixPlanner.Plan(findings, windows, motors, Read, onlyRules);
+        var preferences = rules.Rules.Where(r => r.Prefer is not null).ToDictionary(r => r.Id, r => r.Prefer!, StringComparer.Ordinal);
+        var plan = FixPlanner.Plan(findings, windows, motors, Read, onlyRules, preferences);
         var refused = plan.Where(f => !f.HasValue).Select(f => (f, f.Reason!)).ToList();
         var fixes = plan.Where(f => f.HasValue).ToList();
         var known = findings.Select(f => (f.File, f.RuleId, f.KeyPath)).ToHashSet();
@@ -143,7 +159,7 @@ public static class FixFinder
         {
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
-            var merged = new OverlaySource(overlay ?? new DiskSource(root), contents);
+            var merged = new OverlaySource(source, contents);
             var after = Run(Scoped(rules), root, include, merged, [.. contents.Keys], electricalCode).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
@@ -162,9 +178,9 @@ public static class FixFinder
     }
 
     // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
-    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
+    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
     {
         var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
-        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Source: overlay, Changes: changes, ElectricalCode: electricalCode));
+        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Source: source, Changes: changes, ElectricalCode: electricalCode));
     }
 }

@@ -20,7 +20,8 @@ internal static class FixMaker
     /// <param name="window">The setting's window, derived from the rule outcomes of the same check.</param>
     /// <param name="motor">The bound motor the window is of.</param>
     /// <param name="fileText">The motor file's text, to find the number as written.</param>
-    public static SettingFix? For(SettingWindow window, MotorProtection motor, string fileText)
+    /// <param name="prefer">The side the rules on the setting prefer and why; null for the least change from the present value.</param>
+    public static SettingFix? For(SettingWindow window, MotorProtection motor, string fileText, (PreferredSide Side, string Why)? prefer = null)
     {
         ArgumentNullException.ThrowIfNull(window);
         ArgumentNullException.ThrowIfNull(motor);
@@ -52,16 +53,23 @@ internal static class FixMaker
             (lower is null || (lower.IsStrict ? si > lower.Limit : si >= lower.Limit * (1 - 1e-12)))
             && (upper is null || (upper.IsStrict ? si < upper.Limit : si <= upper.Limit * (1 + 1e-12)))
             && (range is null || (si >= range.Value.Min * (1 - 1e-12) && si <= range.Value.Max * (1 + 1e-12)));
-        // Move the least distance: up to the lower side when below it, down to the upper side when above it.
-        var up = value.Value <= lo;
+        // A preferred side is taken wherever the value is, when a rule bounds the window on that side (the most sensitive
+        // pickup that still rides through the start is "lowest" above the start's bound, never the relay's bare minimum);
+        // a value that only sits off the relay's step keeps to the nearest step.
+        var side = window.Holds || prefer is null ? 0
+            : prefer.Value.Side == PreferredSide.Lowest && lower is not null ? -1
+            : prefer.Value.Side == PreferredSide.Highest && upper is not null ? 1
+            : 0;
+        // Otherwise move the least distance: up to the lower side when below it, down to the upper side when above it.
+        var up = side != 0 ? side < 0 : value.Value <= lo;
         string? text = null;
         var si = double.NaN;
         if (range is { Step: > 0 } r)
         {
             var at0 = (value.Value - r.Min) / r.Step;
             // Below the window: the lowest steps above it; above: the highest below it; inside but off a step: the nearest.
-            double[] ks = value.Value < lo ? [Math.Ceiling(((lo - r.Min) / r.Step) - 1e-9), Math.Ceiling(((lo - r.Min) / r.Step) - 1e-9) + 1]
-                : value.Value > hi ? [Math.Floor(((hi - r.Min) / r.Step) + 1e-9), Math.Floor(((hi - r.Min) / r.Step) + 1e-9) - 1]
+            double[] ks = side < 0 || (side == 0 && value.Value < lo) ? [Math.Ceiling(((lo - r.Min) / r.Step) - 1e-9), Math.Ceiling(((lo - r.Min) / r.Step) - 1e-9) + 1]
+                : side > 0 || value.Value > hi ? [Math.Floor(((hi - r.Min) / r.Step) + 1e-9), Math.Floor(((hi - r.Min) / r.Step) + 1e-9) - 1]
                 : [Math.Round(at0), at0 - Math.Floor(at0) < 0.5 ? Math.Ceiling(at0) : Math.Floor(at0)];
             foreach (var k in ks)
             {
@@ -92,12 +100,15 @@ internal static class FixMaker
             if (text is null) return None(window, motor, value, oldText, at.Unit, "the window " + Describe(window) + " is narrower than the value's last digit");
         }
         return new SettingFix(motor.Document.RelativePath, motor.Tag, window.Setting, value.Span, oldText, text, at.Unit, value.Value, si,
-            value.SideRatio, value.Dimension, window, null);
+            SettingTerms.For(motor, window.Setting, value), window, null)
+        {
+            Preference = side == 0 ? null : prefer!.Value.Why,
+        };
     }
 
     private static SettingFix None(SettingWindow window, MotorProtection motor, MeasureValue? value, string oldText, string unit, string reason) =>
         new(motor.Document.RelativePath, motor.Tag, window.Setting, value?.Span ?? motor.Document.SpanOf(window.Setting), oldText, null, unit,
-            value?.Value ?? window.Actual, double.NaN, value?.SideRatio, value?.Dimension ?? Dimension.None, window, reason);
+            value?.Value ?? window.Actual, double.NaN, SettingTerms.For(motor, window.Setting, value), window, reason);
 
     /// <summary>Which rules leave no value between them, and their bounds.</summary>
     public static string Conflict(SettingWindow window)

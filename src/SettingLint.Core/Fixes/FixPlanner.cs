@@ -20,12 +20,14 @@ internal static class FixPlanner
     /// <param name="motors">The bound motors of that check, by root-relative file.</param>
     /// <param name="readText">Reads a root-relative file's text as the check saw it.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
+    /// <param name="preferences">The preferred side of the rules that state one (rule.yaml's `prefer`), by rule id; null for none.</param>
     public static ImmutableArray<SettingFix> Plan(
         IEnumerable<Finding> findings,
         IEnumerable<SettingWindow> windows,
         IReadOnlyDictionary<string, MotorProtection> motors,
         Func<string, string?> readText,
-        IReadOnlySet<string> onlyRules)
+        IReadOnlySet<string> onlyRules,
+        IReadOnlyDictionary<string, FixPreference>? preferences = null)
     {
         ArgumentNullException.ThrowIfNull(findings);
         ArgumentNullException.ThrowIfNull(windows);
@@ -46,9 +48,29 @@ internal static class FixPlanner
             if (!motors.TryGetValue(window.MotorFile, out var motor)) continue;
             if (!texts.TryGetValue(window.MotorFile, out var text)) texts[window.MotorFile] = text = readText(window.MotorFile);
             if (text is null) continue;
-            if (FixMaker.For(window, motor, text) is { } fix) fixes.Add(fix);
+            if (FixMaker.For(window, motor, text, Preferred(window, preferences)) is { } fix) fixes.Add(fix);
         }
         return [.. fixes.OrderBy(f => f.MotorFile, StringComparer.Ordinal).ThenBy(f => f.Span.StartLine).ThenBy(f => f.Span.StartColumn)];
+    }
+
+    /// <summary>
+    /// The side the rules bounding a window prefer, when every one of them that states a side states the same one and one
+    /// of them bounds the window on that side; none otherwise (then neither is favoured, and the fix makes the least change).
+    /// </summary>
+    public static (PreferredSide Side, string Why)? Preferred(SettingWindow window, IReadOnlyDictionary<string, FixPreference>? preferences)
+    {
+        ArgumentNullException.ThrowIfNull(window);
+        if (preferences is null || preferences.Count == 0) return null;
+        var stated = window.Lower.Concat(window.Upper).Select(b => b.RuleId).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal)
+            .Where(preferences.ContainsKey).Select(id => (Id: id, Prefer: preferences[id])).ToList();
+        if (stated.Count == 0 || stated.Any(s => s.Prefer.Side != stated[0].Prefer.Side)) return null;
+        // The end of the window is taken only where a rule that prefers it bounds it: the lowest pickup above the start's
+        // bound, never a bound of the relay's range alone (a core-balance 50G with no lower rule keeps the least change).
+        var ids = stated.Select(s => s.Id).ToHashSet(StringComparer.Ordinal);
+        var bounds = stated[0].Prefer.Side == PreferredSide.Lowest ? window.Lower : window.Upper;
+        if (!bounds.Any(b => ids.Contains(b.RuleId))) return null;
+        var side = stated[0].Prefer.Side == PreferredSide.Lowest ? "lowest" : "highest";
+        return (stated[0].Prefer.Side, string.Join(", ", stated.Select(s => s.Id)) + " prefer" + (stated.Count == 1 ? "s" : "") + " the " + side + " value: " + stated[0].Prefer.Reason);
     }
 
     /// <summary>A file's text with the fixes' numbers replaced, each exactly over the characters of the old number.</summary>

@@ -1,6 +1,5 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Documents;
-using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
 
 namespace SettingLint.Core.Fixes;
@@ -18,8 +17,7 @@ namespace SettingLint.Core.Fixes;
 /// <param name="Unit">The unit as written (A sec, xCT, %, s), empty for a plain number.</param>
 /// <param name="OldSi">The present value in SI units.</param>
 /// <param name="NewSi">The suggested value in SI units (NaN when there is none).</param>
-/// <param name="SideRatio">Primary per secondary of the setting's transformer, to show both sides.</param>
-/// <param name="Dimension">The setting's dimension.</param>
+/// <param name="Terms">How the setting's other side is shown (A sec through the CT, V sec, % or xVT), as findings show it.</param>
 /// <param name="Window">The window the rules leave, which the suggestion lies in.</param>
 /// <param name="Reason">Why there is no suggestion; null when there is one.</param>
 public sealed record SettingFix(
@@ -32,8 +30,7 @@ public sealed record SettingFix(
     string Unit,
     double OldSi,
     double NewSi,
-    double? SideRatio,
-    Dimension Dimension,
+    SettingTerms? Terms,
     SettingWindow Window,
     string? Reason)
 {
@@ -60,12 +57,9 @@ public sealed record SettingFix(
         return new SourceSpan(Span.StartLine, column, Span.StartLine, column + length);
     }
 
-    /// <summary>A value in SI shown in the engine's usual unit, with its secondary when it has a transformer ("1.84 kA pri (46 A sec)").</summary>
-    public string Shown(double si)
-    {
-        if (SideRatio is not { } r || r <= 0 || Dimension is not (Dimension.Current or Dimension.Voltage)) return Formats.Si(si, Dimension);
-        var (big, small, sec) = Dimension == Dimension.Current ? ("kA", "A", "A sec") : ("kV", "V", "V sec");
-        var primary = Math.Abs(si) >= 1000 ? Formats.Number(si / 1000) + " " + big + " pri" : Formats.Number(si) + " " + small + " pri";
-        return primary + " (" + Formats.Secondary(si, r, sec) + ")";
-    }
+    /// <summary>Why the value sits where it does in the window, when a rule prefers a side ("SL201 prefers the lowest: ..."); null for the least change.</summary>
+    public string? Preference { get; init; }
+
+    /// <summary>A value in SI shown as findings show the setting, with its other side ("1.84 kA pri (46 A sec)").</summary>
+    public string Shown(double si) => SettingTerms.Show(si, Window.Dim, Window.Percent, Terms);
 }

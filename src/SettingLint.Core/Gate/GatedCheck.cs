@@ -33,7 +33,9 @@ internal static class GatedCheck
     /// <param name="threshold">The gate's threshold.</param>
     /// <param name="parallel">Load and evaluate files in parallel.</param>
     /// <param name="gate">The gate's options.</param>
-    public static CheckResult Run(Session session, IFileSource source, string workingDirectory, IReadOnlyList<string> paths, Level threshold, bool parallel, GateOptions gate)
+    /// <param name="viewed">Given the source the files were read through (the staged contents over the source with --staged), for what runs after the gate.</param>
+    public static CheckResult Run(Session session, IFileSource source, string workingDirectory, IReadOnlyList<string> paths, Level threshold, bool parallel, GateOptions gate,
+        Action<IFileSource>? viewed = null)
     {
         ArgumentNullException.ThrowIfNull(session);
         ArgumentNullException.ThrowIfNull(source);
@@ -84,6 +86,7 @@ internal static class GatedCheck
             baseline = parsed;
         }
 
+        viewed?.Invoke(view);
         var options = session.Options(paths, threshold, parallel) with
         {
             Accept = gate.Accept,

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Fixes;
 using SettingLint.Core.Gate;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Sources;
@@ -37,4 +38,15 @@ public sealed record CheckRequest(string WorkingDirectory, IReadOnlyList<string>
 
     /// <summary>Rules to apply instead of those the configuration names (the rule fixtures test a pack of their own); null reads the configuration.</summary>
     public RuleSet? Rules { get; init; }
+
+    /// <summary>
+    /// Work out, from this run's own rule outcomes and motors, a checked value for each unsuppressed finding on a setting:
+    /// the findings carry it (<see cref="Finding.Fix"/>), an empty window is an SL020 finding, and every observer is given
+    /// the whole <see cref="SuggestionSet"/> (<see cref="ICheckObserver.OnFixes"/>). The values are confirmed by a second
+    /// check of the changed files in memory, through the same file source (the staged contents with --staged).
+    /// </summary>
+    public bool Suggest { get; init; }
+
+    /// <summary>With <see cref="Suggest"/>: suggest values only for the findings of these rules; empty for all.</summary>
+    public IReadOnlySet<string> SuggestRules { get; init; } = ImmutableHashSet<string>.Empty;
 }

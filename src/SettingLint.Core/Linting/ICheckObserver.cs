@@ -1,3 +1,4 @@
+using SettingLint.Core.Fixes;
 using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
 
@@ -17,6 +18,11 @@ public interface ICheckObserver
 
     /// <summary>One rule's outcome on one motor and subject.</summary>
     void OnOutcome(RuleOutcome outcome)
+    {
+    }
+
+    /// <summary>The fixes the run worked out, once, after the gate (only when the request asked for suggestions).</summary>
+    void OnFixes(SuggestionSet fixes)
     {
     }
 }

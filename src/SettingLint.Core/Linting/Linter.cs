@@ -1,7 +1,10 @@
+using System.Collections.Concurrent;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Fixes;
 using SettingLint.Core.Gate;
+using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
@@ -31,20 +34,46 @@ public static class Linter
             : Session.Open(source, first, SchemaSet.Shared);
         var threshold = request.FailOn ?? session.Config.FailOn ?? Level.Error;
         if (!session.Problems.IsEmpty) return session.Stopped(threshold, session.Problems);
-        if (!request.Observers.IsEmpty)
+        var observers = request.Observers;
+        // Suggestions come from this run's own outcomes and motors: a collector listens beside the caller's observers.
+        var collector = request.Suggest ? new FixCollector() : null;
+        if (collector is not null) observers = observers.Add(collector);
+        var ruleSet = session.Rules;
+        if (!observers.IsEmpty)
         {
             // The same compiled rules, with the observers listening: the one run gives findings and what reports draw.
-            var observers = request.Observers;
             session = session with
             {
-                Rules = new RuleSet(session.Rules.Rules)
+                Rules = new RuleSet(ruleSet.Rules)
                 {
                     Outcomes = o => { foreach (var x in observers) x.OnOutcome(o); },
                     Motors = m => { foreach (var x in observers) x.OnMotor(m); },
                 },
             };
         }
-        return GatedCheck.Run(session, source, request.WorkingDirectory, paths, threshold, request.Parallel, request.Options);
+        IFileSource view = source;
+        var result = GatedCheck.Run(session, source, request.WorkingDirectory, paths, threshold, request.Parallel, request.Options, v => view = v);
+        if (collector is null || !result.Notifications.IsEmpty) return result;
+        // Confirmed by a check of the changed files in memory, over the files as this run read them (the index with --staged).
+        var set = FixFinder.Compute(ruleSet, view, session.Includes, result.Findings, request.SuggestRules, session.ElectricalCodeOf,
+            collector.Outcomes, collector.Motors, session.Scopes);
+        foreach (var o in request.Observers) o.OnFixes(set);
+        return set.ApplyTo(result);
+    }
+
+    /// <summary>Keeps a run's motors and outcomes for its suggestions (calls come from several threads).</summary>
+    private sealed class FixCollector : ICheckObserver
+    {
+        private readonly ConcurrentQueue<RuleOutcome> _outcomes = new();
+        private readonly ConcurrentDictionary<string, MotorProtection> _motors = new(StringComparer.Ordinal);
+
+        public IEnumerable<RuleOutcome> Outcomes => _outcomes;
+
+        public IReadOnlyDictionary<string, MotorProtection> Motors => _motors;
+
+        public void OnMotor(MotorProtection motor) => _motors.TryAdd(motor.Document.RelativePath, motor);
+
+        public void OnOutcome(RuleOutcome outcome) => _outcomes.Enqueue(outcome);
     }
 
     /// <summary>The repository root for a path (absolute, or relative to the working folder): the nearest folder upward with .git, else the path's own folder.</summary>

@@ -69,4 +69,22 @@ public sealed record CompiledRule(
     ImmutableArray<string> Basis)
 {
     public string Id => Descriptor.Id;
+
+    /// <summary>The side of its subject's window a fix should take (rule.yaml's `prefer`); null: the least change from the present value.</summary>
+    public FixPreference? Prefer { get; init; }
 }
+
+/// <summary>Which end of a setting's window a rule wants a suggested value at.</summary>
+public enum PreferredSide
+{
+    /// <summary>The lowest value the window allows (the most sensitive pickup).</summary>
+    Lowest,
+
+    /// <summary>The highest value the window allows.</summary>
+    Highest,
+}
+
+/// <summary>A rule's preferred side for the fixes of its subject, and why a protection engineer would choose it.</summary>
+/// <param name="Side">Lowest or highest.</param>
+/// <param name="Reason">One line, shown with the fix.</param>
+public sealed record FixPreference(PreferredSide Side, string Reason);

@@ -221,7 +221,14 @@ public sealed class RuleLoader(SchemaSet schemas)
                 Help(Text("title"), Text("rationale"), basis, parameters, values), severity, tags);
             var level = severity;
             var subject = Text("subject");
-            return new CompiledRule(descriptor, source.DisplayPath, level, parameters.ToImmutable(), values, lets.ToImmutable(), when, check, subject, message, forEach, r.Find("id")!.Value.Span, [.. basis]);
+            // The schema has checked the shape: side is lowest or highest, reason a line of text.
+            var prefer = r["prefer"] is YMapping pr
+                ? new FixPreference((pr["side"] as YScalar)?.Value == "highest" ? PreferredSide.Highest : PreferredSide.Lowest, (pr["reason"] as YScalar)?.Value ?? "")
+                : null;
+            return new CompiledRule(descriptor, source.DisplayPath, level, parameters.ToImmutable(), values, lets.ToImmutable(), when, check, subject, message, forEach, r.Find("id")!.Value.Span, [.. basis])
+            {
+                Prefer = prefer,
+            };
         }
         catch (RuleLoadException ex)
         {

@@ -256,7 +256,7 @@ public sealed class RuleSet : IStagedRuleSet
         var subject = SubjectOf(rule, range);
         var values = ImmutableSortedDictionary.CreateBuilder<string, FindingValue>(StringComparer.Ordinal);
         var subjectValue = ctx.Motor.Document.Measure(subject);
-        var sideRatio = SecondaryTerms(ctx.Motor, subject, subjectValue);
+        var sideRatio = SettingTerms.For(ctx.Motor, subject, subjectValue);
         // A relay range's values have the dimension of the setting they bound, known only per range.
         Dim Shown(Dim d) => d == Dim.ItemValue ? Dim.Of(subjectValue?.Dimension ?? Dimension.None) : d;
         if (numbers.Present)
@@ -294,35 +294,8 @@ public sealed class RuleSet : IStagedRuleSet
     private static string SubjectOf(CompiledRule rule, RangeInfo? range) =>
         range is null ? rule.Subject : rule.Subject.Replace("{item.setting}", range.Setting, StringComparison.Ordinal);
 
-    /// <summary>How a current or voltage setting is also shown beside its primary value: one of its value's units per what.</summary>
-    private readonly record struct Terms(double Per, string Symbol, Dim Dim);
-
-    /// <summary>
-    /// A current setting is also shown in A sec through its CT; a voltage setting in the terms its relay model sets it in
-    /// (V sec, % of rated voltage or xVT), else in those it is written in, else in V sec.
-    /// </summary>
-    private static Terms? SecondaryTerms(MotorProtection motor, string subject, MeasureValue? value)
-    {
-        if (value is not { Dimension: Dimension.Current or Dimension.Voltage }) return null;
-        if (value.Dimension == Dimension.Current) return value.SideRatio is { } r ? new Terms(r, "A sec", Dim.Current) : null;
-        var setting = subject.StartsWith("protection.", StringComparison.Ordinal) ? subject["protection.".Length..] : subject;
-        var basis = motor.RelayModel?.RangeOf(setting)?.Min.Quantity.Unit.Basis ?? value.Written?.Unit.Basis;
-        var rated = motor.Document.Measure("motor.rated_voltage")?.Value;
-        var vtPrimary = motor.Document.Measure("transformers.vt.primary")?.Value;
-        return basis switch
-        {
-            UnitBasis.RatedVoltage when rated is > 0 => new Terms(rated.Value / 100, "%", Dim.Voltage),
-            UnitBasis.VtRating when vtPrimary is > 0 => new Terms(vtPrimary.Value, "xVT", Dim.Voltage),
-            _ => value.SideRatio is { } r ? new Terms(r, "V sec", Dim.Voltage) : null,
-        };
-    }
-
-    private static FindingValue Value(double v, Dim dim, bool percent, Terms? terms)
-    {
-        var text = CheckNode.Format(v, dim, percent);
-        if (terms is { } t && dim == t.Dim && double.IsFinite(v)) text = text + " pri (" + Formats.Number(v / t.Per) + " " + t.Symbol + ")";
-        return new FindingValue(text, double.IsFinite(v) ? v : null, dim.Plain is { } p ? (percent ? "" : p.SiSymbol()) : null);
-    }
+    private static FindingValue Value(double v, Dim dim, bool percent, SettingTerms? terms) =>
+        new(SettingTerms.Show(v, dim, percent, terms), double.IsFinite(v) ? v : null, dim.Plain is { } p ? (percent ? "" : p.SiSymbol()) : null);
 
     /// <summary>Evaluates a check; the comparison that decided it gives the numbers.</summary>
     private static Val Check(CheckNode node, EvalContext ctx, out Numbers numbers)

@@ -49,6 +49,7 @@ internal static class HtmlPage
         .b-notrun { background: #fff; color: #6a4a00; border: 1px dashed #6a4a00; }
         td.notrun { color: #6a4a00; font-weight: 600; }
         .was { color: var(--muted); font-size: 12px; display: block; }
+        .suggested { display: block; font-size: 12px; }
         .path { white-space: nowrap; }
         figure { margin: 12px 0 20px; background: var(--panel); border: 1px solid var(--line); padding: 8px; overflow-x: auto; }
         figure svg { display: block; max-width: 100%; height: auto; }

@@ -152,7 +152,7 @@ public static class HtmlReport
         if (!m.NotRun.IsEmpty) sb.Append("<a href=\"#not-run\">Not run</a>");
         sb.Append("<a href=\"#findings\">Findings</a><a href=\"#plots\">Plots</a><a href=\"#windows\">Setting windows</a><a href=\"#margins\">Margins</a></nav>\n");
 
-        if (m.Change is { } change) Changes(sb, model, change);
+        if (m.Change is { } change) Changes(sb, model, m, change);
 
         NotRunSection(sb, model, m);
 
@@ -182,17 +182,22 @@ public static class HtmlReport
         else
         {
             sb.Append("<p class=\"meta\">What the rules leave each setting that several of them bound, derived from their comparisons: the highest lower bound and the lowest upper bound.</p>\n");
-            sb.Append("<table class=\"windows\">\n<thead><tr><th>Setting</th><th>At least / above</th><th>At most / below</th><th>Set</th><th>Status</th></tr></thead>\n<tbody>\n");
+            sb.Append("<table class=\"windows\">\n<thead><tr><th>Setting</th><th>At least / above</th><th>At most / below</th><th>Set</th><th>Status</th><th>Suggested</th></tr></thead>\n<tbody>\n");
             foreach (var w in shared)
             {
                 var status = w.Window.IsEmpty ? "<span class=\"badge b-empty\">no room</span>" : w.Window.Holds ? "<span class=\"badge b-passed\">inside</span>" : "<span class=\"badge b-failed\">outside</span>";
                 sb.Append("<tr").Append(w.Window.Holds ? "" : " class=\"failed\"").Append(" data-setting=\"").Append(Escape(w.Window.Setting)).Append("\"><td>")
                     .Append(Escape(w.Name)).Append("<span class=\"was\"><code>").Append(Escape(w.Window.Setting)).Append("</code></span></td><td>")
                     .Append(Escape(w.LowerText ?? "-")).Append("</td><td>").Append(Escape(w.UpperText ?? "-")).Append("</td><td class=\"num\">").Append(Escape(w.Set))
-                    .Append("</td><td>").Append(status).Append("</td></tr>\n");
+                    .Append("</td><td>").Append(status).Append("</td><td>").Append(FixOf(m, w.Window.Setting) is { } fix ? Suggested(fix) : "-").Append("</td></tr>\n");
             }
             sb.Append("</tbody>\n</table>\n<ul class=\"window-sentences\">\n");
-            foreach (var w in shared) sb.Append("<li>").Append(Escape(w.Sentence)).Append("</li>\n");
+            foreach (var w in shared)
+            {
+                sb.Append("<li>").Append(Escape(w.Sentence));
+                if (FixOf(m, w.Window.Setting) is { } fix) sb.Append("; ").Append(Suggested(fix));
+                sb.Append("</li>\n");
+            }
             sb.Append("</ul>\n");
         }
 
@@ -255,7 +260,7 @@ public static class HtmlReport
         sb.Append("</tbody>\n</table>\n");
     }
 
-    private static void Changes(StringBuilder sb, ReportModel model, MotorChange c)
+    private static void Changes(StringBuilder sb, ReportModel model, MotorReport m, MotorChange c)
     {
         sb.Append("<h2 id=\"changes\">Changes since <code>").Append(Escape(model.ChangedSince)).Append("</code></h2>\n");
         if (c.Kind == ChangeKind.Added) sb.Append("<p><span class=\"badge b-added\">added</span> This motor file is new since the revision.</p>\n");
@@ -271,6 +276,20 @@ public static class HtmlReport
             {
                 sb.Append("<tr data-path=\"").Append(Escape(s.Path)).Append("\"><td><code>").Append(Escape(s.Path)).Append("</code></td><td>")
                     .Append(Escape(s.Old ?? "(absent)")).Append("</td><td><b>").Append(Escape(s.New ?? "(absent)")).Append("</b></td></tr>\n");
+            }
+            sb.Append("</tbody>\n</table>\n");
+        }
+        var fixes = m.Findings.Where(f => f.Fix is not null && f.Suppression is null).GroupBy(f => f.KeyPath, StringComparer.Ordinal).Select(g => g.First()).ToList();
+        if (fixes.Count > 0)
+        {
+            sb.Append("<p>What <code>settinglint fix</code> would write, each value checked against every rule on its setting:</p>\n");
+            sb.Append("<table class=\"fix-changes\">\n<thead><tr><th>Setting</th><th>Line</th><th>Now</th><th>Fix writes</th></tr></thead>\n<tbody>\n");
+            foreach (var f in fixes)
+            {
+                var now = ValueNow(c, f.KeyPath);
+                sb.Append("<tr data-path=\"").Append(Escape(f.KeyPath)).Append("\"><td><code>").Append(Escape(f.KeyPath)).Append("</code></td><td><code>")
+                    .Append(Int(f.Fix!.Region.StartLine)).Append(':').Append(Int(f.Fix.Region.StartColumn)).Append("</code></td><td>").Append(Escape(now ?? f.Values.GetValueOrDefault("actual")?.Text ?? "-"))
+                    .Append("</td><td>").Append(Suggested(f.Fix)).Append("</td></tr>\n");
             }
             sb.Append("</tbody>\n</table>\n");
         }
@@ -333,10 +352,21 @@ public static class HtmlReport
             sb.Append("<tr data-rule=\"").Append(Escape(f.RuleId)).Append("\"><td>").Append(level).Append("</td><td><b>").Append(Escape(f.RuleId)).Append("</b></td><td><code>")
                 .Append(where).Append("</code></td><td>").Append(Escape(f.Message));
             if (f.Suppression is { } s) sb.Append("<span class=\"was\">Accepted: ").Append(Escape(s.Justification)).Append("</span>");
+            if (f.Fix is { } fix) sb.Append(Suggested(fix));
             sb.Append("</td></tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
     }
+
+    // A finding's checked value, as `check` shows it: what would be written, and the value primary and secondary.
+    private static string Suggested(FindingFix fix) =>
+        "<span class=\"suggested\" data-value=\"" + Escape(fix.Inserted) + "\">suggested: <b>" + Escape(fix.Inserted) + "</b>"
+        + (fix.Shown.Length > 0 && fix.Shown != fix.Inserted ? " (" + Escape(fix.Shown) + ")" : "") + "</span>";
+
+    private static FindingFix? FixOf(MotorReport m, string setting) =>
+        m.Findings.FirstOrDefault(f => f.KeyPath == setting && f.Fix is not null && f.Suppression is null)?.Fix;
+
+    private static string? ValueNow(MotorChange c, string path) => c.Settings.FirstOrDefault(s => s.Path == path)?.New;
 
     private static string Cell(string now, string? before) =>
         before is null || before == now ? Escape(now) : Escape(now) + "<span class=\"was\">was " + Escape(before.Length > 0 ? before : "-") + "</span>";

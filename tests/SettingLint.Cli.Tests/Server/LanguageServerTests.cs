@@ -76,6 +76,55 @@ public sealed class LanguageServerTests
         Assert.Equal(0, await session.ShutdownAndExit());
     }
 
+    // The demo's P-202 has 46 A keyed in as primary: SL201 (common practice: at least 1.7 x the 1036 A start at the bus's
+    // 4370 V, so 1761 A) and SL108 (below the relay's 1.00 xCT = 200 A minimum of a 200:5 CT). The relay sets the pickup
+    // in steps of 0.01 xCT = 2 A pri, so the lowest step above 1761 A is 1762 A, written as primary as the file writes it.
+    [Fact]
+    public async Task A_fix_is_a_code_action_that_replaces_exactly_the_value()
+    {
+        using var repo = ServerSession.DemoRepo();
+        var motor = repo.PathOf("motors/p-202.yaml");
+        var text = File.ReadAllText(motor);
+        var line = LineOf(text, WrongPickup);
+        await using var session = await ServerSession.Start(repo.Root);
+        await session.Open(motor, text);
+        await session.Client.Diagnostics(ServerSession.Uri(motor), 1);
+
+        var answer = await session.Client.Request("textDocument/codeAction", new JsonObject
+        {
+            ["textDocument"] = new JsonObject { ["uri"] = ServerSession.Uri(motor) },
+            ["range"] = new JsonObject { ["start"] = new JsonObject { ["line"] = line, ["character"] = 6 }, ["end"] = new JsonObject { ["line"] = line, ["character"] = 6 } },
+            ["context"] = new JsonObject { ["diagnostics"] = new JsonArray() },
+        });
+        var actions = answer["result"]!.AsArray();
+        var action = Assert.Single(actions)!;
+        Assert.Equal("quickfix", (string)action["kind"]!);
+        Assert.Equal(["SL108", "SL201"], Codes(action["diagnostics"]!.AsArray()));
+        var edits = action["edit"]!["changes"]![ServerSession.Uri(motor)]!.AsArray();
+        var edit = Assert.Single(edits)!;
+        Assert.Equal("1762 A pri", (string)edit["newText"]!);
+        // Exactly "46 A pri": from after "    pickup: " to the end of the unit, on the finding's line.
+        Assert.Equal((line, "    pickup: ".Length, line, WrongPickup.Length),
+            ((int)edit["range"]!["start"]!["line"]!, (int)edit["range"]!["start"]!["character"]!, (int)edit["range"]!["end"]!["line"]!, (int)edit["range"]!["end"]!["character"]!));
+
+        // Applied as the editor applies it, the two findings go and nothing else changes.
+        var lines = text.Split('\n');
+        lines[line] = lines[line][..(int)edit["range"]!["start"]!["character"]!] + (string)edit["newText"]! + lines[line][(int)edit["range"]!["end"]!["character"]!..];
+        var onDisk = CheckCodes(repo, "motors/p-202.yaml");
+        await session.Change(motor, 2, string.Join('\n', lines));
+        Assert.Equal(Without(onDisk, "SL108", "SL201"), Codes(await session.Client.Diagnostics(ServerSession.Uri(motor), 2)));
+
+        // A line with no fix has no action.
+        var none = await session.Client.Request("textDocument/codeAction", new JsonObject
+        {
+            ["textDocument"] = new JsonObject { ["uri"] = ServerSession.Uri(motor) },
+            ["range"] = new JsonObject { ["start"] = new JsonObject { ["line"] = 0, ["character"] = 0 }, ["end"] = new JsonObject { ["line"] = 0, ["character"] = 0 } },
+            ["context"] = new JsonObject { ["diagnostics"] = new JsonArray() },
+        });
+        Assert.Empty(none["result"]!.AsArray());
+        Assert.Equal(0, await session.ShutdownAndExit());
+    }
+
     [Fact]
     public async Task Every_demo_file_gets_the_findings_of_check()
     {
