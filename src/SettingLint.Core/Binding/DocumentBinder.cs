@@ -151,8 +151,8 @@ public sealed class DocumentBinder
 
     // Transformer ratings and the motor's FLC and rated voltage: the bases of A sec, V sec, xCT, xFLC and %.
     private static bool IsBase(string path) =>
-        path is "motor.full_load_current" or "motor.rated_voltage"
-        || (path.StartsWith("transformers.", StringComparison.Ordinal) && (path.EndsWith(".primary", StringComparison.Ordinal) || path.EndsWith(".secondary", StringComparison.Ordinal)));
+        path is SchemaPaths.Motor.FullLoadCurrent or SchemaPaths.Motor.RatedVoltage
+        || (path.StartsWith(SchemaPaths.Motor.TransformersPrefix, StringComparison.Ordinal) && (path.EndsWith(".primary", StringComparison.Ordinal) || path.EndsWith(".secondary", StringComparison.Ordinal)));
 
     // Finding key paths are the paths in the file; an inline bus is bound on its own but lives under `bus`.
     private string Reported(string path) => _reportPrefix.Length == 0 ? path : _reportPrefix + "." + path;
@@ -161,11 +161,11 @@ public sealed class DocumentBinder
     {
         var setting = key.Value;
         var motorSchema = _schemas.Get(SchemaSet.MotorProtection);
-        var settingSchema = SchemaFacts.ResolvePath(motorSchema, "protection." + setting);
+        var settingSchema = SchemaFacts.ResolvePath(motorSchema, SchemaPaths.Motor.ProtectionPrefix + setting);
         if (settingSchema is null || SchemaFacts.DimensionOf(settingSchema) is not { } dimension)
         {
-            var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith("protection.", StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
-                .Select(l => l.Path["protection.".Length..]);
+            var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
+                .Select(l => l.Path[SchemaPaths.Motor.ProtectionPrefix.Length..]);
             var near = Suggestions.Nearest(setting, known);
             _findings.Add(EngineRules.UnknownKey, key.Span, path,
                 "'{key}' is not a protection setting with a unit{hint}.", ("key", setting), ("hint", near is null ? "" : "; did you mean '" + near + "'?"));
@@ -207,7 +207,7 @@ public sealed class DocumentBinder
         List<MeasureValue>? withRatio = null;
         foreach (var (path, v) in _values)
         {
-            if (v is MeasureValue { SideRatio: null, Dimension: Dimension.Current or Dimension.Voltage } m && path.StartsWith("protection.", StringComparison.Ordinal))
+            if (v is MeasureValue { SideRatio: null, Dimension: Dimension.Current or Dimension.Voltage } m && path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal))
             {
                 var refs = References(path, m.Dimension == Dimension.Voltage);
                 if (refs.SideRatio is not null) (withRatio ??= []).Add(m with { SideRatio = refs.SideRatio });
@@ -229,15 +229,15 @@ public sealed class DocumentBinder
     /// </summary>
     /// A CT's own keys (a burden in VA) refer to that CT.
     public static string CtOf(string settingPath, string? groundConnection) =>
-        settingPath.StartsWith("transformers.ground_ct.", StringComparison.Ordinal)
-        || (settingPath.StartsWith("protection.ground_fault.", StringComparison.Ordinal) && groundConnection != "residual")
+        settingPath.StartsWith(SchemaPaths.Motor.GroundCt + ".", StringComparison.Ordinal)
+        || (settingPath.StartsWith(SchemaPaths.Motor.GroundFault + ".", StringComparison.Ordinal) && groundConnection != "residual")
             ? SettingReferences.GroundCt : SettingReferences.PhaseCt;
 
     // Looked up once the values are bound, once per transformer, for every setting that converts through it.
     private SettingReferences.ByTransformer _references;
 
     private ConversionReferences References(string path, bool voltage) =>
-        _references.Get(new Values(_values), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
+        _references.Get(new Values(_values), (_values.GetValueOrDefault(SchemaPaths.Motor.GroundCtConnection) as TextValue)?.Value, path, voltage);
 
     private readonly struct Values(Dictionary<string, BoundValue> values) : SettingReferences.INumbers
     {
@@ -246,30 +246,30 @@ public sealed class DocumentBinder
 
     private IEnumerable<string> ReferencePaths(string path, UnitBasis basis, bool voltage)
     {
-        var ct = CtOf(path, (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var ct = CtOf(path, (_values.GetValueOrDefault(SchemaPaths.Motor.GroundCtConnection) as TextValue)?.Value);
         return basis switch
         {
-            UnitBasis.FullLoadCurrent => ["motor.full_load_current"],
+            UnitBasis.FullLoadCurrent => [SchemaPaths.Motor.FullLoadCurrent],
             UnitBasis.CtRating => [ct + ".primary"],
-            UnitBasis.RatedVoltage => ["motor.rated_voltage"],
-            UnitBasis.VtRating => ["transformers.vt.primary"],
+            UnitBasis.RatedVoltage => [SchemaPaths.Motor.RatedVoltage],
+            UnitBasis.VtRating => [SchemaPaths.Motor.VtPrimary],
             UnitBasis.CtSecondaryPower => [ct + ".secondary"],
-            UnitBasis.Secondary when voltage => ["transformers.vt.primary", "transformers.vt.secondary"],
+            UnitBasis.Secondary when voltage => [SchemaPaths.Motor.VtPrimary, SchemaPaths.Motor.VtSecondary],
             _ => [ct + ".primary", ct + ".secondary"],
         };
     }
 
     private string MissingReference(string path, UnitBasis basis, bool voltage)
     {
-        var ct = CtOf(path, (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var ct = CtOf(path, (_values.GetValueOrDefault(SchemaPaths.Motor.GroundCtConnection) as TextValue)?.Value);
         return basis switch
         {
-            UnitBasis.FullLoadCurrent => "xFLC needs motor.full_load_current in amperes",
+            UnitBasis.FullLoadCurrent => $"xFLC needs {SchemaPaths.Motor.FullLoadCurrent} in amperes",
             UnitBasis.CtRating => "xCT needs " + ct + ".primary",
-            UnitBasis.RatedVoltage => "% needs motor.rated_voltage",
-            UnitBasis.VtRating => "xVT needs transformers.vt.primary",
+            UnitBasis.RatedVoltage => $"% needs {SchemaPaths.Motor.RatedVoltage}",
+            UnitBasis.VtRating => $"xVT needs {SchemaPaths.Motor.VtPrimary}",
             UnitBasis.CtSecondaryPower => "a burden in VA needs " + ct + ".secondary (Z = VA / I^2)",
-            UnitBasis.Secondary when voltage => "a secondary voltage needs transformers.vt with primary and secondary",
+            UnitBasis.Secondary when voltage => $"a secondary voltage needs {SchemaPaths.Motor.Vt} with primary and secondary",
             UnitBasis.Secondary => "a secondary current needs " + ct + " with primary and secondary",
             _ => "its reference is missing",
         };

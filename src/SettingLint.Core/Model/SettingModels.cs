@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Model;
 
@@ -8,10 +9,10 @@ public sealed record Bus(BoundDocument Document)
 {
     public string Tag => Document.Tag;
 
-    public string? Grounding => Document.Text("grounding");
+    public string? Grounding => Document.Text(SchemaPaths.Bus.Grounding);
 
     /// <summary>The supply frequency in Hz when the bus states one (`frequency: 50 Hz`), else null.</summary>
-    public double? Frequency => Document["frequency"] switch
+    public double? Frequency => Document[SchemaPaths.Bus.Frequency] switch
     {
         MeasureValue m => m.Value,
         // Read from text too, so that the default of the electrical code does not depend on how the key is bound.
@@ -44,6 +45,6 @@ public sealed record MotorProtection(BoundDocument Document, Bus? Bus, RelayMode
     /// <summary>The electrical code that governs the motor (<see cref="ElectricalCodes.Governing"/>); null when none is declared or implied.</summary>
     public string? ElectricalCode { get; init; }
 
-    /// <summary>Whether a protection element is present and enabled.</summary>
-    public bool IsEnabled(string element) => Document.Flag("protection." + element + ".enabled") == true;
+    /// <summary>Whether a protection element is present and enabled, by the path of its flag (<see cref="SchemaPaths.Motor.ThermalEnabled"/>).</summary>
+    public bool IsEnabled(string enabledPath) => Document.Flag(enabledPath) == true;
 }

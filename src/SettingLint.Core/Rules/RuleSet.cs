@@ -4,6 +4,7 @@ using SettingLint.Core.Binding;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Rules;
 
@@ -17,7 +18,7 @@ public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, 
 /// <summary>The compiled rules of a run, applied to every motor.</summary>
 public sealed class RuleSet : IStagedRuleSet
 {
-    private static readonly PathSlot GroundConnection = PathTable.Motor.Of("transformers.ground_ct.connection");
+    private static readonly PathSlot GroundConnection = PathTable.Motor.Of(SchemaPaths.Motor.GroundCtConnection);
 
     // A context kept per thread between motors, so that evaluating a motor allocates nothing but its findings.
     [ThreadStatic]
@@ -305,10 +306,10 @@ public sealed class RuleSet : IStagedRuleSet
     {
         if (value is not { Dimension: Dimension.Current or Dimension.Voltage }) return null;
         if (value.Dimension == Dimension.Current) return value.SideRatio is { } r ? new Terms(r, "A sec", Dim.Current) : null;
-        var setting = subject.StartsWith("protection.", StringComparison.Ordinal) ? subject["protection.".Length..] : subject;
+        var setting = subject.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) ? subject[SchemaPaths.Motor.ProtectionPrefix.Length..] : subject;
         var basis = motor.RelayModel?.RangeOf(setting)?.Min.Quantity.Unit.Basis ?? value.Written?.Unit.Basis;
-        var rated = motor.Document.Measure("motor.rated_voltage")?.Value;
-        var vtPrimary = motor.Document.Measure("transformers.vt.primary")?.Value;
+        var rated = motor.Document.Measure(SchemaPaths.Motor.RatedVoltage)?.Value;
+        var vtPrimary = motor.Document.Measure(SchemaPaths.Motor.VtPrimary)?.Value;
         return basis switch
         {
             UnitBasis.RatedVoltage when rated is > 0 => new Terms(rated.Value / 100, "%", Dim.Voltage),

@@ -195,7 +195,7 @@ public static class SchemaValidator
             // A relay-model range ("setting") takes its setting's dimension, which the binder knows: it reports the scalar.
             var dimension = Quantities.Dimensions.Parse(token);
             if (dimension is null && error.Node is YScalar) return;
-            var context = Quantities.UnitContexts.Of(path.StartsWith("ranges.", StringComparison.Ordinal) ? "protection." + path : path);
+            var context = Quantities.UnitContexts.Of(path.StartsWith("ranges.", StringComparison.Ordinal) ? SchemaPaths.Motor.ProtectionPrefix + path : path);
             var problem = error.Node is YScalar { Type: ScalarType.Int or ScalarType.Float } number
                 ? Quantities.QuantityParser.Explain(new Quantities.QuantityParse(null, Quantities.QuantityError.MissingUnit, null), number.Value, dimension ?? Quantities.Dimension.None, context)
                 : "'" + name + "' must be a number and a unit, not " + shown + ".";
