@@ -98,7 +98,7 @@ public sealed class DocumentBinder
             var parse = QuantityParser.Parse(node.Value, dimension, context);
             if (!parse.Ok)
             {
-                _findings.Add(EngineRules.Unit, node.Span, Reported(path), "{problem}", ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
+                _findings.Add(EngineMessages.UnitProblem, node.Span, Reported(path), ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
                 _failed.Add(path);
                 return;
             }
@@ -106,14 +106,14 @@ public sealed class DocumentBinder
             if (q.Number < 0)
             {
                 _failed.Add(path);
-                _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is negative; a {dimension} here cannot be.",
+                _findings.Add(EngineMessages.NegativeHereCannot, node.Span, Reported(path),
                     ("value", node.Value), ("dimension", dimension.Token()));
                 return;
             }
             if (q.Number == 0 && IsBase(path))
             {
                 _failed.Add(path);
-                _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is zero; it is the base of a ratio or of relative settings and must be above zero.",
+                _findings.Add(EngineMessages.ZeroBaseRatioRelative, node.Span, Reported(path),
                     ("value", node.Value));
                 return;
             }
@@ -136,7 +136,7 @@ public sealed class DocumentBinder
                 var n = CoreSchema.Number(node.Value) ?? double.NaN;
                 if (!double.IsFinite(n))
                 {
-                    _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is not a finite number.", ("value", node.Value));
+                    _findings.Add(EngineMessages.NotFiniteNumber, node.Span, Reported(path), ("value", node.Value));
                     return;
                 }
                 _values[path] = new MeasureValue(path, node.Span, n, Dimension.None, null, null);
@@ -167,8 +167,7 @@ public sealed class DocumentBinder
             var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
                 .Select(l => l.Path[SchemaPaths.Motor.ProtectionPrefix.Length..]);
             var near = Suggestions.Nearest(setting, known);
-            _findings.Add(EngineRules.UnknownKey, key.Span, path,
-                "'{key}' is not a protection setting with a unit{hint}.", ("key", setting), ("hint", near is null ? "" : "; did you mean '" + near + "'?"));
+            _findings.Add(EngineMessages.ProtectionSettingWithUnit, key.Span, path, ("key", setting), ("hint", near is null ? "" : "; did you mean '" + near + "'?"));
             return;
         }
         foreach (var entry in range.Entries)
@@ -178,7 +177,7 @@ public sealed class DocumentBinder
             var parse = QuantityParser.Parse(s.Value, dimension, UnitContext.Setting);
             if (!parse.Ok)
             {
-                _findings.Add(EngineRules.Unit, s.Span, p, "{problem}", ("problem", QuantityParser.Explain(parse, s.Value, dimension, UnitContext.Setting)));
+                _findings.Add(EngineMessages.UnitProblem, s.Span, p, ("problem", QuantityParser.Explain(parse, s.Value, dimension, UnitContext.Setting)));
                 continue;
             }
             _values[p] = new WrittenValue(p, s.Span, parse.Value!.Value);
@@ -196,7 +195,7 @@ public sealed class DocumentBinder
             {
                 // A reference that is present but wrong has its own finding; a second one here would be noise.
                 if (ReferencePaths(path, q.Unit.Basis, voltage).Any(p => _failed.Contains(p) || IsReportedMissing(p))) continue;
-                _findings.Add(EngineRules.Unit, node.Span, path, "'{value}' cannot be converted: {missing}.",
+                _findings.Add(EngineMessages.CannotBeConverted, node.Span, path,
                     ("value", node.Value), ("missing", MissingReference(path, q.Unit.Basis, voltage)));
                 continue;
             }

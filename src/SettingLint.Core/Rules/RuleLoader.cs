@@ -162,7 +162,7 @@ public sealed class RuleLoader(SchemaSet schemas)
         }
         else if (!findings.HasAny)
         {
-            findings.Add(EngineRules.NotAMapping, SourceSpan.FileStart, "", "A rule file is a mapping of keys.");
+            findings.Add(EngineMessages.RuleFileMappingKeys, SourceSpan.FileStart, "");
         }
         if (findings.HasAny)
         {
