@@ -64,6 +64,8 @@ public static class Functions
         {
             Signature = "hot_level(flc, pickup, full_load_level?)", Result = "number",
             Meaning = "the hot starting level: `full_load_level` when present, else (FLC / pickup)^2", TakesAbsent = true, OptionalArgs = [2],
+            // A share of the trip level, shown as the full-load level is written (55 %).
+            Percent = PercentRule.Always,
         };
         yield return new("start_peak", 5, 5, t => Expect(t, Dim.None, Dim.Current, Dim.Time, Dim.Current, Dim.Time, Dim.None),
             a => Val.Of(new ThermalModel(a[2].Number, a[3].Number, a[3].Number).CheckStart(new StartPoint(a[0].Number, a[1].Number), a[4].Number).PeakLevel))
