@@ -30,8 +30,15 @@ public static class RulesCommand
             stdout.Write(Catalogue.Render(session.Rules.Rules));
             return ExitCodes.Clean;
         });
+        var functions = new Command("functions", "Print the markdown table of the functions a rule may call (docs/rule-language.md).");
+        functions.SetAction(_ =>
+        {
+            stdout.Write(FunctionTable.Render());
+            return ExitCodes.Clean;
+        });
         rules.Subcommands.Add(list);
         rules.Subcommands.Add(catalogue);
+        rules.Subcommands.Add(functions);
         rules.Subcommands.Add(show);
         rules.Subcommands.Add(test);
         return rules;

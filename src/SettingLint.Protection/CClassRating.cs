@@ -16,12 +16,6 @@ public sealed record CClassRating
     /// <summary>Class voltage in V.</summary>
     public double ClassVoltage { get; }
 
-    /// <summary>Standard burden in ohm, V_class / (20 x 5 A), e.g. C100 gives 1 ohm; IEEE C57.13 standard burdens.</summary>
-    public double StandardBurden => ClassVoltage / 100;
-
-    /// <summary>Token such as "C100"; IEEE C57.13 designation.</summary>
-    public string Token => "C" + ClassVoltage.ToString("R", CultureInfo.InvariantCulture);
-
     /// <summary>Reads a class token "C" followed by digits, e.g. "C400" (C in either case); IEEE C57.13 designation.</summary>
     public static bool TryParse([NotNullWhen(true)] string? token, [NotNullWhen(true)] out CClassRating? rating)
     {
@@ -38,28 +32,5 @@ public sealed record CClassRating
 
         rating = new CClassRating(volts);
         return true;
-    }
-
-    /// <summary>Reads a class token such as "C200"; throws <see cref="FormatException"/> if malformed; IEEE C57.13 designation.</summary>
-    public static CClassRating Parse(string token)
-    {
-        ArgumentNullException.ThrowIfNull(token);
-        return TryParse(token, out var rating)
-            ? rating
-            : throw new FormatException("Not a C-class CT rating: '" + token + "'.");
-    }
-
-    /// <summary>Secondary current in A the CT reproduces within class accuracy into a connected burden, about V_class / Zb; IEEE C57.13 class-voltage definition, approximation common practice.</summary>
-    public double MaximumSecondaryCurrent(double burdenOhm) => ClassVoltage / Guard.Positive(burdenOhm);
-
-    /// <summary>Saturation check (1 + X/R) If Zb &lt;= 20 with If per unit of CT rating and the burden in ohm taken per unit of the standard burden; IEEE C37.110.</summary>
-    public SaturationCheck CheckSaturation(double xOverR, double faultCurrentPerUnit, double burdenOhm) =>
-        CtSaturation.Check(xOverR, faultCurrentPerUnit, Guard.Positive(burdenOhm) / StandardBurden);
-
-    /// <summary>Saturation check from a primary fault current in A and the CT ratio; IEEE C37.110 criterion with If = fault / rated primary.</summary>
-    public SaturationCheck CheckSaturation(double xOverR, double primaryFaultCurrent, CtRatio ratio, double burdenOhm)
-    {
-        ArgumentNullException.ThrowIfNull(ratio);
-        return CheckSaturation(xOverR, Guard.NonNegative(primaryFaultCurrent) / ratio.PrimaryRating, burdenOhm);
     }
 }

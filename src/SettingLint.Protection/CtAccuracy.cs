@@ -46,14 +46,6 @@ public sealed record CtAccuracy
             classVoltage / (CClassLimitFactor * Guard.Positive(ratedSecondary)));
 
     /// <summary>
-    /// An IEC 61869-2 protection class (5P or 10P) with its accuracy limit factor and rated burden in VA; the rated
-    /// burden in ohm is VA / I_sn^2 (15 VA at 5 A is 0.6 ohm).
-    /// </summary>
-    public static CtAccuracy PClass(int compositeError, double accuracyLimitFactor, double ratedBurdenVa, double ratedSecondary) =>
-        new(compositeError.ToString(CultureInfo.InvariantCulture) + "P" + accuracyLimitFactor.ToString("R", CultureInfo.InvariantCulture),
-            ratedSecondary, accuracyLimitFactor, Guard.Positive(ratedBurdenVa) / (Guard.Positive(ratedSecondary) * ratedSecondary));
-
-    /// <summary>
     /// Reads a class token, C followed by its voltage (C400) or an IEC class, 5P or 10P followed by the ALF (5P20).
     /// An IEC class needs its rated burden in ohm (null: no accuracy can be derived and the result is false).
     /// </summary>
@@ -93,8 +85,4 @@ public sealed record CtAccuracy
     /// </summary>
     public SaturationCheck CheckSaturation(double xOverR, double faultCurrentPerUnit, double burdenOhm) =>
         CtSaturation.Check(xOverR, faultCurrentPerUnit, Guard.Positive(burdenOhm) / (AccuracyLimitVoltage / (CClassLimitFactor * RatedSecondary)));
-
-    /// <summary>A burden in VA at the CT's rated secondary current as ohms, VA / I_sn^2; IEC 61869-2 rated output.</summary>
-    public static double BurdenOhms(double voltAmperes, double ratedSecondary) =>
-        Guard.NonNegative(voltAmperes) / (Guard.Positive(ratedSecondary) * ratedSecondary);
 }

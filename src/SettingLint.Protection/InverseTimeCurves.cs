@@ -42,17 +42,4 @@ public static class InverseTimeCurves
         var seconds = timeMultiplier * ((constants.A / (Math.Pow(multiple, constants.P) - 1)) + constants.B);
         return TripTime.After(seconds);
     }
-
-    /// <summary>Reset time t_r = TD tr / (1 - M^2) for M below 1; null when M is at or above 1 or the curve defines no timed reset (IEC curves, definite time); IEEE C37.112-2018 Table 1.</summary>
-    public static double? ResetTime(CurveKind kind, double multiple, double timeMultiplier)
-    {
-        Guard.NonNegative(multiple);
-        Guard.Positive(timeMultiplier);
-        if (Constants(kind)?.ResetConstant is not { } tr || multiple >= 1)
-        {
-            return null;
-        }
-
-        return timeMultiplier * tr / (1 - (multiple * multiple));
-    }
 }

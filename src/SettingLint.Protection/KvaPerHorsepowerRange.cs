@@ -6,8 +6,4 @@ namespace SettingLint.Protection;
 /// </summary>
 /// <param name="Lower">Lowest kVA/hp of the band (included).</param>
 /// <param name="Upper">kVA/hp where the next letter starts (excluded).</param>
-public sealed record KvaPerHorsepowerRange(double Lower, double Upper)
-{
-    /// <summary>True when Lower &lt;= kVA/hp &lt; Upper; NEMA MG 1 Table 10-1 band rule.</summary>
-    public bool Contains(double kvaPerHorsepower) => kvaPerHorsepower >= Lower && kvaPerHorsepower < Upper;
-}
+public sealed record KvaPerHorsepowerRange(double Lower, double Upper);

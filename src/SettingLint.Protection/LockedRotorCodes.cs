@@ -3,8 +3,8 @@ using System.Diagnostics.CodeAnalysis;
 namespace SettingLint.Protection;
 
 /// <summary>
-/// NEMA MG 1 locked-rotor code letters (Table 10-1, MG 1 Part 10.37.2): kVA/hp bands, the letter
-/// of a measured or stated LRC and the LRC band of a letter, for three-phase motors where
+/// NEMA MG 1 locked-rotor code letters (Table 10-1, MG 1 Part 10.37.2): kVA/hp bands and the LRC
+/// band of a letter, for three-phase motors where
 /// kVA/hp = sqrt(3) V I_LR / 1000 / hp. Power is offered in W and in hp.
 /// </summary>
 public static class LockedRotorCodes
@@ -14,10 +14,6 @@ public static class LockedRotorCodes
     [
         0, 3.15, 3.55, 4.0, 4.5, 5.0, 5.6, 6.3, 7.1, 8.0, 9.0, 10.0, 11.2, 12.5, 14.0, 16.0, 18.0, 20.0, 22.4,
     ];
-
-    // Computed kVA/hp carries rounding (e.g. a current derived from a bound and converted back),
-    // so a value this close below a bound is taken as on it.
-    private const double BoundaryTolerance = 1e-9;
 
     /// <summary>kVA/hp band of a letter (lower included, upper excluded, V open-ended); NEMA MG 1 Table 10-1.</summary>
     public static KvaPerHorsepowerRange Range(LockedRotorCodeLetter letter)
@@ -31,33 +27,6 @@ public static class LockedRotorCodes
         var upper = index + 1 < LowerBounds.Length ? LowerBounds[index + 1] : double.PositiveInfinity;
         return new KvaPerHorsepowerRange(LowerBounds[index], upper);
     }
-
-    /// <summary>Letter whose band holds a kVA/hp value (values within 1e-9 below a bound count as on it); NEMA MG 1 Table 10-1.</summary>
-    public static LockedRotorCodeLetter LetterFor(double kvaPerHorsepower)
-    {
-        Guard.NonNegative(kvaPerHorsepower);
-        for (var index = LowerBounds.Length - 1; index > 0; index--)
-        {
-            if (kvaPerHorsepower >= LowerBounds[index] * (1 - BoundaryTolerance))
-            {
-                return (LockedRotorCodeLetter)index;
-            }
-        }
-
-        return LockedRotorCodeLetter.A;
-    }
-
-    /// <summary>Locked-rotor kVA per hp, sqrt(3) V I_LR / 1000 / hp (line-to-line V, A, hp); NEMA MG 1 Table 10-1 basis.</summary>
-    public static double KvaPerHorsepower(double lockedRotorCurrent, double ratedHorsepower, double lineVoltage) =>
-        Math.Sqrt(3) * Guard.Positive(lineVoltage) * Guard.NonNegative(lockedRotorCurrent) / 1000 / Guard.Positive(ratedHorsepower);
-
-    /// <summary>Code letter of an LRC (A) for a rating in hp at a line voltage (V); NEMA MG 1 Table 10-1.</summary>
-    public static LockedRotorCodeLetter LetterFromHorsepower(double lockedRotorCurrent, double ratedHorsepower, double lineVoltage) =>
-        LetterFor(KvaPerHorsepower(lockedRotorCurrent, ratedHorsepower, lineVoltage));
-
-    /// <summary>Code letter of an LRC (A) for a rating in W at a line voltage (V); NEMA MG 1 Table 10-1 with hp = W / 745.699872.</summary>
-    public static LockedRotorCodeLetter LetterFromWatts(double lockedRotorCurrent, double ratedWatts, double lineVoltage) =>
-        LetterFromHorsepower(lockedRotorCurrent, PowerUnits.HorsepowerFromWatts(Guard.Positive(ratedWatts)), lineVoltage);
 
     /// <summary>LRC band in A of a letter, I_LR = kVA/hp x hp x 1000 / (sqrt(3) V) (max infinite for V); NEMA MG 1 Table 10-1.</summary>
     public static CurrentRange LockedRotorCurrentRangeFromHorsepower(LockedRotorCodeLetter letter, double ratedHorsepower, double lineVoltage)
@@ -87,14 +56,5 @@ public static class LockedRotorCodes
         }
 
         return Enum.TryParse(text, ignoreCase: false, out letter) && Enum.IsDefined(letter);
-    }
-
-    /// <summary>Reads a single code letter; throws <see cref="FormatException"/> if it is not one; NEMA MG 1 Table 10-1.</summary>
-    public static LockedRotorCodeLetter Parse(string text)
-    {
-        ArgumentNullException.ThrowIfNull(text);
-        return TryParse(text, out var letter)
-            ? letter
-            : throw new FormatException("Not a NEMA locked-rotor code letter: '" + text + "'.");
     }
 }

@@ -20,8 +20,4 @@ public static class NecOverloadLimit
 
         return serviceFactor >= 1.15 || temperatureRise <= 40 ? 1.25 : 1.15;
     }
-
-    /// <summary>Largest overload trip current in A, FLC x 1.25 or 1.15; NFPA 70 430.32(A)(1).</summary>
-    public static double MaximumCurrent(double fullLoadCurrent, double? serviceFactor, double? temperatureRise = null) =>
-        Guard.Positive(fullLoadCurrent) * MaximumFraction(serviceFactor, temperatureRise);
 }

@@ -8,7 +8,4 @@ public static class PowerUnits
 
     /// <summary>Horsepower from watts, W / 745.699872; exact unit definition.</summary>
     public static double HorsepowerFromWatts(double watts) => Guard.Finite(watts) / WattsPerHorsepower;
-
-    /// <summary>Watts from horsepower, hp x 745.699872; exact unit definition.</summary>
-    public static double WattsFromHorsepower(double horsepower) => Guard.Finite(horsepower) * WattsPerHorsepower;
 }

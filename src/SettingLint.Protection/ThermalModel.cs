@@ -84,34 +84,6 @@ public sealed record ThermalModel
         return x + ((startLevel - x) * Math.Exp(-seconds / HeatingTimeConstant));
     }
 
-    /// <summary>Level after cooling while stopped: h0 exp(-t / tau_cool); IEC 60255-149 thermal model with the cooling constant.</summary>
-    public double LevelAfterCooling(double startLevel, double seconds)
-    {
-        Guard.NonNegative(startLevel);
-        Guard.NonNegative(seconds);
-        return startLevel * Math.Exp(-seconds / CoolingTimeConstant);
-    }
-
-    /// <summary>Time in s to heat from one level to a higher one while running at a current, tau ln((x - h0) / (x - h1)); 0 if already at or above; null when x is at or below the target (never reached); IEC 60255-149 thermal model.</summary>
-    public double? HeatingTime(double startLevel, double targetLevel, double current)
-    {
-        Guard.NonNegative(startLevel);
-        Guard.NonNegative(targetLevel);
-        if (startLevel >= targetLevel)
-        {
-            return 0;
-        }
-
-        // The level approaches x exponentially, so a target at or above x is never reached.
-        var x = SteadyLevel(current);
-        if (x <= targetLevel)
-        {
-            return null;
-        }
-
-        return HeatingTimeConstant * Math.Log((x - startLevel) / (x - targetLevel));
-    }
-
     /// <summary>Time in s to cool while stopped from one level to another, tau_cool ln(h0 / h1); 0 if already at or below; null when the target is 0 or negative (never reached); IEC 60255-149 thermal model.</summary>
     public double? CoolingTime(double startLevel, double targetLevel)
     {

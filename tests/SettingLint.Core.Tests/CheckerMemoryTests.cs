@@ -107,7 +107,7 @@ public sealed class CheckerMemoryTests
         // The inline bus is the motor's own file; the referenced one is shared by its motors.
         var inline = motors["motors/m-3.yaml"].Bus!;
         Assert.Equal("motors/m-3.yaml", inline.Document.RelativePath);
-        Assert.Equal(28_000, inline.FaultCurrentMax!.Value);
+        Assert.Equal(28_000, inline.Document.Measure("fault_current_max")!.Value);
         Assert.Same(motors["motors/m-1.yaml"].Bus, motors["motors/m-2.yaml"].Bus);
         Assert.Equal("buses/bus-1.yaml", motors["motors/m-1.yaml"].Bus!.Document.RelativePath);
     }

@@ -64,11 +64,6 @@ public sealed class IecCurveTests
         Assert.Equal(TripTime.Never, time);
     }
 
-    // IEC 60255-151 Table 1 defines no timed reset for the IEC curves here: reset is null.
-    [Fact]
-    public void IecCurves_HaveNoTimedReset_Iec60255_151_Table1() =>
-        Assert.Null(InverseTimeCurves.ResetTime(CurveKind.IecStandardInverse, 0.5, 1));
-
     // IEC 60255-151 Table 1 constants as published.
     [Fact]
     public void Constants_Iec60255_151_Table1()

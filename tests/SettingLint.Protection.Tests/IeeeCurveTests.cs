@@ -34,25 +34,6 @@ public sealed class IeeeCurveTests
     public void ExtremelyInverse_IeeeC37_112_2018_Table1(double multiple, double expected) =>
         AssertTime(expected, CurveKind.IeeeExtremelyInverse, multiple);
 
-    // IEEE C37.112-2018 Table 1 reset t_r = TD tr / (1 - M^2):
-    // MI tr = 4.85 at M = 0.5: 4.85 / 0.75 = 6.467 s; VI tr = 21.6 at M = 0: 21.6 s;
-    // EI tr = 29.1 at M = 0.9, TD = 2: 2 x 29.1 / 0.19 = 306.316 s.
-    [Theory]
-    [InlineData(CurveKind.IeeeModeratelyInverse, 0.5, 1, 6.467)]
-    [InlineData(CurveKind.IeeeVeryInverse, 0.0, 1, 21.6)]
-    [InlineData(CurveKind.IeeeExtremelyInverse, 0.9, 2, 306.316)]
-    public void Reset_IeeeC37_112_2018_Table1(CurveKind kind, double multiple, double timeDial, double expected)
-    {
-        var reset = InverseTimeCurves.ResetTime(kind, multiple, timeDial);
-        Assert.NotNull(reset);
-        Assert.Equal(expected, reset.Value, Tolerance);
-    }
-
-    // IEEE C37.112-2018: reset is defined only below pickup.
-    [Fact]
-    public void Reset_AtOrAbovePickup_IsNull_IeeeC37_112_2018() =>
-        Assert.Null(InverseTimeCurves.ResetTime(CurveKind.IeeeVeryInverse, 1.0, 1));
-
     // IEEE C37.112-2018: TD scales the whole expression; TD = 5 at M = 10 MI: 5 x 1.2068 = 6.034 s.
     [Fact]
     public void ModeratelyInverse_ScalesWithTimeDial_IeeeC37_112_2018()

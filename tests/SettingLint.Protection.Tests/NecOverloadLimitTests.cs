@@ -21,7 +21,6 @@ public sealed class NecOverloadLimitTests
     {
         Assert.Equal(1.15, NecOverloadLimit.MaximumFraction(null));
         Assert.Equal(1.25, NecOverloadLimit.MaximumFraction(null, 40));
-        Assert.Equal(115.0, NecOverloadLimit.MaximumCurrent(100, null), 1e-9);
     }
 
     // NFPA 70 430.32(A)(1): marked temperature rise 40 C or less -> 125 % even at SF 1.0.
@@ -33,11 +32,4 @@ public sealed class NecOverloadLimitTests
     public void TemperatureRise_Nfpa70_430_32_A_1(double rise, double expected) =>
         Assert.Equal(expected, NecOverloadLimit.MaximumFraction(1.0, rise));
 
-    // NFPA 70 430.32(A)(1): 100 A FLC, SF 1.15 -> 125 A; SF 1.0 -> 115 A.
-    [Fact]
-    public void MaximumCurrent_Nfpa70_430_32_A_1()
-    {
-        Assert.Equal(125.0, NecOverloadLimit.MaximumCurrent(100, 1.15), 1e-9);
-        Assert.Equal(115.0, NecOverloadLimit.MaximumCurrent(100, 1.0), 1e-9);
-    }
 }

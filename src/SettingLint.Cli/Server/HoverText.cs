@@ -4,6 +4,7 @@ using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
 using SettingLint.Reporting.Html;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Cli.Server;
 
@@ -35,7 +36,7 @@ public static class HoverText
         }
         foreach (var element in Elements(doc))
         {
-            var path = "protection." + element;
+            var path = SchemaPaths.Motor.ProtectionPrefix + element;
             var span = doc.SpanOf(path);
             if (DiagnosticMapper.Contains(span, position))
             {
@@ -50,8 +51,8 @@ public static class HoverText
     {
         ArgumentNullException.ThrowIfNull(doc);
         return doc.Values.Keys
-            .Where(k => k.StartsWith("protection.", StringComparison.Ordinal) && k.IndexOf('.', "protection.".Length) > 0)
-            .Select(k => k["protection.".Length..k.IndexOf('.', "protection.".Length)])
+            .Where(k => k.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) && k.IndexOf('.', SchemaPaths.Motor.ProtectionPrefix.Length) > 0)
+            .Select(k => k[SchemaPaths.Motor.ProtectionPrefix.Length..k.IndexOf('.', SchemaPaths.Motor.ProtectionPrefix.Length)])
             .Distinct(StringComparer.Ordinal);
     }
 

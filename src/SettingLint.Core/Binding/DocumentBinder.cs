@@ -98,7 +98,7 @@ public sealed class DocumentBinder
             var parse = QuantityParser.Parse(node.Value, dimension, context);
             if (!parse.Ok)
             {
-                _findings.Add(EngineRules.Unit, node.Span, Reported(path), "{problem}", ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
+                _findings.Add(EngineMessages.UnitProblem, node.Span, Reported(path), ("problem", QuantityParser.Explain(parse, node.Value, dimension, context)));
                 _failed.Add(path);
                 return;
             }
@@ -106,14 +106,14 @@ public sealed class DocumentBinder
             if (q.Number < 0)
             {
                 _failed.Add(path);
-                _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is negative; a {dimension} here cannot be.",
+                _findings.Add(EngineMessages.NegativeHereCannot, node.Span, Reported(path),
                     ("value", node.Value), ("dimension", dimension.Token()));
                 return;
             }
             if (q.Number == 0 && IsBase(path))
             {
                 _failed.Add(path);
-                _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is zero; it is the base of a ratio or of relative settings and must be above zero.",
+                _findings.Add(EngineMessages.ZeroBaseRatioRelative, node.Span, Reported(path),
                     ("value", node.Value));
                 return;
             }
@@ -136,7 +136,7 @@ public sealed class DocumentBinder
                 var n = CoreSchema.Number(node.Value) ?? double.NaN;
                 if (!double.IsFinite(n))
                 {
-                    _findings.Add(EngineRules.WrongType, node.Span, Reported(path), "'{value}' is not a finite number.", ("value", node.Value));
+                    _findings.Add(EngineMessages.NotFiniteNumber, node.Span, Reported(path), ("value", node.Value));
                     return;
                 }
                 _values[path] = new MeasureValue(path, node.Span, n, Dimension.None, null, null);
@@ -151,8 +151,8 @@ public sealed class DocumentBinder
 
     // Transformer ratings and the motor's FLC and rated voltage: the bases of A sec, V sec, xCT, xFLC and %.
     private static bool IsBase(string path) =>
-        path is "motor.full_load_current" or "motor.rated_voltage"
-        || (path.StartsWith("transformers.", StringComparison.Ordinal) && (path.EndsWith(".primary", StringComparison.Ordinal) || path.EndsWith(".secondary", StringComparison.Ordinal)));
+        path is SchemaPaths.Motor.FullLoadCurrent or SchemaPaths.Motor.RatedVoltage
+        || (path.StartsWith(SchemaPaths.Motor.TransformersPrefix, StringComparison.Ordinal) && (path.EndsWith(".primary", StringComparison.Ordinal) || path.EndsWith(".secondary", StringComparison.Ordinal)));
 
     // Finding key paths are the paths in the file; an inline bus is bound on its own but lives under `bus`.
     private string Reported(string path) => _reportPrefix.Length == 0 ? path : _reportPrefix + "." + path;
@@ -161,14 +161,13 @@ public sealed class DocumentBinder
     {
         var setting = key.Value;
         var motorSchema = _schemas.Get(SchemaSet.MotorProtection);
-        var settingSchema = SchemaFacts.ResolvePath(motorSchema, "protection." + setting);
+        var settingSchema = SchemaFacts.ResolvePath(motorSchema, SchemaPaths.Motor.ProtectionPrefix + setting);
         if (settingSchema is null || SchemaFacts.DimensionOf(settingSchema) is not { } dimension)
         {
-            var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith("protection.", StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
-                .Select(l => l.Path["protection.".Length..]);
+            var known = SchemaFacts.Leaves(motorSchema).Where(l => l.Path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) && SchemaFacts.DimensionOf(l.Schema) is not null)
+                .Select(l => l.Path[SchemaPaths.Motor.ProtectionPrefix.Length..]);
             var near = Suggestions.Nearest(setting, known);
-            _findings.Add(EngineRules.UnknownKey, key.Span, path,
-                "'{key}' is not a protection setting with a unit{hint}.", ("key", setting), ("hint", near is null ? "" : "; did you mean '" + near + "'?"));
+            _findings.Add(EngineMessages.ProtectionSettingWithUnit, key.Span, path, ("key", setting), ("hint", near is null ? "" : "; did you mean '" + near + "'?"));
             return;
         }
         foreach (var entry in range.Entries)
@@ -178,7 +177,7 @@ public sealed class DocumentBinder
             var parse = QuantityParser.Parse(s.Value, dimension, UnitContext.Setting);
             if (!parse.Ok)
             {
-                _findings.Add(EngineRules.Unit, s.Span, p, "{problem}", ("problem", QuantityParser.Explain(parse, s.Value, dimension, UnitContext.Setting)));
+                _findings.Add(EngineMessages.UnitProblem, s.Span, p, ("problem", QuantityParser.Explain(parse, s.Value, dimension, UnitContext.Setting)));
                 continue;
             }
             _values[p] = new WrittenValue(p, s.Span, parse.Value!.Value);
@@ -196,7 +195,7 @@ public sealed class DocumentBinder
             {
                 // A reference that is present but wrong has its own finding; a second one here would be noise.
                 if (ReferencePaths(path, q.Unit.Basis, voltage).Any(p => _failed.Contains(p) || IsReportedMissing(p))) continue;
-                _findings.Add(EngineRules.Unit, node.Span, path, "'{value}' cannot be converted: {missing}.",
+                _findings.Add(EngineMessages.CannotBeConverted, node.Span, path,
                     ("value", node.Value), ("missing", MissingReference(path, q.Unit.Basis, voltage)));
                 continue;
             }
@@ -207,7 +206,7 @@ public sealed class DocumentBinder
         List<MeasureValue>? withRatio = null;
         foreach (var (path, v) in _values)
         {
-            if (v is MeasureValue { SideRatio: null, Dimension: Dimension.Current or Dimension.Voltage } m && path.StartsWith("protection.", StringComparison.Ordinal))
+            if (v is MeasureValue { SideRatio: null, Dimension: Dimension.Current or Dimension.Voltage } m && path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal))
             {
                 var refs = References(path, m.Dimension == Dimension.Voltage);
                 if (refs.SideRatio is not null) (withRatio ??= []).Add(m with { SideRatio = refs.SideRatio });
@@ -229,15 +228,15 @@ public sealed class DocumentBinder
     /// </summary>
     /// A CT's own keys (a burden in VA) refer to that CT.
     public static string CtOf(string settingPath, string? groundConnection) =>
-        settingPath.StartsWith("transformers.ground_ct.", StringComparison.Ordinal)
-        || (settingPath.StartsWith("protection.ground_fault.", StringComparison.Ordinal) && groundConnection != "residual")
+        settingPath.StartsWith(SchemaPaths.Motor.GroundCt + ".", StringComparison.Ordinal)
+        || (settingPath.StartsWith(SchemaPaths.Motor.GroundFault + ".", StringComparison.Ordinal) && groundConnection != "residual")
             ? SettingReferences.GroundCt : SettingReferences.PhaseCt;
 
     // Looked up once the values are bound, once per transformer, for every setting that converts through it.
     private SettingReferences.ByTransformer _references;
 
     private ConversionReferences References(string path, bool voltage) =>
-        _references.Get(new Values(_values), (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value, path, voltage);
+        _references.Get(new Values(_values), (_values.GetValueOrDefault(SchemaPaths.Motor.GroundCtConnection) as TextValue)?.Value, path, voltage);
 
     private readonly struct Values(Dictionary<string, BoundValue> values) : SettingReferences.INumbers
     {
@@ -246,30 +245,30 @@ public sealed class DocumentBinder
 
     private IEnumerable<string> ReferencePaths(string path, UnitBasis basis, bool voltage)
     {
-        var ct = CtOf(path, (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var ct = CtOf(path, (_values.GetValueOrDefault(SchemaPaths.Motor.GroundCtConnection) as TextValue)?.Value);
         return basis switch
         {
-            UnitBasis.FullLoadCurrent => ["motor.full_load_current"],
+            UnitBasis.FullLoadCurrent => [SchemaPaths.Motor.FullLoadCurrent],
             UnitBasis.CtRating => [ct + ".primary"],
-            UnitBasis.RatedVoltage => ["motor.rated_voltage"],
-            UnitBasis.VtRating => ["transformers.vt.primary"],
+            UnitBasis.RatedVoltage => [SchemaPaths.Motor.RatedVoltage],
+            UnitBasis.VtRating => [SchemaPaths.Motor.VtPrimary],
             UnitBasis.CtSecondaryPower => [ct + ".secondary"],
-            UnitBasis.Secondary when voltage => ["transformers.vt.primary", "transformers.vt.secondary"],
+            UnitBasis.Secondary when voltage => [SchemaPaths.Motor.VtPrimary, SchemaPaths.Motor.VtSecondary],
             _ => [ct + ".primary", ct + ".secondary"],
         };
     }
 
     private string MissingReference(string path, UnitBasis basis, bool voltage)
     {
-        var ct = CtOf(path, (_values.GetValueOrDefault("transformers.ground_ct.connection") as TextValue)?.Value);
+        var ct = CtOf(path, (_values.GetValueOrDefault(SchemaPaths.Motor.GroundCtConnection) as TextValue)?.Value);
         return basis switch
         {
-            UnitBasis.FullLoadCurrent => "xFLC needs motor.full_load_current in amperes",
+            UnitBasis.FullLoadCurrent => $"xFLC needs {SchemaPaths.Motor.FullLoadCurrent} in amperes",
             UnitBasis.CtRating => "xCT needs " + ct + ".primary",
-            UnitBasis.RatedVoltage => "% needs motor.rated_voltage",
-            UnitBasis.VtRating => "xVT needs transformers.vt.primary",
+            UnitBasis.RatedVoltage => $"% needs {SchemaPaths.Motor.RatedVoltage}",
+            UnitBasis.VtRating => $"xVT needs {SchemaPaths.Motor.VtPrimary}",
             UnitBasis.CtSecondaryPower => "a burden in VA needs " + ct + ".secondary (Z = VA / I^2)",
-            UnitBasis.Secondary when voltage => "a secondary voltage needs transformers.vt with primary and secondary",
+            UnitBasis.Secondary when voltage => $"a secondary voltage needs {SchemaPaths.Motor.Vt} with primary and secondary",
             UnitBasis.Secondary => "a secondary current needs " + ct + " with primary and secondary",
             _ => "its reference is missing",
         };

@@ -1,5 +1,6 @@
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Binding;
 
@@ -7,10 +8,10 @@ namespace SettingLint.Core.Binding;
 internal static class SettingReferences
 {
     /// <summary>The key path of the ground CT.</summary>
-    public const string GroundCt = "transformers.ground_ct";
+    public const string GroundCt = SchemaPaths.Motor.GroundCt;
 
     /// <summary>The key path of the phase CT.</summary>
-    public const string PhaseCt = "transformers.phase_ct";
+    public const string PhaseCt = SchemaPaths.Motor.PhaseCt;
 
     /// <summary>A source of bound numbers by key path; a struct, so that looking up references allocates nothing.</summary>
     internal interface INumbers
@@ -25,12 +26,12 @@ internal static class SettingReferences
     internal static ConversionReferences For<T>(T numbers, string? groundConnection, string settingPath, bool voltage)
         where T : INumbers
     {
-        var flc = numbers.Get("motor.full_load_current");
-        var vr = numbers.Get("motor.rated_voltage");
+        var flc = numbers.Get(SchemaPaths.Motor.FullLoadCurrent);
+        var vr = numbers.Get(SchemaPaths.Motor.RatedVoltage);
         if (voltage)
         {
-            var vp = numbers.Get("transformers.vt.primary");
-            var vs = numbers.Get("transformers.vt.secondary");
+            var vp = numbers.Get(SchemaPaths.Motor.VtPrimary);
+            var vs = numbers.Get(SchemaPaths.Motor.VtSecondary);
             return new ConversionReferences(vp is > 0 && vs is > 0 ? vp / vs : null, flc, null, vr, vp is > 0 ? vp : null);
         }
         var ground = DocumentBinder.CtOf(settingPath, groundConnection) == GroundCt;

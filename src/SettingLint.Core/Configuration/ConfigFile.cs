@@ -48,7 +48,7 @@ public sealed record ConfigFile(
         var m = loaded.Root as YMapping;
         if (m is null && loaded.Root is not null && loaded.Root is not YScalar { Type: ScalarType.Null })
         {
-            findings.Add(EngineRules.NotAMapping, loaded.Root.Span, "", "The configuration is a mapping of keys.");
+            findings.Add(EngineMessages.ConfigurationMappingKeys, loaded.Root.Span, "");
         }
         if (m is not null) SchemaValidator.Validate(m, schemas.Get(SchemaSet.Config), findings);
         if (findings.HasAny)

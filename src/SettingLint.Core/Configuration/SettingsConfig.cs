@@ -69,7 +69,7 @@ public sealed record SettingsConfig(
         YMapping? m = loaded.Root as YMapping;
         if (m is null && loaded.Root is not null && !(loaded.Root is YScalar { Type: ScalarType.Null }))
         {
-            findings.Add(EngineRules.NotAMapping, loaded.Root.Span, "", "The configuration is a mapping of keys.");
+            findings.Add(EngineMessages.ConfigurationMappingKeys, loaded.Root.Span, "");
         }
         if (m is not null) SchemaValidator.Validate(m, schemas.Get(SchemaSet.Config), findings);
         var problems = findings.Findings.Select(f => new Notification(NotificationKind.Configuration, "Configuration: " + f.Message, rel, f.Span) { RuleId = f.RuleId, Values = f.Values }).ToList();

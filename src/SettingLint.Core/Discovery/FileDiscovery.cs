@@ -55,8 +55,7 @@ public static class FileDiscovery
             else if (Directory.Exists(full) && !RepositoryRoot.IsInside(root, full))
             {
                 var b = new FindingBuilder(RepositoryRoot.Relative(root, full));
-                b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
-                    "This folder is (or lies in) a symbolic link to {target}, outside the repository root; it is not read.",
+                b.Add(EngineMessages.FolderLiesSymbolicLink, SourceSpan.FileStart, "",
                     ("target", "a path outside the repository"));
                 findings.AddRange(b.Findings);
             }
@@ -133,14 +132,12 @@ public static class FileDiscovery
                 var b = new FindingBuilder(rel);
                 if (outside)
                 {
-                    b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
-                        "This file is a symbolic link to {target}, outside the repository root; it is not followed.",
+                    b.Add(EngineMessages.FileSymbolicLinkOutside, SourceSpan.FileStart, "",
                         ("target", target is null ? "an unreadable target" : "a path outside the repository"));
                 }
                 else
                 {
-                    b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
-                        "This file is a symbolic link to {target}, which does not exist; it is not followed.",
+                    b.Add(EngineMessages.FileSymbolicLinkWhich, SourceSpan.FileStart, "",
                         ("target", RepositoryRoot.Relative(root, target!)));
                 }
                 return (null, b.Findings);
@@ -151,8 +148,7 @@ public static class FileDiscovery
         {
             // Named through a linked folder that points out of the root.
             var b = new FindingBuilder(rel);
-            b.Add(EngineRules.Reference, SourceSpan.FileStart, "",
-                "This file lies in a folder that is a symbolic link to {target}, outside the repository root; it is not read.",
+            b.Add(EngineMessages.FileLiesFolderSymbolic, SourceSpan.FileStart, "",
                 ("target", "a path outside the repository"));
             return (null, b.Findings);
         }

@@ -41,36 +41,31 @@ internal static partial class Acceptances
             var ids = string.Join(" ", c.RuleIds);
             if (c.RuleIds.IsEmpty)
             {
-                problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
-                    "This acceptance names no rule; write the rule ids before the colon, as in '# {marker} SL110: why it is acceptable'.",
+                problems.Add(EngineMessages.AcceptanceNamesRuleWrite, c.Span, c.KeyPath,
                     ("marker", AcceptComments.Marker));
                 continue;
             }
             if (c.Reason is null)
             {
-                problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
-                    "This acceptance of {ids} gives no reason, so it accepts nothing; write the reason after a colon: '# {marker} {ids}: why it is acceptable'.",
+                problems.Add(EngineMessages.AcceptanceGivesReasonSo, c.Span, c.KeyPath,
                     ("ids", ids), ("marker", AcceptComments.Marker));
                 continue;
             }
             if (c.LastLine < c.FirstLine)
             {
-                problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
-                    "This acceptance of {ids} stands before nothing: no YAML follows it.", ("ids", ids));
+                problems.Add(EngineMessages.AcceptanceStandsBeforeNothing, c.Span, c.KeyPath, ("ids", ids));
                 continue;
             }
             foreach (var id in c.RuleIds.Distinct(StringComparer.Ordinal))
             {
                 if (id is EngineRules.Suppression or EngineRules.GateChange)
                 {
-                    problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
-                        "{id} cannot be accepted in the source: it reports on acceptances and on changes to the gate themselves.", ("id", id));
+                    problems.Add(EngineMessages.CannotAcceptedSourceReports, c.Span, c.KeyPath, ("id", id));
                     continue;
                 }
                 if (!RuleId().IsMatch(id) || !knownRules.Contains(id))
                 {
-                    problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
-                        "This acceptance names {id}, which is not a rule of this run (see 'settinglint rules list').", ("id", id));
+                    problems.Add(EngineMessages.AcceptanceNamesWhichRule, c.Span, c.KeyPath, ("id", id));
                     continue;
                 }
                 var matched = false;
@@ -83,8 +78,7 @@ internal static partial class Acceptances
                 }
                 if (!matched && !(dataError && !IsDataRule(id)))
                 {
-                    problems.Add(EngineRules.Suppression, c.Span, c.KeyPath,
-                        "No {id} finding lies on {lines}, which this acceptance covers: it is stale; remove {id} from it, or the whole comment.",
+                    problems.Add(EngineMessages.FindingLiesOnWhich, c.Span, c.KeyPath,
                         ("id", id), ("lines", c.LinesText));
                 }
             }

@@ -214,8 +214,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             var ordered = group.OrderBy(f => f.RelativePath, StringComparer.Ordinal).ToList();
             foreach (var later in ordered.Skip(1))
             {
-                later.Findings.Add(EngineRules.DuplicateTag, later.Document!["tag"]!.Span, "tag",
-                    "The tag '{tag}' is already used by {other}; a tag names one piece of equipment in the repository.",
+                later.Findings.Add(EngineMessages.TagAlreadyUsedBy, later.Document!["tag"]!.Span, "tag",
                     ("tag", group.Key), ("other", ordered[0].RelativePath));
             }
         }
@@ -261,16 +260,14 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         if (kindNode is null)
         {
             var near = loaded.MisspeltKindKey;
-            s.Findings.Add(EngineRules.MissingKey, near?.Span ?? SourceSpan.FileStart, "kind",
-                "The required key 'kind' is missing{hint}; a setting file starts with kind ({kinds}) and format.",
+            s.Findings.Add(EngineMessages.RequiredKeyKindMissing, near?.Span ?? SourceSpan.FileStart, "kind",
                 ("hint", near is null ? "" : " ('" + near.Value + "' here looks like it)"), ("kinds", string.Join(", ", SchemaSet.SettingKinds)));
             s.Kind = "";
             return;
         }
         if (kindNode is not YScalar { Type: ScalarType.String } kindScalar || !SchemaSet.SettingKinds.Contains(kindScalar.Value))
         {
-            s.Findings.Add(EngineRules.KindOrFormat, kindNode?.Span ?? SourceSpan.FileStart, "kind",
-                "Unknown kind {kind}; a setting file is one of {kinds}.",
+            s.Findings.Add(EngineMessages.UnknownKindSettingFile, kindNode?.Span ?? SourceSpan.FileStart, "kind",
                 ("kind", kindNode is YScalar ks ? "'" + ks.Value + "'" : kindNode?.Describe() ?? "(none)"),
                 ("kinds", string.Join(", ", SchemaSet.SettingKinds)));
             s.Kind = "";
@@ -279,13 +276,11 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var formatEntry = root.Find("format");
         if (formatEntry is null)
         {
-            s.Findings.Add(EngineRules.MissingKey, root.Find("kind")!.Key.Span, "format",
-                "The required key 'format' is missing; this version reads format 1.");
+            s.Findings.Add(EngineMessages.RequiredKeyFormatMissing, root.Find("kind")!.Key.Span, "format");
         }
         else if (formatEntry.Value is not YScalar { Type: ScalarType.Int, Value: "1" })
         {
-            s.Findings.Add(EngineRules.KindOrFormat, formatEntry.Value.Span, "format",
-                "Unknown format {format}; this version of SettingLint reads format 1.",
+            s.Findings.Add(EngineMessages.UnknownFormatVersionSettinglint, formatEntry.Value.Span, "format",
                 ("format", formatEntry.Value is YScalar fs ? "'" + fs.Value + "'" : formatEntry.Value.Describe()));
             s.Kind = "";
             return;

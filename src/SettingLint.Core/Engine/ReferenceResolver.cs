@@ -31,53 +31,53 @@ internal sealed class ReferenceResolver<[DynamicallyAccessedMembers(DynamicallyA
         var text = reference.Value;
         if (Path.IsPathRooted(text) || text.Contains('\0', StringComparison.Ordinal))
         {
-            Add(findings, reference, "'{path}' is an absolute path; a reference is relative to the file that makes it, inside the repository.", text);
+            Add(findings, reference, EngineMessages.ReferenceAbsolute, text);
             return null;
         }
         var dir = Path.GetDirectoryName(from.Path) ?? _root;
         var full = Path.GetFullPath(Path.Combine(dir, text));
         if (!RepositoryRoot.Contains(_root, full))
         {
-            Add(findings, reference, "'{path}' lies outside the repository root; it is not read.", text);
+            Add(findings, reference, EngineMessages.ReferenceOutsideRoot, text);
             return null;
         }
         var problem = _targetKinds.GetOrAdd(full, source.Probe);
         if (problem == EntryKind.Folder)
         {
-            Add(findings, reference, "'{path}' is a folder; a reference names a {kind} file.", text, null, expectedKind);
+            Add(findings, reference, EngineMessages.ReferenceIsFolder, text, null, expectedKind);
             return null;
         }
         if (problem == EntryKind.Missing)
         {
-            Add(findings, reference, "'{path}' does not exist (looked for {full}).", text, RepositoryRoot.Relative(_root, full));
+            Add(findings, reference, EngineMessages.ReferenceMissing, text, RepositoryRoot.Relative(_root, full));
             return null;
         }
         if (problem == EntryKind.LinkOutside)
         {
-            Add(findings, reference, "'{path}' leads out of the repository root through a symbolic link; it is not followed.", text);
+            Add(findings, reference, EngineMessages.ReferenceThroughLink, text);
             return null;
         }
         var state = states.GetOrAdd(full, f => new Lazy<TState>(() => load(f, RepositoryRoot.Relative(_root, f)))).Value;
         var doc = bound(state);
         if (doc is null)
         {
-            Add(findings, reference, "'{path}' does not load as a setting file, so the {kind} cannot be used; check that file for its own findings.", text, null, expectedKind);
+            Add(findings, reference, EngineMessages.ReferenceDoesNotLoad, text, null, expectedKind);
             return null;
         }
         if (doc.Kind != expectedKind)
         {
-            Add(findings, reference, "'{path}' is a {actual} file, not a {kind} file.", text, null, expectedKind, doc.Kind);
+            Add(findings, reference, EngineMessages.ReferenceWrongKind, text, null, expectedKind, doc.Kind);
             return null;
         }
         return state;
     }
 
-    private static void Add(FindingBuilder findings, TextValue reference, string template, string path, string? full = null, string? kind = null, string? actual = null)
+    private static void Add(FindingBuilder findings, TextValue reference, EngineMessage message, string path, string? full = null, string? kind = null, string? actual = null)
     {
         var values = new List<(string, FindingValue)> { ("path", path) };
         if (full is not null) values.Add(("full", full));
         if (kind is not null) values.Add(("kind", kind));
         if (actual is not null) values.Add(("actual", actual));
-        findings.Add(EngineRules.Reference, reference.Span, reference.Path, template, [.. values]);
+        findings.Add(message, reference.Span, reference.Path, [.. values]);
     }
 }

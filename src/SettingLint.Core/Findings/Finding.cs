@@ -20,6 +20,15 @@ public sealed record Finding(
     string Template,
     ImmutableSortedDictionary<string, FindingValue> Values)
 {
+    /// <summary>
+    /// Which message of its rule this is: an engine rule has several (<see cref="EngineMessages"/>), a data rule has its
+    /// one message, "default".
+    /// </summary>
+    public string MessageId { get; init; } = DefaultMessageId;
+
+    /// <summary>The id of a data rule's one message.</summary>
+    public const string DefaultMessageId = "default";
+
     /// <summary>The message with its holes filled.</summary>
     public string Message => MessageTemplate.Render(Template, Values);
 

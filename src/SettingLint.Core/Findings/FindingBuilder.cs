@@ -17,13 +17,13 @@ public sealed class FindingBuilder(string file)
 
     public bool HasAny => _findings.Count > 0;
 
-    /// <summary>Adds an engine finding with its named values, given as name/value pairs.</summary>
-    public void Add(string ruleId, SourceSpan span, string keyPath, string template, params (string Name, FindingValue Value)[] values)
+    /// <summary>Adds a finding of an engine rule: its message by id, and the values that fill the message's holes.</summary>
+    public void Add(EngineMessage message, SourceSpan span, string keyPath, params (string Name, FindingValue Value)[] values)
     {
         var dict = ImmutableSortedDictionary.CreateRange(
             StringComparer.Ordinal,
             values.Select(v => KeyValuePair.Create(v.Name, v.Value)));
-        _findings.Add(new Finding(ruleId, EngineRules.Get(ruleId).DefaultLevel, File, span, keyPath, template, dict));
+        _findings.Add(new Finding(message.RuleId, EngineRules.Get(message.RuleId).DefaultLevel, File, span, keyPath, message.Template, dict) { MessageId = message.Id });
     }
 
     /// <summary>Adds a finding made elsewhere (a rule's).</summary>

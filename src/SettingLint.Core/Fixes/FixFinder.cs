@@ -49,9 +49,8 @@ public sealed record SuggestionSet(ImmutableArray<SettingFix> Applied, Immutable
                 new("upper_phrase", SettingWindows.Phrase(up.Op)),
                 new("upper_label", up.Label),
             });
-            found.Add(new Finding(EngineRules.NoCompliantValue, Level.Warning, fix.MotorFile, fix.Span, fix.Setting,
-                "No value of {setting} satisfies every rule on it: {lower_rule} needs it {lower_phrase} {lower} ({lower_label}), {upper_rule} {upper_phrase} {upper} ({upper_label}); the motor data or the scheme must change, not the setting.",
-                values));
+            var message = EngineMessages.NoCompliantValue;
+            found.Add(new Finding(message.RuleId, Level.Warning, fix.MotorFile, fix.Span, fix.Setting, message.Template, values) { MessageId = message.Id });
         }
         return found.ToImmutable();
     }

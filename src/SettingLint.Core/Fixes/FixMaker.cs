@@ -3,6 +3,7 @@ using SettingLint.Core.Binding;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Fixes;
 
@@ -151,11 +152,11 @@ internal static class FixMaker
     /// <summary>The relay model's range of a setting converted to SI for this motor, when it has one.</summary>
     private static (double Min, double Max, double Step)? RangeOf(MotorProtection motor, string setting)
     {
-        const string prefix = "protection.";
+        const string prefix = SchemaPaths.Motor.ProtectionPrefix;
         if (motor.RelayModel is not { } model || !setting.StartsWith(prefix, StringComparison.Ordinal)) return null;
         if (model.RangeOf(setting[prefix.Length..]) is not { } range) return null;
         var voltage = range.Min.Quantity.Unit.Dimension == Dimension.Voltage;
-        var connection = motor.Document.Text("transformers.ground_ct.connection");
+        var connection = motor.Document.Text(SchemaPaths.Motor.GroundCtConnection);
         var refs = SettingReferences.For(new SettingReferences.DocumentNumbers(motor.Document), connection, setting, voltage);
         if (range.Min.Quantity.ToSi(refs) is not { } min || range.Max.Quantity.ToSi(refs) is not { } max) return null;
         var step = range.Step?.Quantity.ToSi(refs) ?? 0;

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Fixes;
 
@@ -12,7 +13,7 @@ namespace SettingLint.Core.Fixes;
 internal static class FixPlanner
 {
     /// <summary>The key paths a fix may edit: the relay's settings, never the motor's data.</summary>
-    public const string SettingPrefix = "protection.";
+    public const string SettingPrefix = SchemaPaths.Motor.ProtectionPrefix;
 
     /// <summary>The fixes of a check, sorted by file and line; those without a value say why.</summary>
     /// <param name="findings">The check's findings.</param>

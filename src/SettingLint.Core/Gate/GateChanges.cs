@@ -60,16 +60,16 @@ internal static class GateChanges
     {
         public List<Finding> Items { get; } = [];
 
-        public void Warn(SourceSpan span, string keyPath, string template, params (string Name, FindingValue Value)[] values) =>
-            Add(Level.Warning, span, keyPath, template, values);
+        public void Warn(SourceSpan span, string keyPath, EngineMessage message, params (string Name, FindingValue Value)[] values) =>
+            Add(Level.Warning, span, keyPath, message, values);
 
         // A parameter or check change may tighten as well as loosen: a note, for the reviewer to judge.
-        public void Note(SourceSpan span, string keyPath, string template, params (string Name, FindingValue Value)[] values) =>
-            Add(Level.Note, span, keyPath, template, values);
+        public void Note(SourceSpan span, string keyPath, EngineMessage message, params (string Name, FindingValue Value)[] values) =>
+            Add(Level.Note, span, keyPath, message, values);
 
-        private void Add(Level level, SourceSpan span, string keyPath, string template, (string Name, FindingValue Value)[] values) =>
-            Items.Add(new Finding(EngineRules.GateChange, level, file, span, keyPath, template,
-                ImmutableSortedDictionary.CreateRange(StringComparer.Ordinal, values.Select(v => KeyValuePair.Create(v.Name, v.Value)))));
+        private void Add(Level level, SourceSpan span, string keyPath, EngineMessage message, (string Name, FindingValue Value)[] values) =>
+            Items.Add(new Finding(message.RuleId, level, file, span, keyPath, message.Template,
+                ImmutableSortedDictionary.CreateRange(StringComparer.Ordinal, values.Select(v => KeyValuePair.Create(v.Name, v.Value)))) { MessageId = message.Id });
     }
 
     private static LoadedFile? Load(string rel, byte[]? bytes) =>
@@ -184,8 +184,7 @@ internal static class GateChanges
         var now = ReadConfig(Load(rel, newBytes));
         if (Strictness(now.FailOn) < Strictness(old.FailOn))
         {
-            found.Warn(now.FailOnSpan ?? SourceSpan.FileStart, "fail_on",
-                "fail_on is now {new} (it was {old}): fewer findings fail the run.",
+            found.Warn(now.FailOnSpan ?? SourceSpan.FileStart, "fail_on", EngineMessages.FailOnFewerFindings,
                 ("new", FailOnToken(now.FailOn)), ("old", FailOnToken(old.FailOn)));
         }
         foreach (var id in old.Rules.Keys.Union(now.Rules.Keys).Order(StringComparer.Ordinal))
@@ -202,11 +201,11 @@ internal static class GateChanges
             var span = n?.Span ?? now.RulesSpan;
             if (nl == Level.None && ol != Level.None)
             {
-                found.Warn(span, "rules." + id, "{id} is switched off (it was {old}): it no longer reports anything.", ("id", id), ("old", ol.Token()));
+                found.Warn(span, "rules." + id, EngineMessages.SwitchedOffLongerReports, ("id", id), ("old", ol.Token()));
             }
             else if (nl < ol)
             {
-                found.Warn(span, "rules." + id, "The severity of {id} is lowered from {old} to {new}.", ("id", id), ("old", ol.Token()), ("new", nl.Token()));
+                found.Warn(span, "rules." + id, EngineMessages.SeverityLoweredFrom, ("id", id), ("old", ol.Token()), ("new", nl.Token()));
             }
             var op = o?.Parameters ?? ImmutableDictionary<string, (string, SourceSpan)>.Empty;
             var np = n?.Parameters ?? ImmutableDictionary<string, (string, SourceSpan)>.Empty;
@@ -215,32 +214,29 @@ internal static class GateChanges
                 var ot = op.TryGetValue(p, out var ov) ? ov.Text : null;
                 var nt = np.TryGetValue(p, out var nv) ? nv.Text : null;
                 if (ot == nt) continue;
-                found.Note(nt is null ? span : nv.Span, "rules." + id + ".parameters." + p,
-                    "The parameter {parameter} of {id} changed from {old} to {new}; check that the change does not loosen the rule.",
+                found.Note(nt is null ? span : nv.Span, "rules." + id + ".parameters." + p, EngineMessages.ParameterChangedFromCheck,
                     ("parameter", p), ("id", id), ("old", ot ?? "the rule's default"), ("new", nt ?? "the rule's default"));
             }
         }
         CompareCode(old, now, found);
         foreach (var (pack, _) in old.Packs.Where(p => !now.Packs.Any(q => q.Text == p.Text)))
         {
-            found.Warn(now.Packs.IsEmpty ? SourceSpan.FileStart : now.Packs[0].Span, "packs",
-                "The rule pack {pack} is no longer used: its rules do not run.", ("pack", pack));
+            found.Warn(now.Packs.IsEmpty ? SourceSpan.FileStart : now.Packs[0].Span, "packs", EngineMessages.RulePackLongerUsed, ("pack", pack));
         }
         foreach (var (glob, span) in now.Exclude.Where(p => !old.Exclude.Any(q => q.Text == p.Text)))
         {
-            found.Warn(span, "exclude", "Files matching {glob} are now excluded: they are no longer checked.", ("glob", glob));
+            found.Warn(span, "exclude", EngineMessages.FilesMatchingExcludedLonger, ("glob", glob));
         }
         if (old.Include.IsEmpty && !now.Include.IsEmpty)
         {
-            found.Warn(now.Include[0].Span, "include", "Only files matching {globs} are checked now (every YAML file was before).",
+            found.Warn(now.Include[0].Span, "include", EngineMessages.OnlyFilesMatchingChecked,
                 ("globs", string.Join(", ", now.Include.Select(i => i.Text))));
         }
         else
         {
             foreach (var (glob, _) in old.Include.Where(p => !now.Include.Any(q => q.Text == p.Text)))
             {
-                found.Warn(now.Include.IsEmpty ? SourceSpan.FileStart : now.Include[0].Span, "include",
-                    "Files matching {glob} are no longer included: they are not checked.", ("glob", glob));
+                found.Warn(now.Include.IsEmpty ? SourceSpan.FileStart : now.Include[0].Span, "include", EngineMessages.FilesMatchingLongerIncluded, ("glob", glob));
             }
         }
     }
@@ -257,13 +253,11 @@ internal static class GateChanges
         (string, FindingValue)[] values = [("new", n ?? "not declared"), ("old", o ?? "not declared")];
         if (n != Model.ElectricalCodes.Nfpa70 && (o is null || o == Model.ElectricalCodes.Nfpa70))
         {
-            found.Warn(span, "electrical_code",
-                "electrical_code is now {new} (it was {old}): the rules of NFPA 70 (SL801) no longer run on some of the motors this file governs.", values);
+            found.Warn(span, "electrical_code", EngineMessages.CodeNoLongerNfpa70, values);
         }
         else
         {
-            found.Note(span, "electrical_code",
-                "electrical_code is now {new} (it was {old}): check which rules of the packs in use stop or start running.", values);
+            found.Note(span, "electrical_code", EngineMessages.CodeChanged, values);
         }
     }
 
@@ -277,16 +271,14 @@ internal static class GateChanges
         var id = (old["id"] as YScalar)?.Value ?? rel;
         if (now is null)
         {
-            found.Warn(SourceSpan.FileStart, "", newBytes is null
-                ? "The rule {id} was deleted from its pack: it no longer runs."
-                : "The rule file of {id} no longer loads: its rule does not run.", ("id", id));
+            found.Warn(SourceSpan.FileStart, "", newBytes is null ? EngineMessages.RuleDeleted : EngineMessages.RuleFileNoLongerLoads, ("id", id));
             return;
         }
         var ol = (old["severity"] as YScalar)?.Value is { } os ? Levels.Parse(os) : null;
         var nl = (now["severity"] as YScalar)?.Value is { } ns ? Levels.Parse(ns) : null;
         if (ol is { } o && nl is { } n && n < o)
         {
-            found.Warn(now["severity"]!.Span, "severity", "The severity of {id} is lowered from {old} to {new}.", ("id", id), ("old", o.Token()), ("new", n.Token()));
+            found.Warn(now["severity"]!.Span, "severity", EngineMessages.SeverityLoweredFrom, ("id", id), ("old", o.Token()), ("new", n.Token()));
         }
         var oldParams = old["parameters"] as YMapping;
         if (now["parameters"] is YMapping np)
@@ -296,16 +288,14 @@ internal static class GateChanges
                 var nd = Text((e.Value as YMapping)?["default"]);
                 var od = Text((oldParams?[e.Key.Value] as YMapping)?["default"]);
                 if (od is null || nd == od) continue;
-                found.Note((e.Value as YMapping)?["default"]?.Span ?? e.Key.Span, "parameters." + e.Key.Value + ".default",
-                    "The default of {parameter} in {id} changed from {old} to {new}; check that the change does not loosen the rule.",
+                found.Note((e.Value as YMapping)?["default"]?.Span ?? e.Key.Span, "parameters." + e.Key.Value + ".default", EngineMessages.DefaultChangedFromCheck,
                     ("parameter", e.Key.Value), ("id", id), ("old", od), ("new", nd ?? "(none)"));
             }
         }
         foreach (var key in (string[])["let", "when", "check", "for_each", "applies_to"])
         {
             if (Canonical(old[key]) == Canonical(now[key])) continue;
-            found.Note(now.Find(key)?.Key.Span ?? SourceSpan.FileStart, key,
-                "The {key} of {id} changed; check that the rule still fires where it should.", ("key", key), ("id", id));
+            found.Note(now.Find(key)?.Key.Span ?? SourceSpan.FileStart, key, EngineMessages.ChangedCheckRuleStill, ("key", key), ("id", id));
         }
     }
 
@@ -339,8 +329,7 @@ internal static class GateChanges
         var old = oldBytes is null ? null : Baseline.Parse(Encoding.UTF8.GetString(oldBytes)).Baseline;
         if (old is null)
         {
-            found.Warn(SourceSpan.At(now.Entries[0].Line, 1), "",
-                "A new baseline accepts {count} findings: they no longer fail the run.",
+            found.Warn(SourceSpan.At(now.Entries[0].Line, 1), "", EngineMessages.NewBaselineAcceptsFindings,
                 ("count", new FindingValue(now.Entries.Length.ToString(System.Globalization.CultureInfo.InvariantCulture), now.Entries.Length, "")));
             return;
         }
@@ -348,8 +337,7 @@ internal static class GateChanges
         foreach (var e in now.Entries)
         {
             if (counts.TryGetValue(e.Fingerprint, out var c) && c > 0) { counts[e.Fingerprint] = c - 1; continue; }
-            found.Warn(SourceSpan.At(e.Line, 1), e.File + "#" + e.KeyPath + "#" + e.RuleId,
-                "The baseline now accepts {id} at {file} {keyPath}: that finding no longer fails the run.",
+            found.Warn(SourceSpan.At(e.Line, 1), e.File + "#" + e.KeyPath + "#" + e.RuleId, EngineMessages.BaselineAcceptsAtFinding,
                 ("id", e.RuleId), ("file", e.File), ("keyPath", e.KeyPath.Length == 0 ? "(the file)" : e.KeyPath));
         }
     }
@@ -378,7 +366,7 @@ internal static class GateChanges
             {
                 var key = id + "\n" + c.Reason;
                 if (before.TryGetValue(key, out var n) && n > 0) { before[key] = n - 1; continue; }
-                found.Warn(c.Span, c.KeyPath, "A new acceptance of {id} on {lines}: '{reason}'. A finding it covers no longer fails the run.",
+                found.Warn(c.Span, c.KeyPath, EngineMessages.NewAcceptanceOnFinding,
                     ("id", id), ("lines", c.LinesText), ("reason", c.Reason!));
             }
         }

@@ -61,7 +61,7 @@ public static class YamlLoader
     private static LoadedFile TooLarge(string path, string relativePath, long size, LoadLimits limits)
     {
         var findings = new FindingBuilder(relativePath);
-        findings.Add(EngineRules.Limit, SourceSpan.FileStart, "", "The file is {size} bytes, over the limit of {limit} bytes; it is not read.",
+        findings.Add(EngineMessages.FileBytesOverLimit, SourceSpan.FileStart, "",
             ("size", Num(size, "B")), ("limit", Num(limits.MaxFileBytes, "B")));
         return new LoadedFile(path, relativePath, null, findings.Findings, []);
     }
@@ -75,7 +75,7 @@ public static class YamlLoader
         if (bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF) offset = 3;
         else if (bytes.Length >= 2 && ((bytes[0] == 0xFE && bytes[1] == 0xFF) || (bytes[0] == 0xFF && bytes[1] == 0xFE)))
         {
-            findings.Add(EngineRules.Syntax, SourceSpan.FileStart, "", "The file is UTF-16; setting files must be UTF-8.");
+            findings.Add(EngineMessages.FileIsUtf16, SourceSpan.FileStart, "");
             return null;
         }
         try
@@ -88,8 +88,7 @@ public static class YamlLoader
             var bytePos = FirstInvalidByte(bytes, offset);
             if (bytePos >= 0) bad = bytePos;
             var (line, column) = PositionOfByte(bytes, offset, bad);
-            findings.Add(EngineRules.Syntax, SourceSpan.At(line, column), "",
-                "The file is not valid UTF-8: byte {offset} (0x{value}) at line {line}, column {column} cannot be decoded.",
+            findings.Add(EngineMessages.NotValidUtf8, SourceSpan.At(line, column), "",
                 ("offset", Num(bad, "B")), ("value", bytes[bad].ToString("X2", System.Globalization.CultureInfo.InvariantCulture)),
                 ("line", Num(line, "")), ("column", Num(column, "")));
             return null;
@@ -125,10 +124,7 @@ public static class YamlLoader
             var lineBreak11 = c is '\u0085' or '\u2028' or '\u2029';
             if (!lineBreak11 && c is '\t' or '\r' or (>= ' ' and <= '~') or (>= '\u00A0' and <= '\uFFFD')) continue;
             var code = ((int)c).ToString("X4", System.Globalization.CultureInfo.InvariantCulture);
-            findings.Add(EngineRules.Syntax, SourceSpan.At(line, i - lineStart + 1), "",
-                lineBreak11
-                    ? "The file contains U+{code} at line {line}, column {column}: a line break in YAML 1.1 but not in 1.2, so tools would disagree on the lines; use a plain line feed."
-                    : "The file contains the control character U+{code} at line {line}, column {column}; YAML does not allow it.",
+            findings.Add(lineBreak11 ? EngineMessages.LineBreakOfYaml11 : EngineMessages.ControlCharacter, SourceSpan.At(line, i - lineStart + 1), "",
                 ("code", code), ("line", Num(line, "")), ("column", Num(i - lineStart + 1, "")));
             return false;
         }
@@ -271,8 +267,7 @@ public static class YamlLoader
                             documents++;
                             if (documents == 2)
                             {
-                                findings.Add(EngineRules.SecondDocument, Span(ev.Start, ev.End), "",
-                                    "A setting file holds one YAML document; a second one starts here and would be ignored.");
+                                findings.Add(EngineMessages.SecondDocumentIgnored, Span(ev.Start, ev.End), "");
                                 // The rest is not read into the tree, but it must still parse: a broken file is never passed silently.
                                 return DrainRest(parser) ? root : null;
                             }
@@ -323,21 +318,18 @@ public static class YamlLoader
                             var name = al.Value.Value;
                             if (_openAnchors.Contains(name))
                             {
-                                findings.Add(EngineRules.Limit, Span(al.Start, al.End), "",
-                                    "The alias *{alias} refers to the node that contains it; a recursive structure is not accepted.", ("alias", name));
+                                findings.Add(EngineMessages.AliasRefersNodeContains, Span(al.Start, al.End), "", ("alias", name));
                                 return null;
                             }
                             if (!_anchors.TryGetValue(name, out var target))
                             {
-                                findings.Add(EngineRules.Syntax, Span(al.Start, al.End), "",
-                                    "The alias *{alias} names no anchor defined before it.", ("alias", name));
+                                findings.Add(EngineMessages.AliasNamesAnchorDefined, Span(al.Start, al.End), "", ("alias", name));
                                 return null;
                             }
                             _expanded = Sat(_expanded + target.Size);
                             if (_expanded > limits.MaxAliasExpansion)
                             {
-                                findings.Add(EngineRules.Limit, Span(al.Start, al.End), "",
-                                    "Aliases expand to more than {limit} nodes (an alias bomb?); the file is not read further.",
+                                findings.Add(EngineMessages.AliasesExpandMoreThan, Span(al.Start, al.End), "",
                                     ("limit", Num(limits.MaxAliasExpansion, "")));
                                 return null;
                             }
@@ -351,15 +343,13 @@ public static class YamlLoader
             catch (YamlException ex)
             {
                 var mark = ex.Start.Line > 0 ? ex.Start : _lastMark;
-                findings.Add(EngineRules.Syntax, SourceSpan.At(Math.Max(1, (int)mark.Line), Math.Max(1, (int)mark.Column)), "",
-                    "YAML syntax error: {detail}", ("detail", Detail(ex)));
+                findings.Add(EngineMessages.YamlSyntaxError, SourceSpan.At(Math.Max(1, (int)mark.Line), Math.Max(1, (int)mark.Column)), "", ("detail", Detail(ex)));
                 return null;
             }
             catch (Exception ex) when (ex is InvalidOperationException or ArgumentException or FormatException)
             {
                 // Some parser faults carry no mark; the last event's position is the best there is.
-                findings.Add(EngineRules.Syntax, SourceSpan.At(Math.Max(1, (int)_lastMark.Line), Math.Max(1, (int)_lastMark.Column)), "",
-                    "YAML syntax error: {detail}", ("detail", ex.Message));
+                findings.Add(EngineMessages.YamlSyntaxError, SourceSpan.At(Math.Max(1, (int)_lastMark.Line), Math.Max(1, (int)_lastMark.Column)), "", ("detail", ex.Message));
                 return null;
             }
             return root;
@@ -379,8 +369,7 @@ public static class YamlLoader
                 if (!CheckNodes(ev)) return false;
                 if (depth > limits.MaxDepth)
                 {
-                    findings.Add(EngineRules.Limit, Span(ev.Start, ev.End), "",
-                        "Nesting is deeper than {limit} levels; the file is not read further.", ("limit", Num(limits.MaxDepth, "")));
+                    findings.Add(EngineMessages.NestingDeeperThanLevels, Span(ev.Start, ev.End), "", ("limit", Num(limits.MaxDepth, "")));
                     return false;
                 }
             }
@@ -400,8 +389,7 @@ public static class YamlLoader
         private bool CheckNodes(ParsingEvent ev)
         {
             if (_nodes <= limits.MaxNodes) return true;
-            findings.Add(EngineRules.Limit, Span(ev.Start, ev.End), "",
-                "The file has more than {limit} nodes; it is not read further.", ("limit", Num(limits.MaxNodes, "")));
+            findings.Add(EngineMessages.TooManyNodes, Span(ev.Start, ev.End), "", ("limit", Num(limits.MaxNodes, "")));
             return false;
         }
 
@@ -410,14 +398,12 @@ public static class YamlLoader
             _nodes++;
             if (_nodes > limits.MaxNodes)
             {
-                findings.Add(EngineRules.Limit, SourceSpan.At((int)start.Line, (int)start.Column), "",
-                    "The file has more than {limit} nodes; it is not read further.", ("limit", Num(limits.MaxNodes, "")));
+                findings.Add(EngineMessages.TooManyNodes, SourceSpan.At((int)start.Line, (int)start.Column), "", ("limit", Num(limits.MaxNodes, "")));
                 return false;
             }
             if (_stack.Count + 1 > limits.MaxDepth)
             {
-                findings.Add(EngineRules.Limit, SourceSpan.At((int)start.Line, (int)start.Column), "",
-                    "Nesting is deeper than {limit} levels; the file is not read further.", ("limit", Num(limits.MaxDepth, "")));
+                findings.Add(EngineMessages.NestingDeeperThanLevels, SourceSpan.At((int)start.Line, (int)start.Column), "", ("limit", Num(limits.MaxDepth, "")));
                 return false;
             }
             if (anchor is not null) _openAnchors.Add(anchor);
@@ -431,8 +417,7 @@ public static class YamlLoader
             var parent = _stack.Peek();
             if (_stack.Count + height - 1 > limits.MaxDepth)
             {
-                findings.Add(EngineRules.Limit, Span(ev.Start, ev.End), "",
-                    "Nesting is deeper than {limit} levels; the file is not read further.", ("limit", Num(limits.MaxDepth, "")));
+                findings.Add(EngineMessages.NestingDeeperThanLevels, Span(ev.Start, ev.End), "", ("limit", Num(limits.MaxDepth, "")));
                 return false;
             }
             parent.Size = Sat(parent.Size + size);
@@ -448,14 +433,13 @@ public static class YamlLoader
                 parent.ExpectKey = false;
                 if (node is not YScalar key)
                 {
-                    findings.Add(EngineRules.KeyNotPlain, node.Span, "", "A key must be a plain word, not {what}.", ("what", node.Describe()));
+                    findings.Add(EngineMessages.KeyMustPlainWord, node.Span, "", ("what", node.Describe()));
                     parent.SkipNextValue = true;
                     return true;
                 }
                 if (parent.FindKey(key.Value) is { } first)
                 {
-                    findings.Add(EngineRules.DuplicateKey, key.Span, key.Value,
-                        "The key '{key}' appears twice in this mapping: first at line {firstLine}, column {firstColumn}, again at line {line}, column {column}; a second value would silently win in most tools.",
+                    findings.Add(EngineMessages.KeyAppearsTwiceMapping, key.Span, key.Value,
                         ("key", key.Value), ("firstLine", Num(first.Span.StartLine, "")), ("firstColumn", Num(first.Span.StartColumn, "")),
                         ("line", Num(key.Span.StartLine, "")), ("column", Num(key.Span.StartColumn, "")));
                     parent.SkipNextValue = true;

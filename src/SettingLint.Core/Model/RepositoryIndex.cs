@@ -3,22 +3,18 @@ using System.Runtime.InteropServices;
 
 namespace SettingLint.Core.Model;
 
-/// <summary>The relations between setting files: a motor's bus, the motors on a bus, the users of a relay model.</summary>
+/// <summary>The relations between setting files: the motors of a run and the motors on each bus.</summary>
 public sealed class RepositoryIndex
 {
-    // Arrays, not immutable arrays, in plain dictionaries: their code is the runtime's own shared code, ready at start,
+    // Arrays, not immutable arrays, in a plain dictionary: their code is the runtime's own shared code, ready at start,
     // and a frozen dictionary costs more to make (once per run) than a run's lookups save. Handed out as immutable arrays.
     private readonly Dictionary<string, MotorProtection[]> _byBus;
-    private readonly Dictionary<string, MotorProtection[]> _byRelayModel;
 
     public RepositoryIndex(IEnumerable<MotorProtection> motors)
     {
         Motors = [.. motors.OrderBy(m => m.Document.RelativePath, StringComparer.Ordinal)];
         _byBus = Motors.Where(m => m.Bus is not null)
             .GroupBy(BusKey, StringComparer.Ordinal)
-            .ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
-        _byRelayModel = Motors.Where(m => m.RelayModel is not null)
-            .GroupBy(m => m.RelayModel!.Document.RelativePath, StringComparer.Ordinal)
             .ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
     }
 
@@ -28,18 +24,6 @@ public sealed class RepositoryIndex
     /// <summary>The motors fed from the same bus as this one, this one included.</summary>
     public ImmutableArray<MotorProtection> MotorsOnBusOf(MotorProtection motor) =>
         motor.Bus is null ? [motor] : _byBus.TryGetValue(BusKey(motor), out var group) ? ImmutableCollectionsMarshal.AsImmutableArray(group) : [motor];
-
-    /// <summary>The other motors on this motor's bus.</summary>
-    public IEnumerable<MotorProtection> OthersOnBus(MotorProtection motor) =>
-        MotorsOnBusOf(motor).Where(m => !ReferenceEquals(m, motor));
-
-    /// <summary>The motors fed from a bus file (relative path).</summary>
-    public ImmutableArray<MotorProtection> MotorsOnBus(string busRelativePath) =>
-        _byBus.TryGetValue(busRelativePath + "#", out var group) ? ImmutableCollectionsMarshal.AsImmutableArray(group) : [];
-
-    /// <summary>The motors that use a relay model file (relative path).</summary>
-    public ImmutableArray<MotorProtection> UsersOf(string relayModelRelativePath) =>
-        _byRelayModel.TryGetValue(relayModelRelativePath, out var users) ? ImmutableCollectionsMarshal.AsImmutableArray(users) : [];
 
     // An inline bus is its motor's own: it is keyed by the motor file so it is shared with no other motor.
     private static string BusKey(MotorProtection m) =>

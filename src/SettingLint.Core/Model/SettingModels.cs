@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Model;
 
@@ -8,22 +9,10 @@ public sealed record Bus(BoundDocument Document)
 {
     public string Tag => Document.Tag;
 
-    public MeasureValue? NominalVoltage => Document.Measure("nominal_voltage");
-
-    public MeasureValue? MaxVoltage => Document.Measure("max_voltage");
-
-    public MeasureValue? FaultCurrentMax => Document.Measure("fault_current_max");
-
-    public MeasureValue? FaultCurrentMin => Document.Measure("fault_current_min");
-
-    public MeasureValue? XOverR => Document.Measure("x_over_r");
-
-    public string? Grounding => Document.Text("grounding");
-
-    public MeasureValue? GroundFaultCurrent => Document.Measure("ground_fault_current");
+    public string? Grounding => Document.Text(SchemaPaths.Bus.Grounding);
 
     /// <summary>The supply frequency in Hz when the bus states one (`frequency: 50 Hz`), else null.</summary>
-    public double? Frequency => Document["frequency"] switch
+    public double? Frequency => Document[SchemaPaths.Bus.Frequency] switch
     {
         MeasureValue m => m.Value,
         // Read from text too, so that the default of the electrical code does not depend on how the key is bound.
@@ -56,24 +45,6 @@ public sealed record MotorProtection(BoundDocument Document, Bus? Bus, RelayMode
     /// <summary>The electrical code that governs the motor (<see cref="ElectricalCodes.Governing"/>); null when none is declared or implied.</summary>
     public string? ElectricalCode { get; init; }
 
-    public MeasureValue? FullLoadCurrent => Document.Measure("motor.full_load_current");
-
-    public MeasureValue? RatedVoltage => Document.Measure("motor.rated_voltage");
-
-    public MeasureValue? LockedRotorCurrent => Document.Measure("motor.locked_rotor_current");
-
-    public MeasureValue? AccelerationTime => Document.Measure("motor.acceleration_time");
-
-    /// <summary>The longest expected acceleration time: acceleration_time_max when given, else acceleration_time.</summary>
-    public MeasureValue? LongestAccelerationTime => Document.Measure("motor.acceleration_time_max") ?? AccelerationTime;
-
-    /// <summary>Whether a protection element is present and enabled.</summary>
-    public bool IsEnabled(string element) => Document.Flag("protection." + element + ".enabled") == true;
-
-    /// <summary>A protection setting in SI units, when present.</summary>
-    public MeasureValue? Setting(string element, string key) => Document.Measure("protection." + element + "." + key);
-
-    /// <summary>Current of a protection setting in primary amperes.</summary>
-    public double? PrimaryAmperes(string element, string key) =>
-        Setting(element, key) is { Dimension: Dimension.Current } m ? m.Value : null;
+    /// <summary>Whether a protection element is present and enabled, by the path of its flag (<see cref="SchemaPaths.Motor.ThermalEnabled"/>).</summary>
+    public bool IsEnabled(string enabledPath) => Document.Flag(enabledPath) == true;
 }

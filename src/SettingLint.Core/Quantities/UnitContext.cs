@@ -1,3 +1,4 @@
+using SettingLint.Core.Documents;
 namespace SettingLint.Core.Quantities;
 
 /// <summary>Where a value stands, which decides the units it may be written in.</summary>
@@ -18,9 +19,9 @@ public static class UnitContexts
 {
     /// <summary>Settings under protection; motor and starter data (which may be xFLC, except FLC and rated voltage themselves); all else data.</summary>
     public static UnitContext Of(string path) =>
-        path.StartsWith("protection.", StringComparison.Ordinal) ? UnitContext.Setting
-        : path.StartsWith("motor.", StringComparison.Ordinal) && path != "motor.full_load_current" && path != "motor.rated_voltage" ? UnitContext.MotorData
-        : path.StartsWith("starter.", StringComparison.Ordinal) ? UnitContext.MotorData
+        path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) ? UnitContext.Setting
+        : path.StartsWith(SchemaPaths.Motor.MotorPrefix, StringComparison.Ordinal) && path != SchemaPaths.Motor.FullLoadCurrent && path != SchemaPaths.Motor.RatedVoltage ? UnitContext.MotorData
+        : path.StartsWith(SchemaPaths.Motor.StarterPrefix, StringComparison.Ordinal) ? UnitContext.MotorData
         : UnitContext.Data;
 }
 

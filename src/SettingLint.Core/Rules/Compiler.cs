@@ -79,6 +79,16 @@ public sealed record Scope(IReadOnlyDictionary<string, (int Index, ExprType Type
 /// <summary>Type-checks expressions against the schemas and compiles them into closures; every error carries its offset.</summary>
 public sealed class Compiler
 {
+    private readonly IReadOnlyDictionary<string, FunctionDef> _functions;
+
+    /// <summary>A compiler over the closed function table.</summary>
+    public Compiler() : this(Functions.All)
+    {
+    }
+
+    /// <summary>A compiler over another table: tests give one with a function that fails.</summary>
+    internal Compiler(IReadOnlyDictionary<string, FunctionDef> functions) => _functions = functions;
+
     // Read with System.Text.Json, so that compiling rules does not wait for the validating schemas. Plain dictionaries:
     // a frozen one costs more to make than the few hundred lookups of compiling a pack save, at every start.
     private readonly Dictionary<string, ExprType> _motorPaths = PathTypes(SchemaSet.MotorProtection);
@@ -306,10 +316,9 @@ public sealed class Compiler
 
     private Compiled CompileCall(Call c, Scope scope)
     {
-        if (c.Name is "others_max" or "others_min" or "others_count") return CompileAggregate(c, scope);
-        if (!Functions.All.TryGetValue(c.Name, out var fn))
+        if (!_functions.TryGetValue(c.Name, out var fn))
         {
-            var near = Suggestions.Nearest(c.Name, Functions.All.Keys.Concat(["others_max", "others_min", "others_count"]));
+            var near = Suggestions.Nearest(c.Name, _functions.Keys);
             throw new RuleSyntaxException($"Unknown function '{c.Name}'" + (near is null ? "." : $"; did you mean '{near}'?"), c.Offset);
         }
         if (c.Args.Length < fn.MinArgs || c.Args.Length > fn.MaxArgs)
@@ -319,8 +328,11 @@ public sealed class Compiler
                 : fn.MinArgs.ToString(System.Globalization.CultureInfo.InvariantCulture) + " to " + fn.MaxArgs.ToString(System.Globalization.CultureInfo.InvariantCulture);
             throw new RuleSyntaxException($"'{c.Name}' takes {want} arguments, not {c.Args.Length}.", c.Offset);
         }
-        if (c.Name == "present" && c.Args[0] is not PathRef) throw new RuleSyntaxException("'present' takes a path.", c.Offset);
-        var args = c.Args.Select(a => Compile(a, scope)).ToArray();
+        if (fn.TakesPath && c.Args.Any(a => a is not PathRef)) throw new RuleSyntaxException($"'{c.Name}' takes a path.", c.Offset);
+        // The expression of a function over the other motors sees another motor, so it may use paths and parameters but
+        // not this rule's lets.
+        var argScope = fn.OverOtherMotors ? scope with { Lets = new Dictionary<string, (int, ExprType, bool)>() } : scope;
+        var args = c.Args.Select(a => Compile(a, argScope)).ToArray();
         ExprType type;
         try
         {
@@ -330,8 +342,9 @@ public sealed class Compiler
         {
             throw new RuleSyntaxException($"'{c.Name}': {ex.Message}.", c.Offset);
         }
+        var percent = fn.Percent == PercentRule.Always || (fn.Percent == PercentRule.AsFirstArgument && args.Length > 0 && args[0].Percent);
+        if (fn.OverOtherMotors) return CompileOverOtherMotors(fn, args, type, c) with { Percent = percent };
         var evals = args;
-        var percent = c.Name == "coverage" || (c.Name is "min" or "max" or "coalesce" or "abs" && args[0].Percent);
         var body = fn.Body;
         var takesAbsent = fn.TakesAbsent;
         return new(type, ctx =>
@@ -342,59 +355,66 @@ public sealed class Compiler
             for (var i = 0; i < evals.Length; i++)
             {
                 values[i] = evals[i].Get(ctx);
-                if (values[i].IsAbsent && !takesAbsent) return Val.Absent;
+                if (values[i].IsAbsent)
+                {
+                    if (!takesAbsent) return Val.Absent;
+                }
+                else if (values[i].Kind == ValKind.Number && !fn.InDomain(i, values[i].Number))
+                {
+                    // Data outside the function's domain (a zero time constant) is a fault the file checks report.
+                    return Val.Absent;
+                }
             }
-            try
-            {
-                var v = body(values);
-                return v.Kind == ValKind.Number && double.IsNaN(v.Number) ? Val.Absent : v;
-            }
-            catch (ArgumentException)
-            {
-                // Data outside a method's domain (a zero time constant) is reported by the file checks, not by a crash here.
-                return Val.Absent;
-            }
+            // An exception from here on is a defect of the tool, not of the data: it is not caught, so that the rule's
+            // evaluation reports it, naming the rule and the motor, and the run exits 3.
+            var v = Call(fn, body, values);
+            return v.Kind == ValKind.Number && double.IsNaN(v.Number) ? Val.Absent : v;
         }, c) { Percent = percent, Operands = args };
     }
 
-    private Compiled CompileAggregate(Call c, Scope scope)
+    private static Val Call(FunctionDef fn, FunctionBody body, ReadOnlySpan<Val> values)
     {
-        if (c.Name == "others_count")
+        try
         {
-            if (c.Args.Length != 0) throw new RuleSyntaxException("'others_count' takes no arguments.", c.Offset);
-            return new(ExprType.Num(Dim.None), ctx => Val.Of(OthersCount(ctx)), c);
+            return body(values);
         }
-        if (c.Args.Length != 1) throw new RuleSyntaxException($"'{c.Name}' takes one expression, evaluated for each other motor on the bus.", c.Offset);
-        // The inner expression sees another motor, so it may use paths and parameters but not this rule's lets.
-        var inner = Compile(c.Args[0], scope with { Lets = new Dictionary<string, (int, ExprType, bool)>() });
-        if (inner.Type.Kind != ValKind.Number) throw new RuleSyntaxException($"'{c.Name}' takes a number expression, not {inner.Type}.", c.Offset);
-        var f = inner.Eval;
-        var max = c.Name == "others_max";
+        catch (Exception ex) when (ex is not OutOfMemoryException and not FunctionFailedException)
+        {
+            throw new FunctionFailedException(fn.Name, ex);
+        }
+    }
+
+    private static Compiled CompileOverOtherMotors(FunctionDef fn, Compiled[] args, ExprType type, Call c)
+    {
+        // Without an expression each other motor counts as one value (others_count).
+        var f = args.Length == 0 ? One : args[0].Eval;
+        var body = fn.Body;
         var node = new object();
-        return new(inner.Type, ctx =>
+        return new(type, ctx =>
         {
             var group = ctx.Index.MotorsOnBusOf(ctx.Motor);
             // The expression's value for each motor of a bus is the same for every motor that asks: computed once per bus per run.
             var cached = ctx.Run?.OnBus(node, ctx, group, f);
-            double? best = null;
+            var buffer = default(ArgBuffer);
+            var values = group.Length <= ArgBuffer.Size ? ((Span<Val>)buffer)[..group.Length] : new Val[group.Length];
+            var n = 0;
             for (var j = 0; j < group.Length; j++)
             {
                 if (ReferenceEquals(group[j], ctx.Motor)) continue;
                 var v = cached is null ? f(ctx.For(group[j])) : cached.Get(j);
-                if (v.IsAbsent) continue;
-                best = best is null ? v.Number : max ? Math.Max(best.Value, v.Number) : Math.Min(best.Value, v.Number);
+                if (!v.IsAbsent) values[n++] = v;
             }
-            return best is null ? Val.Absent : Val.Of(best.Value);
-        }, c) { Percent = inner.Percent };
+            return Call(fn, body, values[..n]);
+        }, c);
     }
 
-    private static int OthersCount(EvalContext ctx)
-    {
-        var n = 0;
-        foreach (var m in ctx.Index.MotorsOnBusOf(ctx.Motor))
-        {
-            if (!ReferenceEquals(m, ctx.Motor)) n++;
-        }
-        return n;
-    }
+    private static readonly Func<EvalContext, Val> One = static _ => Val.Of(1);
+}
+
+/// <summary>A function of the rule language threw: a defect of the tool, which the run reports naming the rule, the motor and the function.</summary>
+internal sealed class FunctionFailedException(string function, Exception inner)
+    : Exception($"the function {function} failed: {inner.Message}", inner)
+{
+    /// <summary>The function's name as rules write it.</summary>
+    public string Function { get; } = function;
 }

@@ -143,7 +143,7 @@ internal static class RuleExpressions
     /// <summary>Whether an expression has an aggregate in it; the expression that stands for an unknown check counts as one.</summary>
     public static bool HasAggregate(Expr e) => e switch
     {
-        Call c => c.Name.Length == 0 || c.Name.StartsWith("others_", StringComparison.Ordinal) || c.Args.Any(HasAggregate),
+        Call c => c.Name.Length == 0 || (Functions.All.TryGetValue(c.Name, out var fn) && fn.OverOtherMotors) || c.Args.Any(HasAggregate),
         Unary u => HasAggregate(u.Operand),
         Binary b => HasAggregate(b.Left) || HasAggregate(b.Right),
         _ => false,

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Model;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Rules;
 
@@ -98,7 +99,7 @@ internal static class MissingData
     /// <summary>A missing motor path: a gap, unless it is a setting of an element that is absent or out of service.</summary>
     private static (Kind, string) MotorPath(MotorProtection motor, string path)
     {
-        const string protection = "protection.";
+        const string protection = SchemaPaths.Motor.ProtectionPrefix;
         if (path.StartsWith(protection, StringComparison.Ordinal))
         {
             var dot = path.IndexOf('.', protection.Length);

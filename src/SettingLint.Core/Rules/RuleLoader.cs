@@ -22,6 +22,9 @@ public sealed class RuleLoader(SchemaSet schemas)
 {
     private readonly Compiler _compiler = new();
 
+    /// <summary>A loader whose rules call another function table: tests give one with a function that fails.</summary>
+    internal RuleLoader(SchemaSet schemas, IReadOnlyDictionary<string, FunctionDef> functions) : this(schemas) => _compiler = new Compiler(functions);
+
     // The built-in pack does not depend on the repository: it is compiled once per process, and a command can start
     // that at once (Warm) so that it overlaps with the command line, the configuration and the first files.
     private static readonly Lazy<Task<RuleLoadResult>> SharedBuiltIn =
@@ -159,7 +162,7 @@ public sealed class RuleLoader(SchemaSet schemas)
         }
         else if (!findings.HasAny)
         {
-            findings.Add(EngineRules.NotAMapping, SourceSpan.FileStart, "", "A rule file is a mapping of keys.");
+            findings.Add(EngineMessages.RuleFileMappingKeys, SourceSpan.FileStart, "");
         }
         if (findings.HasAny)
         {

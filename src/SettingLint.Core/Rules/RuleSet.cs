@@ -4,6 +4,7 @@ using SettingLint.Core.Binding;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Rules;
 
@@ -17,7 +18,7 @@ public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, 
 /// <summary>The compiled rules of a run, applied to every motor.</summary>
 public sealed class RuleSet : IStagedRuleSet
 {
-    private static readonly PathSlot GroundConnection = PathTable.Motor.Of("transformers.ground_ct.connection");
+    private static readonly PathSlot GroundConnection = PathTable.Motor.Of(SchemaPaths.Motor.GroundCtConnection);
 
     // A context kept per thread between motors, so that evaluating a motor allocates nothing but its findings.
     [ThreadStatic]

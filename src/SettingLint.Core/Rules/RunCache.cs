@@ -3,6 +3,7 @@ using System.Collections.Immutable;
 using System.Runtime.CompilerServices;
 using System.Runtime.ExceptionServices;
 using SettingLint.Core.Model;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Rules;
 
@@ -101,7 +102,7 @@ internal sealed class RangeInfo(RelayRange range)
     public string Setting { get; } = range.Setting;
 
     /// <summary>The motor key path the range bounds, such as protection.short_circuit.pickup.</summary>
-    public PathSlot Path { get; } = PathTable.Motor.Of("protection." + range.Setting);
+    public PathSlot Path { get; } = PathTable.Motor.Of(SchemaPaths.Motor.ProtectionPrefix + range.Setting);
 
     /// <summary>The range is of a voltage setting (its references are the VT's).</summary>
     public bool Voltage { get; } = range.Min.Quantity.Unit.Dimension == Quantities.Dimension.Voltage;

@@ -1,3 +1,4 @@
+using SettingLint.Core.Documents;
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 
@@ -22,10 +23,10 @@ public readonly record struct SettingTerms(double Per, string Symbol, Dim Dim)
         ArgumentNullException.ThrowIfNull(subject);
         if (value is not { Dimension: Dimension.Current or Dimension.Voltage }) return null;
         if (value.Dimension == Dimension.Current) return value.SideRatio is { } r ? new SettingTerms(r, "A sec", Dim.Current) : null;
-        var setting = subject.StartsWith("protection.", StringComparison.Ordinal) ? subject["protection.".Length..] : subject;
+        var setting = subject.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) ? subject[SchemaPaths.Motor.ProtectionPrefix.Length..] : subject;
         var basis = motor.RelayModel?.RangeOf(setting)?.Min.Quantity.Unit.Basis ?? value.Written?.Unit.Basis;
-        var rated = motor.Document.Measure("motor.rated_voltage")?.Value;
-        var vtPrimary = motor.Document.Measure("transformers.vt.primary")?.Value;
+        var rated = motor.Document.Measure(SchemaPaths.Motor.RatedVoltage)?.Value;
+        var vtPrimary = motor.Document.Measure(SchemaPaths.Motor.VtPrimary)?.Value;
         return basis switch
         {
             UnitBasis.RatedVoltage when rated is > 0 => new SettingTerms(rated.Value / 100, "%", Dim.Voltage),

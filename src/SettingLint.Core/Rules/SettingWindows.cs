@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Rules;
 
@@ -56,7 +57,7 @@ internal static class CheckBounds
     private static string? PathOf(CompiledRule rule, Expr e, EvalContext ctx, int depth = 0)
     {
         if (e is not PathRef p || depth > 8) return null;
-        if (p.Path == "item.value") return ctx.Item is { } item ? "protection." + item.Setting : null;
+        if (p.Path == "item.value") return ctx.Item is { } item ? SchemaPaths.Motor.ProtectionPrefix + item.Setting : null;
         if (p.Path.StartsWith("param.", StringComparison.Ordinal) || p.Path.StartsWith("item.", StringComparison.Ordinal)
             || p.Path.StartsWith("bus.", StringComparison.Ordinal))
         {

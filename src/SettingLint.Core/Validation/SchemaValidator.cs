@@ -161,14 +161,12 @@ internal static class SchemaValidator
                 var where = ParentOf(path);
                 if (nearest is not null)
                 {
-                    findings.Add(EngineRules.UnknownKey, keySpan, path,
-                        "Unknown key '{key}'{where}; did you mean '{suggestion}'?",
+                    findings.Add(EngineMessages.UnknownKeyDidYou, keySpan, path,
                         ("key", name), ("where", where.Length == 0 ? "" : " in " + where), ("suggestion", nearest));
                 }
                 else
                 {
-                    findings.Add(EngineRules.UnknownKey, keySpan, path,
-                        "Unknown key '{key}'{where}; the known keys here are {known}.",
+                    findings.Add(EngineMessages.UnknownKeyKnownKeys, keySpan, path,
                         ("key", name), ("where", where.Length == 0 ? "" : " in " + where), ("known", string.Join(", ", known)));
                 }
                 return;
@@ -181,8 +179,7 @@ internal static class SchemaValidator
                 // The engine reports a missing `format` itself, before validation; once is enough.
                 if (findings.Findings.Any(f => f.RuleId == EngineRules.MissingKey && f.KeyPath == full)) return;
                 var title = schema.Child(missing) is { Title: { Length: > 0 } t } ? " (" + t + ")" : "";
-                findings.Add(EngineRules.MissingKey, keySpan, full,
-                    "The required key '{key}'{title} is missing{where}.",
+                findings.Add(EngineMessages.RequiredKeyMissing, keySpan, full,
                     ("key", missing), ("title", title), ("where", path.Length == 0 ? "" : " from " + path));
                 return;
             }
@@ -195,11 +192,11 @@ internal static class SchemaValidator
             // A relay-model range ("setting") takes its setting's dimension, which the binder knows: it reports the scalar.
             var dimension = Quantities.Dimensions.Parse(token);
             if (dimension is null && error.Node is YScalar) return;
-            var context = Quantities.UnitContexts.Of(path.StartsWith("ranges.", StringComparison.Ordinal) ? "protection." + path : path);
+            var context = Quantities.UnitContexts.Of(path.StartsWith("ranges.", StringComparison.Ordinal) ? SchemaPaths.Motor.ProtectionPrefix + path : path);
             var problem = error.Node is YScalar { Type: ScalarType.Int or ScalarType.Float } number
                 ? Quantities.QuantityParser.Explain(new Quantities.QuantityParse(null, Quantities.QuantityError.MissingUnit, null), number.Value, dimension ?? Quantities.Dimension.None, context)
                 : "'" + name + "' must be a number and a unit, not " + shown + ".";
-            findings.Add(EngineRules.Unit, valueSpan, path, "{problem}", ("problem", problem));
+            findings.Add(EngineMessages.UnitProblem, valueSpan, path, ("problem", problem));
             return;
         }
         if (expectedType is { } expected)
@@ -214,8 +211,7 @@ internal static class SchemaValidator
                 JsonType.Array => "a list",
                 _ => "empty",
             };
-            findings.Add(EngineRules.WrongType, valueSpan, path,
-                "'{key}' must be {expected}, not {what}.", ("key", name), ("expected", wanted), ("what", shown));
+            findings.Add(EngineMessages.WrongValueType, valueSpan, path, ("key", name), ("expected", wanted), ("what", shown));
             return;
         }
         var detail = error.Kind switch
@@ -227,7 +223,7 @@ internal static class SchemaValidator
             Problem.TooShort => "must not be empty",
             _ => "needs more items",
         };
-        findings.Add(EngineRules.WrongType, valueSpan, path, "'{key}' {detail}; it is {what}.", ("key", name), ("detail", detail), ("what", shown));
+        findings.Add(EngineMessages.ValueOutsideDomain, valueSpan, path, ("key", name), ("detail", detail), ("what", shown));
     }
 
     private static string Bound(double value, bool exclusive, bool upper) =>

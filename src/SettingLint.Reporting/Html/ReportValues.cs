@@ -1,6 +1,7 @@
 using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Reporting.Html;
 
@@ -20,7 +21,7 @@ public static class ReportValues
         var text = CheckNode.Format(value, dim, percent);
         // Only relay settings are read on the secondary side; a motor's own currents are primary values.
         if (subject is { SideRatio: { } r, Dimension: Dimension.Current } && r > 0 && dim == Dim.Current && double.IsFinite(value)
-            && subject.Path.StartsWith("protection.", StringComparison.Ordinal))
+            && subject.Path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal))
         {
             text += withSecondary ? " pri (" + Formats.Number(value / r) + " A sec)" : " pri";
         }

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Model;
 using SettingLint.Protection;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Reporting.Svg;
 
@@ -126,19 +127,19 @@ public sealed record MotorPlotData
         double? Positive(string path) => Num(path) is { } v && v > 0 ? v : null;
         double? NonNegative(string path) => Num(path) is { } v && v >= 0 ? v : null;
         double? BusNum(string path) => motor.Bus?.Document.Measure(path)?.Value is { } v && double.IsFinite(v) && v > 0 ? v : null;
-        var flc = Positive("motor.full_load_current");
-        var thermalOn = motor.IsEnabled("thermal");
-        var scOn = motor.IsEnabled("short_circuit");
-        var gfOn = motor.IsEnabled("ground_fault");
-        var lrc = Positive("motor.locked_rotor_current");
-        var acc = Positive("motor.acceleration_time");
-        var accMax = Positive("motor.acceleration_time_max");
+        var flc = Positive(SchemaPaths.Motor.FullLoadCurrent);
+        var thermalOn = motor.IsEnabled(SchemaPaths.Motor.ThermalEnabled);
+        var scOn = motor.IsEnabled(SchemaPaths.Motor.ShortCircuitEnabled);
+        var gfOn = motor.IsEnabled(SchemaPaths.Motor.GroundFaultEnabled);
+        var lrc = Positive(SchemaPaths.Motor.LockedRotorCurrent);
+        var acc = Positive(SchemaPaths.Motor.AccelerationTime);
+        var accMax = Positive(SchemaPaths.Motor.AccelerationTimeMax);
         var grounding = motor.Bus?.Grounding;
         // The start the thermal rules check, from the protection library's one start profile: a soft start at its
         // current limit, a reduced-voltage start at its lowest voltage for acceleration_time_max, else the locked-rotor start.
-        var limit = d.Text("starter.type") == "soft-starter" ? Positive("starter.soft_start_current_limit") : null;
-        var voltage = Positive("motor.starting_voltage_min") ?? 1;
-        var profile = lrc is { } lr && acc is { } a && (limit is not null || d.Text("starter.type") != "soft-starter")
+        var limit = d.Text(SchemaPaths.Motor.StarterType) == "soft-starter" ? Positive(SchemaPaths.Motor.SoftStartCurrentLimit) : null;
+        var voltage = Positive(SchemaPaths.Motor.StartingVoltageMin) ?? 1;
+        var profile = lrc is { } lr && acc is { } a && (limit is not null || d.Text(SchemaPaths.Motor.StarterType) != "soft-starter")
             ? StartProfile.For(lr, a, accMax, Math.Min(1, voltage), limit)
             : null;
         ImmutableArray<StartStep> Steps(StartPoint? p) => p is null ? [] : [new StartStep(p.Current, p.Duration)];
@@ -154,26 +155,26 @@ public sealed record MotorPlotData
             StartSteps = shaped ? Steps(profile!.Points[0]) : [],
             LongestStartSteps = shaped ? Steps(profile!.Points[^1]) : [],
             StartKind = profile is { IsSoftStart: true } ? "soft-start limit" : reduced ? "reduced-voltage start" : null,
-            AsymmetricalStartCurrent = AsymmetricalStart(lrc, Positive("motor.rated_voltage"), BusNum("max_voltage")),
+            AsymmetricalStartCurrent = AsymmetricalStart(lrc, Positive(SchemaPaths.Motor.RatedVoltage), BusNum(SchemaPaths.Bus.MaxVoltage)),
             AsymmetryFactor = lrc is null ? null : DefaultAsymmetryFactor,
             Grounding = grounding,
-            GroundFaultCurrent = grounding is "low-resistance" or "high-resistance" ? BusNum("ground_fault_current") : null,
-            SafeStallTimeCold = Positive("motor.safe_stall_time_cold"),
-            SafeStallTimeHot = Positive("motor.safe_stall_time_hot"),
-            Thermal = thermalOn ? ThermalOf(Positive("protection.thermal.pickup"), Positive("protection.thermal.time_constant"),
-                Positive("protection.thermal.cooling_time_constant"), Num("protection.thermal.full_load_level")) : null,
-            AccelerationTimer = motor.IsEnabled("acceleration") ? Positive("protection.acceleration.time") : null,
-            ShortCircuitPickup = scOn ? Positive("protection.short_circuit.pickup") : null,
-            ShortCircuitDelay = scOn ? NonNegative("protection.short_circuit.delay") : null,
-            ShortCircuitBlockedAbove = scOn ? Positive("protection.short_circuit.blocked_above") : null,
-            GroundFaultPickup = gfOn ? Positive("protection.ground_fault.pickup") : null,
-            GroundFaultDelay = gfOn ? NonNegative("protection.ground_fault.delay") : null,
-            FaultCurrentMin = BusNum("fault_current_min"),
-            FaultCurrentMax = BusNum("fault_current_max"),
-            InterruptingRating = Positive("starter.interrupting_rating"),
+            GroundFaultCurrent = grounding is "low-resistance" or "high-resistance" ? BusNum(SchemaPaths.Bus.GroundFaultCurrent) : null,
+            SafeStallTimeCold = Positive(SchemaPaths.Motor.SafeStallTimeCold),
+            SafeStallTimeHot = Positive(SchemaPaths.Motor.SafeStallTimeHot),
+            Thermal = thermalOn ? ThermalOf(Positive(SchemaPaths.Motor.ThermalPickup), Positive(SchemaPaths.Motor.ThermalTimeConstant),
+                Positive(SchemaPaths.Motor.ThermalCoolingTimeConstant), Num(SchemaPaths.Motor.ThermalFullLoadLevel)) : null,
+            AccelerationTimer = motor.IsEnabled(SchemaPaths.Motor.AccelerationEnabled) ? Positive(SchemaPaths.Motor.AccelerationTimer) : null,
+            ShortCircuitPickup = scOn ? Positive(SchemaPaths.Motor.ShortCircuitPickup) : null,
+            ShortCircuitDelay = scOn ? NonNegative(SchemaPaths.Motor.ShortCircuitDelay) : null,
+            ShortCircuitBlockedAbove = scOn ? Positive(SchemaPaths.Motor.ShortCircuitBlockedAbove) : null,
+            GroundFaultPickup = gfOn ? Positive(SchemaPaths.Motor.GroundFaultPickup) : null,
+            GroundFaultDelay = gfOn ? NonNegative(SchemaPaths.Motor.GroundFaultDelay) : null,
+            FaultCurrentMin = BusNum(SchemaPaths.Bus.FaultCurrentMin),
+            FaultCurrentMax = BusNum(SchemaPaths.Bus.FaultCurrentMax),
+            InterruptingRating = Positive(SchemaPaths.Motor.InterruptingRating),
             Upstream = UpstreamOf(motor.Bus),
             BusTag = motor.Bus?.Tag,
-            PhaseCtRatio = Positive("transformers.phase_ct.primary") is { } p && Positive("transformers.phase_ct.secondary") is { } s ? p / s : null,
+            PhaseCtRatio = Positive(SchemaPaths.Motor.PhaseCtPrimary) is { } p && Positive(SchemaPaths.Motor.PhaseCtSecondary) is { } s ? p / s : null,
         };
     }
 
@@ -196,12 +197,12 @@ public sealed record MotorPlotData
     {
         if (bus is null) return null;
         var d = bus.Document;
-        if (!CurveTokens.TryParse(d.Text("upstream.curve"), out var curve)) return null;
-        var pickup = d.Measure("upstream.pickup")?.Value;
-        var tms = d.Measure("upstream.time_multiplier")?.Value;
+        if (!CurveTokens.TryParse(d.Text(SchemaPaths.Bus.UpstreamCurve), out var curve)) return null;
+        var pickup = d.Measure(SchemaPaths.Bus.UpstreamPickup)?.Value;
+        var tms = d.Measure(SchemaPaths.Bus.UpstreamTimeMultiplier)?.Value;
         if (pickup is not { } ip || !(ip > 0) || tms is not { } m || !double.IsFinite(m)) return null;
         if (curve == CurveKind.DefiniteTime ? m < 0 : m <= 0) return null;
-        var inst = d.Measure("upstream.instantaneous")?.Value;
+        var inst = d.Measure(SchemaPaths.Bus.UpstreamInstantaneous)?.Value;
         return new OvercurrentSetting(curve, ip, m, inst is { } i && i > 0 ? i : null);
     }
 }

@@ -15,13 +15,6 @@ public sealed record PlotAxis(double Min, double Max, double Start, double End, 
         return Start + (t * (End - Start));
     }
 
-    /// <summary>The value at a pixel: the inverse of <see cref="ToPixel"/>, as tests and readers of the SVG use it.</summary>
-    public double FromPixel(double pixel)
-    {
-        var t = (pixel - Start) / (End - Start);
-        return Log ? Math.Pow(10, Math.Log10(Min) + (t * (Math.Log10(Max) - Math.Log10(Min)))) : Min + (t * (Max - Min));
-    }
-
     /// <summary>Whether a value lies inside the range (with a hair of tolerance for values on the edge).</summary>
     public bool Contains(double value) => double.IsFinite(value) && value >= Min * (1 - 1e-9) && value <= Max * (1 + 1e-9) && (!Log || value > 0);
 

@@ -91,8 +91,7 @@ public sealed class Importer
         if (tagColumn is null)
         {
             var first = table.Rows[headerIndex][0];
-            _problems.Add(EngineRules.MissingKey, first.Region, "tag",
-                "Row {row}: no column is the tag; one column must be headed 'tag' (or be mapped to it): each row is one motor, and its file is named from its tag.",
+            _problems.Add(EngineMessages.RowColumnTagOne, first.Region, "tag",
                 ("row", Number(first.Row)));
             broken = true;
         }
@@ -132,21 +131,19 @@ public sealed class Importer
             if (_keys.Find(path) is not { } key)
             {
                 var near = _keys.Nearest(path);
-                _problems.Add(EngineRules.UnknownKey, cell.Region, path,
-                    "Row {row}, column {column}: the header '{header}' is not a key path of a motor-protection file{hint}. Name a key path (such as motor.full_load_current [A]), or map the header with --map (to a key path or to 'ignore').",
+                _problems.Add(EngineMessages.RowColumnHeaderKey, cell.Region, path,
                     ("row", Number(cell.Row)), ("column", cell.ColumnName), ("header", text), ("hint", near is null ? "" : " (did you mean " + near + "?)"));
                 continue;
             }
             if (byPath.TryGetValue(path, out var earlier))
             {
-                _problems.Add(EngineRules.DuplicateKey, cell.Region, path,
-                    "Row {row}, column {column}: '{path}' is also the header of column {other}; a key takes one column.",
+                _problems.Add(EngineMessages.RowColumnAlsoHeader, cell.Region, path,
                     ("row", Number(cell.Row)), ("column", cell.ColumnName), ("path", path), ("other", earlier.ColumnName));
                 continue;
             }
             if (unit is not null && HeaderText.UnitProblem(key, unit) is { } why)
             {
-                _problems.Add(EngineRules.Unit, cell.Region, path, "Row {row}, column {column}: the unit in the header does not fit: {problem}",
+                _problems.Add(EngineMessages.RowColumnUnitHeader, cell.Region, path,
                     ("row", Number(cell.Row)), ("column", cell.ColumnName), ("problem", why));
                 continue;
             }
@@ -167,8 +164,7 @@ public sealed class Importer
         {
             // The empty tag cell itself when the sheet has it (a CSV row does), else the row's first cell.
             var at = row.FirstOrDefault(c => c.Column == tagColumn.Header.Column) ?? row[0];
-            _problems.Add(EngineRules.MissingKey, at.Region, "tag",
-                "Row {row} has no tag (column {column}); each row is one motor, and its file is named from its tag.",
+            _problems.Add(EngineMessages.RowHasTagColumn, at.Region, "tag",
                 ("row", Number(r)), ("column", tagColumn.Header.ColumnName));
             return null;
         }
@@ -183,8 +179,7 @@ public sealed class Importer
             if (text.Length == 0) continue;
             if (!columns.TryGetValue(cell.Column, out var column))
             {
-                _problems.Add(EngineRules.UnknownKey, cell.Region, "",
-                    "Row {row}, column {column}: '{value}' stands in a column with no usable header.",
+                _problems.Add(EngineMessages.RowColumnStandsColumn, cell.Region, "",
                     ("row", Number(r)), ("column", cell.ColumnName), ("value", text));
                 continue;
             }
@@ -200,8 +195,7 @@ public sealed class Importer
         var name = SheetFiles.FileName(tag);
         if (name is null)
         {
-            _problems.Add(EngineRules.WrongType, tagCell.Region, "tag",
-                "Row {row}, {column}: the tag '{tag}' makes no file name; a tag needs a letter or digit.",
+            _problems.Add(EngineMessages.RowTagMakesFile, tagCell.Region, "tag",
                 ("row", Number(tagCell.Row)), ("column", column), ("tag", tag));
             return null;
         }
@@ -209,8 +203,7 @@ public sealed class Importer
         var target = _options.Update && existing is not null ? existing : Path.Combine(_outDir, name);
         if (seen.TryGetValue(target, out var other))
         {
-            _problems.Add(EngineRules.WrongType, tagCell.Region, "tag",
-                "Row {row}, {column}: the tag '{tag}' is also on row {other}; both rows would be the file {file}.",
+            _problems.Add(EngineMessages.RowTagAlsoOn, tagCell.Region, "tag",
                 ("row", Number(tagCell.Row)), ("column", column), ("tag", tag), ("other", Number(other)), ("file", Relative(target)));
             return null;
         }
@@ -219,15 +212,13 @@ public sealed class Importer
         {
             if (System.IO.File.Exists(target))
             {
-                _problems.Add(EngineRules.WrongType, tagCell.Region, "tag",
-                    "Row {row}, {column}: {file} exists already; import never overwrites a file. Pass --update to change only the values the sheet holds (comments and other keys are kept).",
+                _problems.Add(EngineMessages.RowExistsAlreadyImport, tagCell.Region, "tag",
                     ("row", Number(tagCell.Row)), ("column", column), ("file", Relative(target)));
                 return null;
             }
             if (existing is not null)
             {
-                _problems.Add(EngineRules.WrongType, tagCell.Region, "tag",
-                    "Row {row}, {column}: the tag '{tag}' is already used by {file}; a tag names one piece of equipment in the repository (pass --update to change that file).",
+                _problems.Add(EngineMessages.RowTagAlreadyUsed, tagCell.Region, "tag",
                     ("row", Number(tagCell.Row)), ("column", column), ("tag", tag), ("file", Relative(existing)));
                 return null;
             }
@@ -240,8 +231,7 @@ public sealed class Importer
         var key = column.Key!;
         if ((key.Dimension is not null || key.IsNumber) && SheetNumbers.DecimalComma(text) is { } pointed)
         {
-            _problems.Add(EngineRules.WrongType, cell.Region, key.Path,
-                "Row {row}, {column}: '{value}' has a decimal comma{quoted}; setting files take a decimal point ('{pointed}'). Save the sheet with a point as the decimal separator, or correct the cell.",
+            _problems.Add(EngineMessages.RowHasDecimalComma, cell.Region, key.Path,
                 ("row", Number(cell.Row)), ("column", column.Describe()), ("value", text), ("pointed", pointed),
                 ("quoted", cell.Quoted ? " (a quoted cell)" : ""));
             return null;
@@ -251,8 +241,7 @@ public sealed class Importer
             if (column.Unit is null)
             {
                 var accepted = string.Join(", ", AcceptedUnits.For(dimension, UnitContexts.Of(key.Path)));
-                _problems.Add(EngineRules.Unit, cell.Region, key.Path,
-                    "Row {row}, {column}: '{value}' has no unit; write it in the cell ('{value} {unit}') or once in the header ('{path} [{unit}]'). Units here: {accepted}.",
+                _problems.Add(EngineMessages.RowHasUnitWrite, cell.Region, key.Path,
                     ("row", Number(cell.Row)), ("column", column.Describe()), ("value", text), ("unit", AcceptedUnits.For(dimension, UnitContexts.Of(key.Path))[0]),
                     ("path", key.Path), ("accepted", accepted));
                 return null;
@@ -279,8 +268,7 @@ public sealed class Importer
         if (full is null || !System.IO.File.Exists(full) || RepositoryFiles.KindOf(full) != kind)
         {
             var known = string.Join(", ", _repository.Tags(kind).Take(12));
-            _problems.Add(EngineRules.Reference, cell.Region, key.Path,
-                "Row {row}, {column}: {what}; write the path of a {kind} file relative to the new file, or the tag of one in the repository{known}.",
+            _problems.Add(EngineMessages.RowWritePathFile, cell.Region, key.Path,
                 ("row", Number(cell.Row)), ("column", column.Describe()), ("kind", kind),
                 ("what", isPath ? $"there is no {kind} file at '{text}' (from {Relative(dir)})" : $"no {kind} file in the repository has the tag '{text}'"),
                 ("known", known.Length == 0 ? "" : " (" + known + ")"));
@@ -306,15 +294,14 @@ public sealed class Importer
             catch (InvalidOperationException)
             {
                 var tag = values.First(v => v.Key.Path == "tag").Cell;
-                _problems.Add(EngineRules.Syntax, tag.Region, "tag", "Row {row}: {file} does not load as a YAML mapping; correct it before updating it from the sheet.",
+                _problems.Add(EngineMessages.RowDoesLoadAs, tag.Region, "tag",
                     ("row", Number(row)), ("file", Relative(target)));
                 return null;
             }
             foreach (var path in blocked)
             {
                 var v = values.First(x => x.Key.Path == path);
-                _problems.Add(EngineRules.WrongType, v.Cell.Region, path,
-                    "Row {row}, {column}: {file} holds a mapping or a list on the way to '{path}'; a cell cannot replace it.",
+                _problems.Add(EngineMessages.RowHoldsMappingList, v.Cell.Region, path,
                     ("row", Number(row)), ("column", v.Column.Describe()), ("file", Relative(target)), ("path", path));
             }
             change = text == before ? FileChange.Unchanged : FileChange.Updated;
@@ -346,7 +333,7 @@ public sealed class Importer
         {
             var v = values.FirstOrDefault(x => f.KeyPath == x.Key.Path || f.KeyPath.StartsWith(x.Key.Path + ".", StringComparison.Ordinal));
             if (v is null) continue; // a key the sheet does not hold: `check` reports it after writing
-            _problems.Add(f.RuleId, v.Cell.Region, v.Key.Path, "Row {row}, {column}: {problem}",
+            _problems.Add(EngineMessages.InSheetCell(f.RuleId), v.Cell.Region, v.Key.Path,
                 ("row", Number(v.Cell.Row)), ("column", v.Column.Describe()), ("problem", f.Message));
         }
     }

@@ -15,7 +15,7 @@ namespace SettingLint.Sheets.SettingSheets;
 /// </summary>
 public static class SheetBuilder
 {
-    private const string Protection = "protection.";
+    private const string Protection = SchemaPaths.Motor.ProtectionPrefix;
 
     /// <summary>The rows of the motors, by tag and then in the schema's order.</summary>
     /// <param name="motors">The checked motors.</param>

@@ -2,6 +2,7 @@ using System.Text;
 using System.Text.Json;
 using SettingLint.Core.Validation;
 using SettingLint.Sheets.Import;
+using SettingLint.Core.Documents;
 
 namespace SettingLint.Sheets.Skeleton;
 
@@ -73,9 +74,9 @@ public static class SkeletonWriter
         var keys = string.Join(", ", entry.PropertyList.Select(p => p.Name + ": "));
         Comment(sb, indent, "One entry per setting, keyed as in a motor file's protection section; " + string.Join(" ", entry.PropertyList.Select(p => p.Name + ": " + FirstSentence(p.Schema.Description))));
         var motor = ContractKeys.Of(SchemaSet.MotorProtection);
-        foreach (var key in motor.All.Where(k => k.Path.StartsWith("protection.", StringComparison.Ordinal) && k.Dimension is not null))
+        foreach (var key in motor.All.Where(k => k.Path.StartsWith(SchemaPaths.Motor.ProtectionPrefix, StringComparison.Ordinal) && k.Dimension is not null))
         {
-            sb.Append(' ', indent).Append("# ").Append(key.Path["protection.".Length..]).Append(": { ").Append(keys.TrimEnd()).Append(" }\n");
+            sb.Append(' ', indent).Append("# ").Append(key.Path[SchemaPaths.Motor.ProtectionPrefix.Length..]).Append(": { ").Append(keys.TrimEnd()).Append(" }\n");
         }
     }
 

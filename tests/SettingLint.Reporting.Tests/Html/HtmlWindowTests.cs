@@ -179,7 +179,7 @@ public sealed class HtmlWindowTests
     public void The_demo_windows_include_the_short_circuit_pickup_of_every_motor_with_the_element_on()
     {
         var windows = SettingWindows.Derive(HtmlTestSupport.Demo.Outcomes);
-        foreach (var m in HtmlTestSupport.Demo.Motors.Where(m => m.IsEnabled("short_circuit")))
+        foreach (var m in HtmlTestSupport.Demo.Motors.Where(m => m.IsEnabled(SettingLint.Core.Documents.SchemaPaths.Motor.ShortCircuitEnabled)))
         {
             var w = windows.Single(x => x.MotorFile == m.Document.RelativePath && x.Setting == "protection.short_circuit.pickup");
             Assert.Contains(w.Lower, b => b.RuleId == "SL201");
