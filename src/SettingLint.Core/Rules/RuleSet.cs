@@ -19,7 +19,10 @@ public sealed class RuleSet : IStagedRuleSet
 {
     private static readonly PathSlot GroundConnection = PathTable.Motor.Of("transformers.ground_ct.connection");
 
-    // A context kept per thread between motors, so that evaluating a motor allocates nothing but its findings.
+    // A context kept per thread between motors, so that evaluating a motor allocates nothing but its findings. With the
+    // key-span lists of KeySpans it saves 16 KB of allocation per file (119 against 135 KB at 10,000 motors) and 6 MB of
+    // peak heap after a collection (63 against 69 MB); docs/performance.md. Released after each motor, it holds nothing
+    // of a run, and there is one per thread.
     [ThreadStatic]
     private static EvalContext? t_spare;
 
