@@ -124,7 +124,7 @@ public static class CheckCommand
         if (!options.Staged && options.Suggest && result.Notifications.IsEmpty)
         {
             var session = Session.Open([Path.GetFullPath(paths[0])]);
-            var set = FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf);
+            var set = FixFinder.Compute(session.Rules, result.RepositoryRoot, session.Config.Includes, null, result.Findings, ImmutableHashSet<string>.Empty, session.Config.ElectricalCodeOf, result.LoadedFiles);
             // A conflict stands with the findings on its setting: unchanged from the baseline when they all are.
             var conflicts = set.Conflicts().Select(c =>
             {

@@ -107,13 +107,15 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var states = new ConcurrentDictionary<string, Lazy<FileState>>(StringComparer.Ordinal);
         var limits = options.EffectiveLimits;
         var toLoad = discovery.Files;
-        if (options.Changes is { EverythingBecause: null } planned)
+        IReadOnlyList<string>? planned = null;
+        if (options.Changes is { EverythingBecause: null } changed)
         {
             // Load only what the change can reach, found by a quick read of every file's references.
             var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), limits.MaxFileBytes, options.Parallel);
-            if (planned.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
+            if (changed.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
             {
                 toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
+                planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
             }
         }
         LoadedFile Read(string full, string rel) => source.Load(full, rel, limits);
@@ -202,6 +204,7 @@ public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             NotRun = [.. reported.SelectMany(s => s.Findings.NotRun).Order(CheckNotRun.Order)],
             MotorFiles = [.. motorStates.Select(s => (s.RelativePath, s.Motor!.Tag)).OrderBy(m => m.RelativePath, StringComparer.Ordinal)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
+            LoadedFiles = planned,
         };
     }
 

@@ -106,7 +106,11 @@ public static class FixFinder
     /// <param name="findings">The check's findings.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
     /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
-    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null)
+    /// <param name="within">
+    /// The files the check read when it read fewer than all (<see cref="CheckResult.LoadedFiles"/>): the runs here read
+    /// only these, not every file of the repository again; null reads the repository.
+    /// </param>
+    public static SuggestionSet Compute(RuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules, Func<string, string?>? electricalCode = null, IReadOnlyList<string>? within = null)
     {
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(onlyRules);
@@ -120,7 +124,7 @@ public static class FixFinder
         var outcomes = new ConcurrentQueue<RuleOutcome>();
         var motors = new ConcurrentDictionary<string, MotorProtection>(StringComparer.Ordinal);
         var listening = new RuleSet(rules.Rules) { Outcomes = outcomes.Enqueue, Motors = m => motors.TryAdd(m.Document.RelativePath, m) };
-        Run(listening, root, include, overlay, files, electricalCode);
+        Run(listening, root, include, overlay, files, electricalCode, within);
 
         var texts = new Dictionary<string, SourceText>(StringComparer.Ordinal);
         string? Read(string rel)
@@ -142,7 +146,7 @@ public static class FixFinder
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
             var merged = new OverlaySource(overlay ?? new DiskSource(root), contents);
-            var after = Run(rules, root, include, merged, [.. contents.Keys], electricalCode).Findings;
+            var after = Run(rules, root, include, merged, [.. contents.Keys], electricalCode, within).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
             {
@@ -160,9 +164,10 @@ public static class FixFinder
     }
 
     // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
-    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
+    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource? overlay, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode, IReadOnlyList<string>? within)
     {
         var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
-        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Source: overlay, Changes: changes, ElectricalCode: electricalCode));
+        IReadOnlyList<string> paths = within is null ? [root] : [.. within.Select(rel => SourcePaths.Full(root, rel))];
+        return new Checker(rules).Run(new CheckOptions(paths, Root: root, Include: include, Source: overlay, Changes: changes, ElectricalCode: electricalCode));
     }
 }
