@@ -16,6 +16,13 @@ if (args is ["--floor", var floorDir])
     return 0;
 }
 
+// A generated repository of N motors, left in the temporary folder; its path is printed. For measuring by hand.
+if (args is ["--generate", var count])
+{
+    Console.WriteLine(Generator.Write(int.Parse(count, CultureInfo.InvariantCulture)));
+    return 0;
+}
+
 var sizes = new[] { 100, 1000, 10000 };
 string? cli = null;
 string? hello = null;

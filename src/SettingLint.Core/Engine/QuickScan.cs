@@ -1,6 +1,7 @@
 using System.Collections.Concurrent;
 using System.Collections.Immutable;
 using System.Text;
+using System.Text.Unicode;
 using SettingLint.Core.Discovery;
 
 namespace SettingLint.Core.Engine;
@@ -12,8 +13,6 @@ namespace SettingLint.Core.Engine;
 /// </summary>
 internal static class QuickScan
 {
-    private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
-
     /// <summary>The references of the motor files among <paramref name="files"/>, and the files that could not be read for certain.</summary>
     /// <param name="root">The repository root (absolute).</param>
     /// <param name="files">The discovered files.</param>
@@ -48,40 +47,38 @@ internal static class QuickScan
         }
     }
 
-    // False when unsure; else the motor's references, or no motor for another kind.
+    // False when unsure; else the motor's references, or no motor for another kind. It reads the bytes line by line and
+    // decodes only the values of the three keys it looks for: every file of the repository passes through here.
     private static bool TryScan(string root, DiscoveredFile file, byte[] bytes, out MotorReferences? motor)
     {
         motor = null;
-        string text;
-        try
-        {
-            text = StrictUtf8.GetString(bytes);
-        }
-        catch (DecoderFallbackException)
-        {
-            return false;
-        }
+        if (!Utf8.IsValid(bytes)) return false;
         string? kind = null, bus = null, relay = null;
         bool hasBus = false, hasRelay = false;
-        foreach (var raw in text.Split('\n'))
+        ReadOnlySpan<byte> rest = bytes;
+        while (!rest.IsEmpty)
         {
-            var line = raw.TrimEnd('\r');
-            if (line.Length == 0 || line[0] is ' ' or '\t' or '#') continue;
-            if (line.StartsWith("---", StringComparison.Ordinal) || line.StartsWith("...", StringComparison.Ordinal))
+            var eol = rest.IndexOf((byte)'\n');
+            var line = eol < 0 ? rest : rest[..eol];
+            rest = eol < 0 ? [] : rest[(eol + 1)..];
+            line = line.TrimEnd((byte)'\r');
+            if (line.Length == 0 || line[0] is (byte)' ' or (byte)'\t' or (byte)'#') continue;
+            if (line.StartsWith("---"u8) || line.StartsWith("..."u8))
             {
-                if (line.Trim() is "---" or "...") continue;
+                if (line.Trim(" \t\v\f"u8) is var t && (t.SequenceEqual("---"u8) || t.SequenceEqual("..."u8))) continue;
                 return false;
             }
-            var colon = line.IndexOf(':', StringComparison.Ordinal);
+            var colon = line.IndexOf((byte)':');
             if (colon <= 0) continue;
             var key = line[..colon];
-            if (key is not ("kind" or "bus" or "relay_model")) continue;
-            if (Value(line[(colon + 1)..]) is not { } value) return false;
-            switch (key)
+            var which = key.SequenceEqual("kind"u8) ? 1 : key.SequenceEqual("bus"u8) ? 2 : key.SequenceEqual("relay_model"u8) ? 3 : 0;
+            if (which == 0) continue;
+            if (Value(Encoding.UTF8.GetString(line[(colon + 1)..])) is not { } value) return false;
+            switch (which)
             {
-                case "kind" when kind is null: kind = value; break;
-                case "bus" when !hasBus: bus = value; hasBus = true; break;
-                case "relay_model" when !hasRelay: relay = value; hasRelay = true; break;
+                case 1 when kind is null: kind = value; break;
+                case 2 when !hasBus: bus = value; hasBus = true; break;
+                case 3 when !hasRelay: relay = value; hasRelay = true; break;
                 default: return false; // a duplicate key: the loader reports it
             }
         }

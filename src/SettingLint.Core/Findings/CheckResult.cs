@@ -55,6 +55,13 @@ public sealed record CheckResult(
 
     /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
     public ChangeScope? Scope { get; init; }
+
+    /// <summary>
+    /// The discovered files a changed-files run read, root-relative and sorted, when its quick read of references let it
+    /// read fewer than all; null when it read every discovered file. A second run over the same selection (the fix
+    /// suggestions) reads only these instead of every file of the repository again.
+    /// </summary>
+    public IReadOnlyList<string>? LoadedFiles { get; init; }
 }
 
 /// <summary>A baseline entry with no finding in this run (SARIF baselineState absent).</summary>

@@ -123,8 +123,13 @@ internal static class FixFinder
     /// <param name="outcomes">Every rule outcome of the check.</param>
     /// <param name="motors">The motors the check bound, by root-relative file.</param>
     /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is confirmed under its folder's rules.</param>
+    /// <param name="within">
+    /// The files the check read when it read fewer than all (<see cref="CheckResult.LoadedFiles"/>): the confirming runs
+    /// read only these, not every file of the repository again; null reads the repository.
+    /// </param>
     public static SuggestionSet Compute(RuleSet rules, IFileSource source, Func<string, bool>? include, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules,
-        Func<string, string?>? electricalCode, IEnumerable<RuleOutcome> outcomes, IReadOnlyDictionary<string, MotorProtection> motors, Configuration.ConfigScopes? scopes = null)
+        Func<string, string?>? electricalCode, IEnumerable<RuleOutcome> outcomes, IReadOnlyDictionary<string, MotorProtection> motors, Configuration.ConfigScopes? scopes = null,
+        IReadOnlyList<string>? within = null)
     {
         IRuleSet Scoped(RuleSet r) => scopes is null ? r : new Engine.ScopedRuleSet(r, scopes);
         ArgumentNullException.ThrowIfNull(rules);
@@ -159,7 +164,7 @@ internal static class FixFinder
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
             var merged = new OverlaySource(source, contents);
-            var after = Run(Scoped(rules), root, include, merged, [.. contents.Keys], electricalCode).Findings;
+            var after = Run(Scoped(rules), root, include, merged, [.. contents.Keys], electricalCode, within).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
             {
@@ -177,9 +182,10 @@ internal static class FixFinder
     }
 
     // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
-    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode)
+    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode, IReadOnlyList<string>? within)
     {
         var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
-        return new Checker(rules).Run(new CheckOptions([root], Root: root, Include: include, Source: source, Changes: changes, ElectricalCode: electricalCode));
+        IReadOnlyList<string> paths = within is null ? [root] : [.. within.Select(rel => SourcePaths.Full(root, rel))];
+        return new Checker(rules).Run(new CheckOptions(paths, Root: root, Include: include, Source: source, Changes: changes, ElectricalCode: electricalCode));
     }
 }

@@ -6,6 +6,12 @@ namespace SettingLint.Core.Model;
 /// One string for each key path, shared by every document of the process. Thousands of motor files bind the same
 /// few hundred paths, and a path string per value and file was a third of what a run keeps of each file.
 /// </summary>
+/// <remarks>
+/// What it buys, measured at 10,000 generated motors (in-process harness, JIT build, 2026-12-05, docs/performance.md):
+/// a check allocates 119 KB per file with it and 131 KB without (10 % more work for the collector), and the heap left
+/// after a collection peaks at 63 MB against 66 MB. It is process-wide but bounded: it stops taking paths at
+/// <see cref="Capacity"/> paths (a few MB at most), so that a long-lived host does not grow with the keys people type.
+/// </remarks>
 internal static class KeyPaths
 {
     // Unknown keys make paths too, so the pool stops growing at a size no schema comes near; later paths are kept as they are.

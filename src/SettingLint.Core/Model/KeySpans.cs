@@ -12,6 +12,8 @@ internal sealed class KeySpans
 
     private static readonly Comparison<Entry> ByPath = static (a, b) => string.CompareOrdinal(a.Path, b.Path);
 
+    // Lists kept per thread, cleared after each use (so they hold no document): with RuleSet's spare context they save
+    // 16 KB of allocation per file at 10,000 motors (119 against 135 KB); docs/performance.md.
     [ThreadStatic]
     private static List<Entry>? t_keys;
 
