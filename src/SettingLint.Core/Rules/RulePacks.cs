@@ -144,9 +144,9 @@ public static partial class RulePacks
     public static RuleLoadResult CheckIds(RuleLoadResult loaded, PackManifest? manifest, ImmutableArray<Notification> manifestProblems)
     {
         ArgumentNullException.ThrowIfNull(loaded);
-        var problems = ImmutableArray.CreateBuilder<Notification>();
-        problems.AddRange(manifestProblems);
-        problems.AddRange(loaded.Problems);
+        // A broken manifest leaves the pack's ids unjudged and its rules unloaded: its own problem is the one to fix first.
+        if (!manifestProblems.IsEmpty) return new RuleLoadResult([], [.. manifestProblems, .. loaded.Problems]);
+        var problems = loaded.Problems.ToBuilder();
         var rules = ImmutableArray.CreateBuilder<CompiledRule>();
         foreach (var rule in loaded.Rules)
         {
@@ -157,8 +157,7 @@ public static partial class RulePacks
             }
             rules.Add(rule);
         }
-        // A broken manifest leaves the pack's ids unjudged: its own problem is the one to fix first.
-        return manifestProblems.IsEmpty ? new RuleLoadResult(rules.ToImmutable(), problems.ToImmutable()) : new RuleLoadResult([], problems.ToImmutable());
+        return new RuleLoadResult(rules.ToImmutable(), problems.ToImmutable());
     }
 
     private static string? IdProblem(CompiledRule rule, PackManifest? manifest)
