@@ -20,9 +20,13 @@ public static class RulesCommand
         var id = new Argument<string>("id") { Description = "A rule id such as SL201." };
         var show = new Command("show", "Explain a rule: rationale, basis, parameters with defaults and the values in effect here.") { id };
         show.SetAction(parse => Show(parse.GetValue(id)!, stdout, stderr));
-        var dir = new Argument<string>("dir") { Description = "A rule pack folder or one rule's folder (default: rules).", Arity = ArgumentArity.ZeroOrOne, DefaultValueFactory = _ => "rules" };
+        var dir = new Argument<string?>("dir")
+        {
+            Description = "A rule pack folder or one rule's folder; without it, every pack the configuration here names (the built-in pack's fixtures when its rules/ folder is at the root).",
+            Arity = ArgumentArity.ZeroOrOne,
+        };
         var test = new Command("test", "Run rule fixtures: '# expect: SLnnn' on the line before each expected finding.") { dir };
-        test.SetAction(parse => Test(parse.GetValue(dir) ?? "rules", stdout, stderr));
+        test.SetAction(parse => parse.GetValue(dir) is { } folder ? Test(folder, stdout, stderr) : TestConfigured(stdout, stderr));
         var catalogue = new Command("catalogue", "Print the markdown catalogue of the rules in effect (rules/README.md).");
         catalogue.SetAction(_ =>
         {
@@ -134,6 +138,49 @@ public static class RulesCommand
             foreach (var p in problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
             return ExitCodes.Usage;
         }
+        var failed = Print(results, stdout);
+        stdout.WriteLine($"{results.Length - failed} rules passed, {failed} failed");
+        return failed == 0 ? ExitCodes.Clean : ExitCodes.Findings;
+    }
+
+    /// <summary>
+    /// The fixtures of every pack the configuration here names, in its order. The built-in pack's fixtures are not
+    /// shipped with the tool: they are tested when its source folder (rules/ at the root, as in SettingLint's own
+    /// repository) is there, and said to be skipped otherwise.
+    /// </summary>
+    private static int TestConfigured(TextWriter stdout, TextWriter stderr)
+    {
+        if (Open(stderr) is not { } session) return ExitCodes.Usage;
+        var failed = 0;
+        var total = 0;
+        var broken = false;
+        foreach (var pack in session.Config.Packs)
+        {
+            var folder = pack == RulePacks.BuiltIn ? Path.Combine(session.Root, "rules") : pack;
+            var shown = pack == RulePacks.BuiltIn ? "builtin" : Core.Discovery.RepositoryRoot.Relative(session.Root, pack);
+            if (pack == RulePacks.BuiltIn && !File.Exists(Path.Combine(folder, "SL201", "rule.yaml")))
+            {
+                stdout.WriteLine("pack builtin: its fixtures are not installed with the tool (they are in SettingLint's source, rules/); not tested");
+                continue;
+            }
+            stdout.WriteLine($"pack {shown}:");
+            var (results, problems) = FixtureRunner.Run(folder);
+            if (!problems.IsEmpty)
+            {
+                foreach (var p in problems) stderr.WriteLine(Where(p) + "error: " + p.Message);
+                broken = true;
+                continue;
+            }
+            failed += Print(results, stdout);
+            total += results.Length;
+        }
+        stdout.WriteLine($"{total - failed} rules passed, {failed} failed");
+        return broken ? ExitCodes.Usage : failed == 0 ? ExitCodes.Clean : ExitCodes.Findings;
+    }
+
+    // One line per passing rule, the details of each failing one; returns how many failed.
+    private static int Print(IEnumerable<FixtureResult> results, TextWriter stdout)
+    {
         var failed = 0;
         foreach (var r in results)
         {
@@ -150,7 +197,6 @@ public static class RulesCommand
             foreach (var w in r.WrongNotRun) stdout.WriteLine($"      not run:    {w}");
             foreach (var p in r.Problems) stdout.WriteLine($"      problem:    {p}");
         }
-        stdout.WriteLine($"{results.Length - failed} rules passed, {failed} failed");
-        return failed == 0 ? ExitCodes.Clean : ExitCodes.Findings;
+        return failed;
     }
 }

@@ -76,6 +76,25 @@ public sealed class ConfigCommandTests
             """, run.Stdout);
     }
 
+    // A repository whose configuration lives in a sub-folder (as this one's demo does), checked from its top: the one
+    // outermost file below is the run's root configuration, so its packs and fail_on hold and are not refused as a
+    // folder's. With two side by side, neither is.
+    [Fact]
+    public void Checked_from_above_the_one_outermost_file_below_is_the_root_configuration()
+    {
+        using var repo = new TempRepo();
+        repo.Write("site/.settinglint.yaml", "fail_on: warning\npacks:\n  - builtin\n");
+        repo.Write("site/north/.settinglint.yaml", "electrical_code: IEC 60364\n");
+        var one = Cli.Run("check", repo.Root);
+        Assert.Equal(0, one.Exit);
+        var shown = Cli.Run("config", "show", repo.Root);
+        Assert.Contains("fail_on: warning  (site/.settinglint.yaml:1)", shown.Stdout, StringComparison.Ordinal);
+
+        repo.Write("other/.settinglint.yaml", "electrical_code: NFPA 70\n");
+        shown = Cli.Run("config", "show", repo.Root);
+        Assert.Contains("fail_on: error  (default)", shown.Stdout, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void A_folder_without_a_file_of_its_own_shows_the_roots_values()
     {

@@ -50,7 +50,7 @@ public sealed class GateBaselineTests
     [InlineData("# only comments\n", "'settinglint-baseline 1' is missing")]
     [InlineData("kind: bus\n", "not a SettingLint baseline")]
     [InlineData("settinglint-baseline 1\nSL201 motors/m-1.yaml\n", "four values")]
-    [InlineData("settinglint-baseline 1\nXX201 motors/m-1.yaml a.b 0123\n", "not a rule id")]
+    [InlineData("settinglint-baseline 1\nX201 motors/m-1.yaml a.b 0123\n", "not a rule id")]
     [InlineData("settinglint-baseline 1\nSL201 motors/m-1.yaml a.b 00000000000000000000000000000000\n", "fingerprint does not match")]
     [InlineData("settinglint-baseline 1\nSL201 \"motors/m-1.yaml a.b 0\n", "four values")]
     public void A_broken_baseline_is_refused_at_its_line(string text, string message)

@@ -56,7 +56,25 @@ public sealed record SettingsConfig(
                 if (source.Probe(f) == EntryKind.File) { outermost = f; break; }
             }
         }
+        outermost ??= OnlyOutermostBelow(source, dir);
         return outermost is null ? (Default, []) : Read(source, outermost, schemas);
+    }
+
+    /// <summary>
+    /// A check started above every configuration (the top of a repository whose configuration lives in a sub-folder)
+    /// takes, as its root configuration, the one file below the start that every other lies under: its packs and
+    /// fail_on are those its author wrote for the files it governs. With several side by side, none is the root.
+    /// </summary>
+    private static string? OnlyOutermostBelow(IFileSource source, string dir)
+    {
+        if (source.Probe(dir) != EntryKind.Folder) return null;
+        var rel = Discovery.RepositoryRoot.Relative(source.Root, dir);
+        var folders = (string[])[FileName, ".settinglint.yml"];
+        var found = folders.SelectMany(name => source.FindFiles(rel == "." ? "" : rel, name))
+            .Select(f => (File: f, Folder: f.Contains('/', StringComparison.Ordinal) ? f[..(f.LastIndexOf('/') + 1)] : ""))
+            .ToList();
+        var outer = found.Where(a => !found.Any(b => b.Folder != a.Folder && a.Folder.StartsWith(b.Folder, StringComparison.Ordinal))).ToList();
+        return outer.Count == 1 ? Path.Combine(source.Root, outer[0].File) : null;
     }
 
     private static (SettingsConfig, ImmutableArray<Notification>) Read(IFileSource source, string path, SchemaSet schemas)

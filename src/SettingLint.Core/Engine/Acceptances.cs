@@ -89,6 +89,7 @@ internal static partial class Acceptances
     // SL001-SL009: the engine's checks of the data itself, which run before and apart from the rules.
     private static bool IsDataRule(string id) => string.CompareOrdinal(id, EngineRules.Syntax) >= 0 && string.CompareOrdinal(id, EngineRules.KindOrFormat) <= 0 && id.Length == 5;
 
-    [GeneratedRegex("^SL[0-9]{3}$", RegexOptions.CultureInvariant)]
+    // SLnnn, or a company pack's prefix and three digits (ACME101).
+    [GeneratedRegex("^[A-Z]{2,8}[0-9]{3}$", RegexOptions.CultureInvariant)]
     private static partial Regex RuleId();
 }

@@ -33,12 +33,9 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
         // configuration is read: the two longest steps of a one-file run overlap.
         var builtIn = RuleLoader.CompiledBuiltIn(s);
         var (config, problems) = SettingsConfig.Load(source, checkedPath, s);
-        var results = new List<RuleLoadResult>();
         RuleLoader? folders = null;
-        foreach (var pack in config.Packs)
-        {
-            results.Add(pack == "builtin" ? builtIn.GetAwaiter().GetResult() : (folders ??= new RuleLoader(s)).Load(RuleLoader.FromSource(source, pack)));
-        }
+        // Each pack with its id rules (pack.yaml prefixes, SL reserved); a prefix declared twice stops the run.
+        var results = RulePacks.Load(source, config.Packs, () => builtIn.GetAwaiter().GetResult(), () => folders ??= new RuleLoader(s));
         var merged = RuleLoader.Merge(results);
         var loaded = RuleLoader.Configure(merged, config.Overrides);
         // Asked of the packs as loaded: a rule that its configuration made unusable (a parameter in the wrong unit) is
@@ -86,7 +83,14 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
     /// place where the configuration becomes options, for this session's own run and the gate's.
     /// </summary>
     public CheckOptions Options(IReadOnlyList<string> paths, Level threshold, bool parallel) =>
-        new(paths, threshold, Parallel: parallel, Include: Includes, Root: Root, ElectricalCode: ElectricalCodeOf);
+        new(paths, threshold, Parallel: parallel, Include: Included(), Root: Root, ElectricalCode: ElectricalCodeOf);
+
+    // The configuration's globs, less the fixture folders of its packs (test data of rules, never plant files).
+    private Func<string, bool> Included()
+    {
+        var fixture = RulePacks.FixtureFilter(Root, Config.Packs);
+        return rel => Includes(rel) && !fixture(rel);
+    }
 
     /// <summary>Runs the check of absolute paths on disk without the gate; configuration problems give a result with no findings and exit 2.</summary>
     /// <remarks>Front ends call <c>Linter.Check</c>, which adds the gate, sources and observers; this is the engine's own run.</remarks>

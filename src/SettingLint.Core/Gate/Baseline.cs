@@ -86,7 +86,7 @@ public sealed partial record Baseline(ImmutableArray<BaselineEntry> Entries)
             }
             if (!RuleId().IsMatch(rule))
             {
-                problems.Add(new BaselineProblem(lineNo, $"'{rule}' is not a rule id (SLnnn)."));
+                problems.Add(new BaselineProblem(lineNo, $"'{rule}' is not a rule id (SLnnn, or a pack's prefix and three digits)."));
                 continue;
             }
             if (fingerprint != Fingerprints.Of(file, rule, keyPath))
@@ -176,6 +176,7 @@ public sealed partial record Baseline(ImmutableArray<BaselineEntry> Entries)
         return tokens;
     }
 
-    [GeneratedRegex("^SL[0-9]{3}$", RegexOptions.CultureInvariant)]
+    // SLnnn, or a company pack's prefix and three digits (ACME101).
+    [GeneratedRegex("^[A-Z]{2,8}[0-9]{3}$", RegexOptions.CultureInvariant)]
     private static partial Regex RuleId();
 }

@@ -62,7 +62,8 @@ public static partial class FixtureRunner
         var full = SourcePaths.Absolute(folder, null);
         // The whole pack is loaded, so a marker may name any of its rules; a single rule folder loads the built-in pack beside it.
         var packRoot = File.Exists(Path.Combine(full, "rule.yaml")) ? Path.GetDirectoryName(full)! : full;
-        var loaded = new RuleLoader(s).Load(RuleLoader.FromFolder(packRoot, packRoot));
+        // Loaded as a configured pack is: its pack.yaml prefix (or SLnnn without one) holds here too.
+        var loaded = RuleLoader.Merge(RulePacks.Load(new DiskSource(packRoot), [packRoot], () => new RuleLoadResult([], []), () => new RuleLoader(s)));
         if (!loaded.Problems.IsEmpty) return ([], loaded.Problems);
         var known = loaded.Rules.Select(r => r.Id).Concat(EngineRules.All.Select(r => r.Id)).ToHashSet(StringComparer.Ordinal);
         var ruleSet = new RuleSet(loaded.Rules);

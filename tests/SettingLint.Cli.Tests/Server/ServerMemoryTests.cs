@@ -16,7 +16,8 @@ public sealed class ServerMemoryTests(ITestOutputHelper output)
     {
         using var repo = new SettingLint.Tests.Support.TempRepo();
         var examples = Path.Combine(RepositoryPaths.Root(), "examples");
-        foreach (var rel in (string[])[".settinglint.yaml", "motors/p-202.yaml", "buses/sg-41a.yaml", "models/standard-motor-relay.yaml"])
+        // The demo's configuration names its company pack (firm-rules/) beside the built-in one: it comes along.
+        foreach (var rel in (string[])[".settinglint.yaml", "firm-rules/pack.yaml", "firm-rules/TWE101/rule.yaml", "motors/p-202.yaml", "buses/sg-41a.yaml", "models/standard-motor-relay.yaml"])
         {
             repo.WriteBytes(rel, File.ReadAllBytes(Path.Combine(examples, rel)));
         }
