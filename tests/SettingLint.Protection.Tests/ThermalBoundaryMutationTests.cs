@@ -133,6 +133,8 @@ public sealed class ThermalBoundaryMutationTests
         Assert.Equal(980, p.StallCurrent);
         Assert.True(p.IsSoftStart);
         Assert.Throws<ArgumentOutOfRangeException>(() => StartProfile.For(1960, 20, -1));
+        Assert.False(StartProfile.For(1680, 7, startingVoltage: 0.8).IsSoftStart);
+        Assert.False(StartProfile.For(1680, 7, 12, startingVoltage: 0.8).IsSoftStart);
         Assert.Throws<ArgumentOutOfRangeException>(() => StartProfile.For(1960, -1));
     }
 
@@ -148,8 +150,8 @@ public sealed class ThermalBoundaryMutationTests
     [Fact]
     public void A_start_of_no_duration_has_infinite_room()
     {
-        var trip = new StartTrip(new StartPoint(600, 0), TripTime.After(5));
-        Assert.True(double.IsPositiveInfinity(trip.Ratio));
+        Assert.True(double.IsPositiveInfinity(new StartTrip(new StartPoint(600, 0), TripTime.After(5)).Ratio));
+        Assert.True(double.IsPositiveInfinity(new StartTrip(new StartPoint(600, 0), TripTime.Immediate).Ratio));
         Assert.Equal(2.5, new StartTrip(new StartPoint(600, 2), TripTime.After(5)).Ratio);
     }
 
