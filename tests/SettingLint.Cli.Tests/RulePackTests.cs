@@ -46,6 +46,56 @@ public sealed class RulePackTests
     }
 
     [Fact]
+    public void Every_built_in_rule_has_a_marker_whose_values_are_checked()
+    {
+        // An id-only marker proves that a rule fires, not that it fires with the right numbers: each built-in rule
+        // needs at least one marker whose named values, worked by hand in the fixture's header, the runner compared.
+        var (results, _) = FixtureRunner.Run(Path.Combine(RepositoryPaths.Root(), "rules"));
+        Assert.Equal(RuleLoader.BuiltIn().Count, results.Length);
+        Assert.Empty(results.Where(r => r.OwnCheckedValues == 0).Select(r => r.RuleId));
+    }
+
+    [Fact]
+    public void Values_of_another_rule_do_not_count_as_the_folder_rule_s_own()
+    {
+        // SL805's fixtures mark SL805 with values and SL806 by id only; with SL805's values taken off and one given to
+        // SL806, the folder still passes and checks a value, but none of its own rule.
+        var pack = Path.Combine(Path.GetTempPath(), "sl-own-values-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            // SL806 is copied too, so that the marker names a known rule.
+            foreach (var id in new[] { "SL805", "SL806" })
+            {
+                var rule = Path.Combine(pack, id);
+                Directory.CreateDirectory(Path.Combine(rule, "fixtures"));
+                var source = Path.Combine(RepositoryPaths.Root(), "rules", id);
+                File.Copy(Path.Combine(source, "rule.yaml"), Path.Combine(rule, "rule.yaml"));
+                foreach (var f in Directory.GetFiles(Path.Combine(source, "fixtures")))
+                {
+                    // Every SL805 marker loses its values; the one that also names SL806 gives SL806 a value instead.
+                    var lines = File.ReadAllLines(f).Select(l => l.Contains("# expect: SL805 ", StringComparison.Ordinal)
+                        ? l[..(l.IndexOf("# expect:", StringComparison.Ordinal) + "# expect: SL805".Length)] + (l.EndsWith(" SL806", StringComparison.Ordinal) ? " SL806 actual=5.87 s" : "")
+                        : l);
+                    File.WriteAllLines(Path.Combine(rule, "fixtures", Path.GetFileName(f)), lines);
+                }
+            }
+            var (results, problems) = FixtureRunner.Run(pack);
+            Assert.Empty(problems);
+            var result = Assert.Single(results, r => r.RuleId == "SL805");
+            Assert.True(result.Passed, string.Join("; ", result.WrongValues.Concat(result.Problems)));
+            // IEC 60255-149 hot trip at LRC, 174 s x ln(27.121 / 26.221) = 5.87 s (worked in the fixture's header).
+            Assert.Equal(1, result.CheckedValues);
+            Assert.Equal(0, result.OwnCheckedValues);
+            // SL806's own fixtures, untouched: 5 + 5 + 3 values on its three failing fixtures.
+            Assert.Equal(13, results.Single(r => r.RuleId == "SL806").OwnCheckedValues);
+        }
+        finally
+        {
+            Directory.Delete(pack, true);
+        }
+    }
+
+    [Fact]
     public void A_marker_value_that_differs_from_the_finding_fails_the_fixture()
     {
         // SL805's fixture: IEC 60255-149 cold trip at LRC, 174 s x ln(27.221 / 26.221) = 6.51 s (worked in the fixture's header).

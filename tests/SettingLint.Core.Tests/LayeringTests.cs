@@ -139,7 +139,7 @@ public sealed partial class LayeringTests
 
     private static string FolderOf(string file) => Path.GetRelativePath(CoreFolder, file).Split(Path.DirectorySeparatorChar)[0];
 
-    private static string FindRoot()
+    internal static string FindRoot()
     {
         for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
         {

@@ -32,8 +32,8 @@ public sealed class EngineAdapter
     {
         ArgumentNullException.ThrowIfNull(overlays);
         ArgumentNullException.ThrowIfNull(keep);
-        // Every run reads the configuration and company rule packs from the disk, so a saved change to them applies to
-        // the next run (the built-in pack is compiled once per process).
+        // Every run reads the configuration and company rule packs through the same overlay as the motors, so an
+        // unsaved edit to an open one applies at once, and a saved one too (the built-in pack is compiled once per process).
         var observer = new Keeper(keep);
         var result = Linter.Check(new CheckRequest(root, [checkedPath])
         {

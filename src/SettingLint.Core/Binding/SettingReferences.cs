@@ -4,7 +4,7 @@ using SettingLint.Core.Quantities;
 namespace SettingLint.Core.Binding;
 
 /// <summary>What a protection setting's relative units refer to, read off a bound motor (for relay ranges, which are bound per motor).</summary>
-public static class SettingReferences
+internal static class SettingReferences
 {
     /// <summary>The key path of the ground CT.</summary>
     public const string GroundCt = "transformers.ground_ct";

@@ -132,7 +132,7 @@ public sealed record SettingsConfig(
 }
 
 /// <summary>Glob patterns on root-relative paths: `**` any folders, `*` within a name, `?` one character.</summary>
-public static class Glob
+internal static class Glob
 {
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Regex> Cache = new(StringComparer.Ordinal);
 

@@ -86,7 +86,7 @@ public sealed class YMapping : YNode
 }
 
 /// <summary>A sequence.</summary>
-public sealed class YSequence : YNode
+internal sealed class YSequence : YNode
 {
     public YSequence(ImmutableArray<YNode> items, SourceSpan span)
         : base(span) => Items = items;

@@ -6,7 +6,7 @@ using SettingLint.Core.Loading;
 namespace SettingLint.Core.Engine;
 
 /// <summary>Applies a file's acceptance comments to its findings, and reports faulty or stale ones as SL010.</summary>
-public static partial class Acceptances
+internal static partial class Acceptances
 {
     /// <summary>
     /// The file's findings with <see cref="Finding.Suppression"/> set where an acceptance with a reason covers them,

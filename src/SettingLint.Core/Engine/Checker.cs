@@ -16,7 +16,7 @@ namespace SettingLint.Core.Engine;
 /// The pipeline of one run: discover, load, validate and bind, resolve references, evaluate rules, collect findings.
 /// Each file's work is independent after loading, so files run in parallel; the output order never depends on it.
 /// </summary>
-public sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
+internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 {
     private readonly SchemaSet _schemas = schemas ?? SchemaSet.Shared;
 

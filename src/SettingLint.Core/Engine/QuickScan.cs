@@ -10,7 +10,7 @@ namespace SettingLint.Core.Engine;
 /// parser or schema, so that a changed-files run loads only what a change can reach. A file it cannot read for
 /// certain (a flow document, a quoted key, an anchor, a tag, an escape) is reported as uncertain and loaded anyway.
 /// </summary>
-public static class QuickScan
+internal static class QuickScan
 {
     private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
 

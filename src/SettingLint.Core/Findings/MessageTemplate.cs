@@ -3,7 +3,7 @@ using System.Text;
 namespace SettingLint.Core.Findings;
 
 /// <summary>Fills {name} holes of a message template; an unknown name stays visible rather than vanishing.</summary>
-public static class MessageTemplate
+internal static class MessageTemplate
 {
     /// <summary>Renders a template with its values.</summary>
     public static string Render(string template, IReadOnlyDictionary<string, FindingValue> values)

@@ -11,7 +11,7 @@ namespace SettingLint.Core.Fixes;
 /// rules' own margins, on the relay model's step and inside its range when the motor has one, as close to the present
 /// value as the window allows, and written in the unit and side of the present value.
 /// </summary>
-public static class FixMaker
+internal static class FixMaker
 {
     // Extra digits tried beyond those of the present value when the window is narrower than its last digit.
     private const int MaxExtraDigits = 3;

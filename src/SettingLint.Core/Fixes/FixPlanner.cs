@@ -9,7 +9,7 @@ namespace SettingLint.Core.Fixes;
 /// Chooses the settings to fix from one check's findings and setting windows: a setting a rule has a finding on, in a
 /// motor file with no SL0xx finding (a file the engine could not read whole is never edited), limited to some rules when asked.
 /// </summary>
-public static class FixPlanner
+internal static class FixPlanner
 {
     /// <summary>The key paths a fix may edit: the relay's settings, never the motor's data.</summary>
     public const string SettingPrefix = "protection.";

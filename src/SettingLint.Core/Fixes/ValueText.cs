@@ -3,7 +3,7 @@ using SettingLint.Core.Documents;
 namespace SettingLint.Core.Fixes;
 
 /// <summary>Finds the characters of a value's number in a file's text, so that a fix replaces exactly those.</summary>
-public static class ValueText
+internal static class ValueText
 {
     /// <summary>The offset of a 1-based line and UTF-16 column in a text, or -1 when the text is shorter.</summary>
     public static int Offset(string text, int line, int column)

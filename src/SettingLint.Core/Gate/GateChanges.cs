@@ -14,7 +14,7 @@ namespace SettingLint.Core.Gate;
 /// fail_on, a dropped pack, new exclusions (warnings); any parameter or check change (a note, since its direction
 /// cannot be judged in general); a new acceptance comment or baseline entry (warnings).
 /// </summary>
-public static class GateChanges
+internal static class GateChanges
 {
     /// <summary>The SL011 findings of a change, at their lines on the new side (line 1 of a deleted file).</summary>
     /// <param name="root">The repository root (absolute).</param>

@@ -20,7 +20,7 @@ public sealed record GateOptions(bool Accept = true, string? BaselineFile = null
 }
 
 /// <summary>A check with the gate: the changed files and their dependants, the changes to the gate, then the baseline.</summary>
-public static class GatedCheck
+internal static class GatedCheck
 {
     /// <summary>
     /// Runs the check of a session with the gate's options, reading through a source; problems with git or the

@@ -26,6 +26,9 @@ public sealed record FixtureResult(string RuleId, string Folder, ImmutableArray<
     /// <summary>How many named values the markers checked (and found right).</summary>
     public int CheckedValues { get; init; }
 
+    /// <summary>How many of <see cref="CheckedValues"/> belong to the folder's own rule; the built-in pack requires at least one per rule.</summary>
+    public int OwnCheckedValues { get; init; }
+
     /// <summary>Checks not run for missing data that differ from the `# not-run:` markers, one line each.</summary>
     public ImmutableArray<string> WrongNotRun { get; init; } = [];
 
@@ -141,11 +144,12 @@ public static partial class FixtureRunner
                 problems.Add($"{f.File}:{f.Span.StartLine}:{f.Span.StartColumn}: the fixture itself is not a valid setting file: {f.RuleId} {f.Message}");
             }
         }
-        var (wrong, checkedValues) = CompareValues(result.Findings, expectedValues);
+        var (wrong, checkedValues, ownCheckedValues) = CompareValues(ruleId, result.Findings, expectedValues);
         return new FixtureResult(ruleId, fixtures, missed, unexpected, problems.ToImmutable(), expected.Count)
         {
             WrongValues = wrong,
             CheckedValues = checkedValues,
+            OwnCheckedValues = ownCheckedValues,
             WrongNotRun = CompareNotRun(ruleId, result.NotRun, expectedNotRun),
         };
     }
@@ -169,11 +173,12 @@ public static partial class FixtureRunner
         return wrong.ToImmutable();
     }
 
-    private static (ImmutableArray<string> Wrong, int Checked) CompareValues(
-        ImmutableArray<Finding> findings, Dictionary<FixtureLine, (int MarkerLine, ImmutableArray<MarkerValue> Values)> expectedValues)
+    private static (ImmutableArray<string> Wrong, int Checked, int OwnChecked) CompareValues(
+        string ruleId, ImmutableArray<Finding> findings, Dictionary<FixtureLine, (int MarkerLine, ImmutableArray<MarkerValue> Values)> expectedValues)
     {
         var wrong = ImmutableArray.CreateBuilder<string>();
         var count = 0;
+        var own = 0;
         foreach (var (line, (markerLine, values)) in expectedValues.OrderBy(x => x.Key.File, StringComparer.Ordinal).ThenBy(x => x.Key.Line))
         {
             var onLine = findings.Where(f => f.RuleId == line.RuleId && f.File == line.File && f.Span.StartLine == line.Line).ToList();
@@ -185,12 +190,13 @@ public static partial class FixtureRunner
                 if (got.Any(g => g is not null && v.Matches(g)))
                 {
                     count++;
+                    if (line.RuleId == ruleId) own++;
                     continue;
                 }
                 var shown = got.Where(g => g is not null).Select(g => g!.Number is { } n ? Formats.Number(n) + (string.IsNullOrEmpty(g.Unit) ? "" : " " + g.Unit) + " (" + g.Text + ")" : g!.Text).ToList();
                 wrong.Add($"{line.File}:{markerLine}: {line.RuleId} {v.Name} expected {v.Written}, found " + (shown.Count == 0 ? "no such value" : string.Join(" / ", shown)));
             }
         }
-        return (wrong.ToImmutable(), count);
+        return (wrong.ToImmutable(), count, own);
     }
 }

@@ -4,7 +4,7 @@ using System.Collections.Immutable;
 namespace SettingLint.Core.Loading;
 
 /// <summary>A file's lines, split only when first asked for: most files have no comment anyone reads.</summary>
-public sealed class LazyLines(string text) : IReadOnlyList<string>
+internal sealed class LazyLines(string text) : IReadOnlyList<string>
 {
     private ImmutableArray<string> _lines;
 

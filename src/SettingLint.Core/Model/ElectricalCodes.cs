@@ -1,7 +1,7 @@
 namespace SettingLint.Core.Model;
 
 /// <summary>Which electrical code governs a motor's installation, as the rules read it (`config.electrical_code`).</summary>
-public static class ElectricalCodes
+internal static class ElectricalCodes
 {
     /// <summary>The US National Electrical Code, whose 430.32 limits the overload pickup (SL801).</summary>
     public const string Nfpa70 = "NFPA 70";

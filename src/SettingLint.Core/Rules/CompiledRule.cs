@@ -25,7 +25,7 @@ public abstract record CheckNode
 }
 
 /// <summary>A comparison: left is the actual value, right the limit.</summary>
-public sealed record ComparisonNode(string Op, Compiled Left, Compiled Right) : CheckNode
+internal sealed record ComparisonNode(string Op, Compiled Left, Compiled Right) : CheckNode
 {
     // Decoded once; kept with the text it was decoded from, so that a copy made with 'with' and another Op decodes afresh.
     private readonly (string Op, Comparison Code) _decoded = (Op, Comparisons.Of(Op));
@@ -34,12 +34,12 @@ public sealed record ComparisonNode(string Op, Compiled Left, Compiled Right) : 
     internal Comparison Code => ReferenceEquals(_decoded.Op, Op) ? _decoded.Code : Comparisons.Of(Op);
 }
 
-public sealed record AndNode(CheckNode Left, CheckNode Right) : CheckNode;
+internal sealed record AndNode(CheckNode Left, CheckNode Right) : CheckNode;
 
-public sealed record OrNode(CheckNode Left, CheckNode Right) : CheckNode;
+internal sealed record OrNode(CheckNode Left, CheckNode Right) : CheckNode;
 
 /// <summary>A true/false expression with no numbers to report.</summary>
-public sealed record PlainNode(Compiled Expression) : CheckNode;
+internal sealed record PlainNode(Compiled Expression) : CheckNode;
 
 /// <summary>The evaluated numbers of the comparison that decided a check.</summary>
 /// <param name="Margin">How far inside the limit, in the compared unit: positive passes.</param>

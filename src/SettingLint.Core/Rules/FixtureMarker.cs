@@ -14,7 +14,7 @@ namespace SettingLint.Core.Rules;
 /// <param name="Si">The number in SI units (A primary, V primary, s, fractions), or null for a text value.</param>
 /// <param name="Tolerance">Half a unit of the last digit written, in SI units.</param>
 /// <param name="SiUnit">The SI unit symbol of the marker's unit ("" for a fraction or plain number).</param>
-public sealed record MarkerValue(string Name, string Written, double? Si, double Tolerance, string SiUnit)
+internal sealed record MarkerValue(string Name, string Written, double? Si, double Tolerance, string SiUnit)
 {
     /// <summary>True when the finding's value is the marker's to the precision written.</summary>
     public bool Matches(FindingValue value)
@@ -28,7 +28,7 @@ public sealed record MarkerValue(string Name, string Written, double? Si, double
 }
 
 /// <summary>Reads the text after `expect:`: rule ids, each followed by its named values.</summary>
-public static class FixtureMarker
+internal static class FixtureMarker
 {
     /// <summary>The ids and their values in order; <paramref name="problem"/> says what could not be read.</summary>
     public static ImmutableArray<(string Id, ImmutableArray<MarkerValue> Values)> Parse(string text, out string? problem)

@@ -10,13 +10,13 @@ namespace SettingLint.Core.Rules;
 /// <param name="Type">Checks argument types and gives the result type, or throws with the problem.</param>
 /// <param name="Body">Computes the result from present arguments (absent arguments make the result absent, except for coalesce and present).</param>
 /// <param name="OptionalArgs">For a function that takes absent arguments: the positions (from 0) of the arguments whose absence alone never makes the result absent (hot_level's full-load level), so that a missing optional key is not reported as the reason a rule was not run.</param>
-public sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false, int[]? OptionalArgs = null);
+internal sealed record FunctionDef(string Name, int MinArgs, int MaxArgs, Func<ExprType[], ExprType> Type, FunctionBody Body, bool TakesAbsent = false, int[]? OptionalArgs = null);
 
 /// <summary>A function's body over its evaluated arguments (a span, so that a call needs no array).</summary>
-public delegate Val FunctionBody(ReadOnlySpan<Val> args);
+internal delegate Val FunctionBody(ReadOnlySpan<Val> args);
 
 /// <summary>The closed, explicit table of functions a rule may call. Nothing else is reachable from a rule.</summary>
-public static class Functions
+internal static class Functions
 {
     public static FrozenDictionary<string, FunctionDef> All { get; } = Build().ToFrozenDictionary(f => f.Name, StringComparer.Ordinal);
 

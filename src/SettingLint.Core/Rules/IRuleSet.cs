@@ -5,7 +5,7 @@ using SettingLint.Core.Model;
 namespace SettingLint.Core.Rules;
 
 /// <summary>A compiled set of rules that the engine applies to every motor after binding.</summary>
-public interface IRuleSet
+internal interface IRuleSet
 {
     /// <summary>The rules that can fire, for the outputs' metadata.</summary>
     ImmutableArray<RuleDescriptor> Descriptors { get; }
@@ -20,7 +20,7 @@ public interface IRuleSet
 /// two, a run keeps of each motor only the values the second step reads, so that its memory does not grow with the
 /// size of every motor file. Both steps together give the findings of <see cref="IRuleSet.Evaluate"/>.
 /// </summary>
-public interface IStagedRuleSet : IRuleSet
+internal interface IStagedRuleSet : IRuleSet
 {
     /// <summary>
     /// The key paths of a motor's own document that <see cref="EvaluateAcrossBus"/> reads, for its values and for the
@@ -43,7 +43,7 @@ public interface IStagedRuleSet : IRuleSet
 }
 
 /// <summary>No rules beyond the engine's own file checks.</summary>
-public sealed class EmptyRuleSet : IRuleSet
+internal sealed class EmptyRuleSet : IRuleSet
 {
     public static EmptyRuleSet Instance { get; } = new();
 

@@ -350,7 +350,7 @@ public sealed class RuleLoader(SchemaSet schemas)
 }
 
 /// <summary>A problem in a rule file or its configuration, at a position.</summary>
-public sealed class RuleLoadException(string message, SourceSpan span, string? file = null) : Exception(message)
+internal sealed class RuleLoadException(string message, SourceSpan span, string? file = null) : Exception(message)
 {
     public SourceSpan Span { get; } = span;
 

@@ -7,33 +7,33 @@ namespace SettingLint.Core.Rules;
 /// <summary>An expression of the rule language, as parsed; Offset is its position in the source text.</summary>
 public abstract record Expr(int Offset);
 
-public sealed record NumberLit(int Offset, double Value, Dim Dim) : Expr(Offset)
+internal sealed record NumberLit(int Offset, double Value, Dim Dim) : Expr(Offset)
 {
     /// <summary>Written in percent.</summary>
     public bool Percent { get; init; }
 }
 
-public sealed record TextLit(int Offset, string Value) : Expr(Offset);
+internal sealed record TextLit(int Offset, string Value) : Expr(Offset);
 
-public sealed record BoolLit(int Offset, bool Value) : Expr(Offset);
+internal sealed record BoolLit(int Offset, bool Value) : Expr(Offset);
 
 /// <summary>A dotted path (motor.full_load_current, bus.x_over_r, param.margin) or a bare let name.</summary>
-public sealed record PathRef(int Offset, string Path) : Expr(Offset);
+internal sealed record PathRef(int Offset, string Path) : Expr(Offset);
 
-public sealed record Unary(int Offset, string Op, Expr Operand) : Expr(Offset);
+internal sealed record Unary(int Offset, string Op, Expr Operand) : Expr(Offset);
 
-public sealed record Binary(int Offset, string Op, Expr Left, Expr Right) : Expr(Offset);
+internal sealed record Binary(int Offset, string Op, Expr Left, Expr Right) : Expr(Offset);
 
-public sealed record Call(int Offset, string Name, ImmutableArray<Expr> Args) : Expr(Offset);
+internal sealed record Call(int Offset, string Name, ImmutableArray<Expr> Args) : Expr(Offset);
 
 /// <summary>A syntax or type error in a rule expression, at an offset of its text.</summary>
-public sealed class RuleSyntaxException(string message, int offset) : Exception(message)
+internal sealed class RuleSyntaxException(string message, int offset) : Exception(message)
 {
     public int Offset { get; } = offset;
 }
 
 /// <summary>Parses the rule language: a small Pratt parser with a fixed depth bound.</summary>
-public sealed class ExpressionParser
+internal sealed class ExpressionParser
 {
     /// <summary>The deepest nesting an expression may have.</summary>
     public const int MaxDepth = 32;

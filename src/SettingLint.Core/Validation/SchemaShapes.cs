@@ -2,10 +2,10 @@
 namespace SettingLint.Core.Validation;
 
 /// <summary>The shape of a leaf key as a rule sees it: its JSON type and, for a quantity, its dimension token.</summary>
-public sealed record LeafShape(string Path, string Type, string? Dimension);
+internal sealed record LeafShape(string Path, string Type, string? Dimension);
 
 /// <summary>The leaf keys of an embedded schema with their shapes, which rules are type-checked against.</summary>
-public static class SchemaShapes
+internal static class SchemaShapes
 {
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, IReadOnlyDictionary<string, LeafShape>> Cache = new(StringComparer.Ordinal);
 

@@ -9,7 +9,7 @@ namespace SettingLint.Core.Validation;
 /// finding at the YAML position. It walks the YAML nodes themselves (no JSON copy of the document), which is what
 /// makes validation cheap; its verdicts are compared with a general-purpose JSON Schema library in the tests.
 /// </summary>
-public static class SchemaValidator
+internal static class SchemaValidator
 {
     private enum Problem
     {

@@ -163,6 +163,32 @@ public sealed class LanguageServerTests
     }
 
     [Fact]
+    public async Task An_unsaved_configuration_edit_applies_to_the_open_files_and_undoing_it_restores_them()
+    {
+        using var repo = ServerSession.DemoRepo();
+        var motor = repo.PathOf("motors/p-202.yaml");
+        await using var session = await ServerSession.Start(repo.Root);
+        var onDisk = CheckCodes(repo, "motors/p-202.yaml");
+        await session.Open(motor, File.ReadAllText(motor));
+        Assert.Contains("SL102", Codes(await session.Client.Diagnostics(ServerSession.Uri(motor), 1)));
+
+        // The configuration is edited in the editor and not saved: the motor is checked as the buffer says.
+        var config = repo.PathOf(".settinglint.yaml");
+        var text = File.ReadAllText(config);
+        await session.Open(config, text);
+        var mark = session.Client.Notifications.Count;
+        await session.Change(config, 2, text + "rules:\n  SL102: off\n");
+        Assert.Equal(Without(onDisk, "SL102"), Codes(await session.Client.Diagnostics(ServerSession.Uri(motor), 1, mark)));
+
+        // The edit undone, the finding is back, though nothing was ever written to the disk.
+        mark = session.Client.Notifications.Count;
+        await session.Change(config, 3, text);
+        Assert.Equal(onDisk, Codes(await session.Client.Diagnostics(ServerSession.Uri(motor), 1, mark)));
+        Assert.Equal(text, File.ReadAllText(config));
+        Assert.Equal(0, await session.ShutdownAndExit());
+    }
+
+    [Fact]
     public async Task A_file_that_becomes_clean_gets_empty_diagnostics_and_a_closed_one_is_cleared()
     {
         using var repo = ServerSession.DemoRepo();

@@ -93,25 +93,31 @@ public sealed class RoundTripTests
         Assert.Equal(written, Hashes(fresh.PathOf("motors")));
     }
 
-    [Fact]
-    public void The_demo_motor_list_imports_into_the_demo_motor_files_apart_from_comments()
+    /// <summary>
+    /// Each site of the demo has its motor list: the 60 Hz site at the top and the 50 Hz IEC site in <c>intake/</c>,
+    /// whose lists carry the additions for reduced-voltage and soft starts and IEC CTs (rated burden in VA).
+    /// </summary>
+    [Theory]
+    [InlineData("")]
+    [InlineData("intake/")]
+    public void The_demo_motor_list_imports_into_the_demo_motor_files_apart_from_comments(string site)
     {
         var examples = Path.Combine(RepositoryPaths.Root(), "examples");
         using var repo = new TempRepo();
-        foreach (var folder in (string[])["buses", "models"])
+        foreach (var folder in (string[])["models", site + "buses"])
         {
             foreach (var file in Directory.GetFiles(Path.Combine(examples, folder))) repo.Write(folder + "/" + Path.GetFileName(file), File.ReadAllText(file));
         }
         repo.Write("schema/motor-protection.schema.json", File.ReadAllText(Path.Combine(RepositoryPaths.Root(), "schema", "motor-protection.schema.json")));
-        var list = repo.Write("import/motor-list.csv", File.ReadAllText(Path.Combine(examples, "import", "motor-list.csv")));
-        var run = Cli.Run("import", list, "--out", repo.PathOf("motors"));
+        var list = repo.Write(site + "import/motor-list.csv", File.ReadAllText(Path.Combine(examples, site + "import", "motor-list.csv")));
+        var run = Cli.Run("import", list, "--out", repo.PathOf(site + "motors"));
         Assert.True(run.Exit is 0 or 1 && run.Stderr.Contains(" new, 0 updated", StringComparison.Ordinal), run.ToString());
-        // Whatever motors the demo has, the list must make each of them, and no other.
-        var demo = Directory.GetFiles(Path.Combine(examples, "motors"), "*.yaml").Select(Path.GetFileName).Order(StringComparer.Ordinal).ToList();
-        Assert.Equal(demo, Directory.GetFiles(repo.PathOf("motors"), "*.yaml").Select(Path.GetFileName).Order(StringComparer.Ordinal));
+        // Whatever motors the site has, the list must make each of them, and no other.
+        var demo = Directory.GetFiles(Path.Combine(examples, site + "motors"), "*.yaml").Select(Path.GetFileName).Order(StringComparer.Ordinal).ToList();
+        Assert.Equal(demo, Directory.GetFiles(repo.PathOf(site + "motors"), "*.yaml").Select(Path.GetFileName).Order(StringComparer.Ordinal));
         foreach (var name in demo)
         {
-            Assert.Equal(Values(Path.Combine(examples, "motors", name!)), Values(repo.PathOf("motors/" + name)));
+            Assert.Equal(Values(Path.Combine(examples, site + "motors", name!)), Values(repo.PathOf(site + "motors/" + name)));
         }
     }
 
