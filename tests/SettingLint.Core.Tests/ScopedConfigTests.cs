@@ -105,7 +105,7 @@ public sealed class ScopedConfigTests
         Assert.Empty(mill.Problems);
         var parameter = Assert.Single(mill.Effective.Rules["SL201"].Parameters);
         Assert.Equal(("asymmetry_factor", "1.5", 6), (parameter.Key, parameter.Value.Value, parameter.Value.Span.StartLine));
-        static double Factor(Rules.CompiledRule r) => r.ParameterValues[r.Parameters.First(p => p.Name == "asymmetry_factor").Index];
+        static double Factor(SettingLint.Core.Rules.CompiledRule r) => r.ParameterValues[r.Parameters.First(p => p.Name == "asymmetry_factor").Index];
         Assert.Equal(1.5, Factor(mill.Rules.First(r => r.Id == "SL201")));
         Assert.Equal(1.7, Factor(session.Scopes.For("harbour-works/motors/m-1.yaml").Rules.First(r => r.Id == "SL201")));
         Assert.Equal(1.7, Factor(session.Rules.Rules.First(r => r.Id == "SL201")));
