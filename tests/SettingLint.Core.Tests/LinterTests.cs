@@ -23,6 +23,21 @@ public sealed class LinterTests
         return repo;
     }
 
+    // Outside git and without a configuration, the root is the request's working folder when the checked file lies
+    // below it (so `check motors/m-1.yaml` reaches ../buses/), never the process's current folder, which here is the
+    // test's output folder inside this project's own git work tree.
+    [Fact]
+    public void Outside_git_the_root_is_the_request_s_working_folder_not_the_process_s()
+    {
+        using var repo = new TempRepo(git: false);
+        repo.Write("buses/bus-1.yaml", Samples.Bus);
+        repo.Write(Motor, Samples.Motor);
+        Assert.Equal(repo.Root, Linter.FindRoot(repo.Root, Motor));
+        var result = Linter.Check(new CheckRequest(repo.Root, [Motor]));
+        Assert.Equal(repo.Root, result.RepositoryRoot);
+        Assert.DoesNotContain(result.Findings, f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal));
+    }
+
     [Fact]
     public void Relative_paths_are_resolved_against_the_request_s_working_folder_not_the_process_s()
     {

@@ -84,7 +84,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         IReadOnlyList<string> shown = options.Paths.Count == 0 ? ["."] : options.Paths;
         var paths = shown.Select(p => SourcePaths.Absolute(p, options.WorkingDirectory)).ToArray();
         var source = options.Source
-            ?? new DiskSource(options.Root is { } given ? SourcePaths.Absolute(given, options.WorkingDirectory) : RepositoryRoot.Find(paths[0]));
+            ?? new DiskSource(options.Root is { } given ? SourcePaths.Absolute(given, options.WorkingDirectory) : RepositoryRoot.Find(paths[0], options.WorkingDirectory ?? paths[0]));
         var root = source.Root;
         var notifications = new ConcurrentBag<Notification>();
         var descriptors = EngineRules.All.Concat(rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal).ToImmutableArray();

@@ -28,7 +28,7 @@ public static class Linter
         }
         IReadOnlyList<string> paths = request.Paths.Count == 0 ? ["."] : request.Paths;
         var first = SourcePaths.Absolute(paths[0], request.WorkingDirectory);
-        var source = request.Source ?? new DiskSource(request.Root is { } root ? SourcePaths.Absolute(root, request.WorkingDirectory) : RepositoryRoot.Find(first));
+        var source = request.Source ?? new DiskSource(request.Root is { } root ? SourcePaths.Absolute(root, request.WorkingDirectory) : RepositoryRoot.Find(first, request.WorkingDirectory));
         var session = request.Rules is { } rules
             ? new Session(source.Root, Configuration.SettingsConfig.Default, rules, [])
             : Session.Open(source, first, SchemaSet.Shared);
@@ -76,6 +76,10 @@ public static class Linter
         public void OnOutcome(RuleOutcome outcome) => _outcomes.Enqueue(outcome);
     }
 
-    /// <summary>The repository root for a path (absolute, or relative to the working folder): the nearest folder upward with .git, else the path's own folder.</summary>
-    public static string FindRoot(string workingDirectory, string path) => RepositoryRoot.Find(SourcePaths.Absolute(path, workingDirectory));
+    /// <summary>
+    /// The repository root for a path (absolute, or relative to the working folder): the nearest folder upward with .git,
+    /// else the outermost with a configuration, else the working folder when the path lies below it, else the path's folder.
+    /// The process's current folder plays no part.
+    /// </summary>
+    public static string FindRoot(string workingDirectory, string path) => RepositoryRoot.Find(SourcePaths.Absolute(path, workingDirectory), workingDirectory);
 }
