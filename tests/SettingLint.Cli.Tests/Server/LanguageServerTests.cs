@@ -238,6 +238,27 @@ public sealed class LanguageServerTests
     }
 
     [Fact]
+    public async Task An_unsaved_edit_of_a_company_rule_rediagnoses_the_open_motors()
+    {
+        using var repo = ServerSession.DemoRepo();
+        var motor = repo.PathOf("motors/p-201.yaml");
+        await using var session = await ServerSession.Start(repo.Root);
+        await session.Open(motor, File.ReadAllText(motor));
+        Assert.DoesNotContain("TWE101", Codes(await session.Client.Diagnostics(ServerSession.Uri(motor), 1)));
+
+        // The firm's ride-through minimum raised from 2 s to 10 s in the editor, not saved: P-201's 6.5 s 27 delay is now short.
+        var rule = repo.PathOf("firm-rules/TWE101/rule.yaml");
+        var text = File.ReadAllText(rule);
+        Assert.Contains("default: 2 s", text, StringComparison.Ordinal);
+        await session.Open(rule, text);
+        var mark = session.Client.Notifications.Count;
+        await session.Change(rule, 2, text.Replace("default: 2 s", "default: 10 s", StringComparison.Ordinal));
+        Assert.Contains("TWE101", Codes(await session.Client.Diagnostics(ServerSession.Uri(motor), 1, mark)));
+        Assert.Equal(text, File.ReadAllText(rule));
+        Assert.Equal(0, await session.ShutdownAndExit());
+    }
+
+    [Fact]
     public async Task A_file_that_becomes_clean_gets_empty_diagnostics_and_a_closed_one_is_cleared()
     {
         using var repo = ServerSession.DemoRepo();
