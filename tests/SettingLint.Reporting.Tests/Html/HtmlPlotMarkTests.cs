@@ -154,6 +154,22 @@ public sealed class HtmlPlotMarkTests
     }
 
     [Fact]
+    public void A_reduced_voltage_start_on_the_demo_draws_its_longest_start_at_its_lowest_voltage()
+    {
+        var hp102 = HtmlTestSupport.DemoModel().Motors.Single(m => m.Tag == "HP-102");
+        var plot = TimeCurrent(hp102.Plot);
+        var start = plot.Series("start");
+        var longest = plot.Series("start-longest");
+        // HP-102: 7 s at rated voltage, 12 s at the 80 % tap. Locked-rotor current scales with the voltage (common
+        // practice: the motor's impedance at standstill is constant), so the 80 % start draws 0.8 x the current of the
+        // full-voltage start, for 12 s, not the full-voltage LRC for 12 s.
+        Close(7, start[1].Y);
+        Close(12, longest[1].Y);
+        Close(0.8 * start[0].X, longest[0].X);
+        Assert.True(longest[0].X < hp102.Plot.LockedRotorCurrent!.Value);
+    }
+
+    [Fact]
     public void The_thermal_level_plot_follows_a_soft_start_at_its_limit()
     {
         // A 10 s ramp at 400 A (3.3 x FLC) instead of 720 A LRC: IEC 60255-149 level h(t) = x (1 - exp(-t / tau)) from
