@@ -38,6 +38,33 @@ public sealed class FixCommandTests
         Assert.Empty(Cli.CheckJson(repo).Findings);
     }
 
+    // --rule limits the fixes to findings of the rules named: the sample's only finding is SL201's, so --rule SL202
+    // changes nothing, --rule SL201 makes the fix above, and a rule that is not loaded is a usage error.
+    [Fact]
+    public void Rule_limits_the_fixes_to_the_rules_named()
+    {
+        using var repo = Repo(Samples.Motor, "SL201", "SL202");
+        var other = Cli.Run("fix", repo.Root, "--rule", "SL202");
+        Assert.Equal(0, other.Exit);
+        Assert.Equal(Samples.Motor, File.ReadAllText(repo.PathOf("motors/m-1.yaml")));
+        Assert.Equal(2, Cli.Run("fix", repo.Root, "--rule", "SL999").Exit);
+        Assert.Equal(Samples.Motor, File.ReadAllText(repo.PathOf("motors/m-1.yaml")));
+        var own = Cli.Run("fix", repo.Root, "--rule", "SL201");
+        Assert.Contains("set protection.short_circuit.pickup 7.2 A sec -> 44.6 A sec", own.Stdout, StringComparison.Ordinal);
+        Assert.Equal(Samples.MotorWith("pickup: 7.2 A sec", "pickup: 44.6 A sec"), File.ReadAllText(repo.PathOf("motors/m-1.yaml")));
+    }
+
+    // The pull-request summary carries the suggestion in its own column: the value as it would be written, and both sides.
+    [Fact]
+    public void The_markdown_summary_has_the_suggested_value()
+    {
+        using var repo = Repo(Samples.Motor);
+        var run = Cli.Run("check", repo.Root, "--format", "markdown");
+        Assert.Contains("| suggested |", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("| 44.6 A sec (669 A pri (44.6 A sec)) |", run.Stdout, StringComparison.Ordinal);
+        Assert.DoesNotContain("| suggested |", Cli.Run("check", repo.Root, "--format", "markdown", "--no-suggest").Stdout, StringComparison.Ordinal);
+    }
+
     // SL202 (common practice; the 1.5 security factor from memory): pickup <= 0.866 x fault_current_min / 1.5. With a
     // weakest source of 3 kA that is 1732 A pri = 115.5 A sec, so 150 A sec (2250 A pri) is too high. The least change
     // would be 115 A sec; SL201 and SL202 prefer the lowest pickup (rule.yaml's prefer), so the fix goes to the lowest
