@@ -1,4 +1,4 @@
-using System.Diagnostics;
+using SettingLint.Tests.Shared;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Cli.Tests;
@@ -51,38 +51,11 @@ public sealed class GateGitRepo : IDisposable
     }
 
     /// <summary>Runs git in the repository and returns its output; throws when it fails.</summary>
-    public string Git(params string[] args)
-    {
-        var (code, output, error) = Run(args);
-        if (code != 0) throw new InvalidOperationException("git " + string.Join(' ', args) + " failed (" + code + "): " + error);
-        return output;
-    }
+    public string Git(params string[] args) => GitProcess.Checked(Root, args);
 
     /// <summary>Runs git with extra environment variables; returns the exit code and both streams.</summary>
-    public (int Code, string Output, string Error) Run(string[] args, IReadOnlyDictionary<string, string>? environment = null)
-    {
-        var start = new ProcessStartInfo("git")
-        {
-            WorkingDirectory = Root,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        foreach (var a in (string[])["-c", "user.name=t", "-c", "user.email=t@example.invalid", "-c", "commit.gpgsign=false", "-c", "init.defaultBranch=main"])
-        {
-            start.ArgumentList.Add(a);
-        }
-        foreach (var a in args) start.ArgumentList.Add(a);
-        // The developer's own git configuration (hooks path, templates, signing) must not change the test.
-        start.Environment["GIT_CONFIG_GLOBAL"] = "/dev/null";
-        start.Environment["GIT_CONFIG_NOSYSTEM"] = "1";
-        foreach (var (k, v) in environment ?? new Dictionary<string, string>()) start.Environment[k] = v;
-        using var process = Process.Start(start)!;
-        var error = process.StandardError.ReadToEndAsync();
-        var output = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        return (process.ExitCode, output, error.Result);
-    }
+    public (int Code, string Output, string Error) Run(string[] args, IReadOnlyDictionary<string, string>? environment = null) =>
+        GitProcess.Run(Root, args, environment);
 
     /// <summary>`check ROOT --format json` and more, in-process.</summary>
     public CliRun CheckJson(params string[] more) => Cli.Run(["check", Root, "--format", "json", .. more]);

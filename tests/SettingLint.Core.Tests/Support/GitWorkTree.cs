@@ -1,4 +1,4 @@
-using System.Diagnostics;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Tests.Support;
 
@@ -30,29 +30,7 @@ public sealed class GitWorkTree : IDisposable
     }
 
     /// <summary>Runs git in the work tree and returns its output; throws when it fails.</summary>
-    public string Git(params string[] args)
-    {
-        var start = new ProcessStartInfo("git")
-        {
-            WorkingDirectory = Root,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        foreach (var a in (string[])["-c", "user.name=t", "-c", "user.email=t@example.invalid", "-c", "commit.gpgsign=false", "-c", "init.defaultBranch=main"])
-        {
-            start.ArgumentList.Add(a);
-        }
-        foreach (var a in args) start.ArgumentList.Add(a);
-        start.Environment["GIT_CONFIG_GLOBAL"] = "/dev/null";
-        start.Environment["GIT_CONFIG_NOSYSTEM"] = "1";
-        using var process = Process.Start(start)!;
-        var error = process.StandardError.ReadToEndAsync();
-        var output = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        if (process.ExitCode != 0) throw new InvalidOperationException("git " + string.Join(' ', args) + " failed: " + error.Result);
-        return output;
-    }
+    public string Git(params string[] args) => GitProcess.Checked(Root, args);
 
     public void Dispose() => Temp.Dispose();
 }
