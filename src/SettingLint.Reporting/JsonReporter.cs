@@ -145,6 +145,8 @@ public sealed class JsonReporter : IReporter
         json.WriteNumber("endColumn", finding.Span.EndColumn);
         json.WriteString("keyPath", finding.KeyPath);
         json.WriteString("message", finding.Message);
+        // Which of its rule's messages this is ("default" for a data rule's one message; an engine rule has several).
+        json.WriteString("messageId", finding.MessageId);
         json.WriteString("fingerprint", finding.Fingerprint);
         json.WriteStartObject("values");
         // The values are an ordinal sorted dictionary, so their order is stable.

@@ -229,6 +229,8 @@ public sealed class SarifReporter : IReporter
 
         json.WriteStartObject("properties");
         json.WriteString("keyPath", finding.KeyPath);
+        // Which of its rule's messages this is ("default" for a data rule's one message; an engine rule has several).
+        json.WriteString("messageId", finding.MessageId);
         for (var i = 0; i < count; i++)
         {
             // JSON has no NaN or infinity: such a number is left to its text.
@@ -244,9 +246,9 @@ public sealed class SarifReporter : IReporter
         json.WriteEndObject();
     }
 
-    // A value may not take the name of our own properties, nor "tags", which SARIF reserves for a string array.
+    // A value may not take the name of our own properties (keyPath, messageId, units), nor "tags", which SARIF reserves for a string array.
     private static string PropertyName(string valueName) =>
-        valueName is "keyPath" or UnitsProperty or "tags" ? "value." + valueName : valueName;
+        valueName is "keyPath" or "messageId" or UnitsProperty or "tags" ? "value." + valueName : valueName;
 
     // SARIF 2.1.0 3.27.24: a result of the baseline that this run no longer finds. It is placed on its baseline
     // entry, the line to delete, with the setting file as a related location.

@@ -25,6 +25,25 @@ public sealed class FormatTests
         return File.ReadAllText(output);
     }
 
+    // Engine diagnostics are data: JSON and SARIF name which of its rule's messages a finding is, as the engine's
+    // EngineMessages list has it; a data rule's one message is "default".
+    [Fact]
+    public void Json_and_sarif_carry_each_finding_s_message_id()
+    {
+        using var repo = Cli.Repo(Samples.MotorWith("full_load_current: 58 A", "full_load_current: -58 A"));
+        using var json = JsonDocument.Parse(Cli.CheckJson(repo).Stdout);
+        var findings = json.RootElement.GetProperty("findings").EnumerateArray().ToList();
+        var negative = findings.Single(f => f.GetProperty("ruleId").GetString() == "SL005" && f.GetProperty("keyPath").GetString() == "motor.full_load_current");
+        Assert.Equal("negativeHereCannot", negative.GetProperty("messageId").GetString());
+        Assert.All(findings.Where(f => !f.GetProperty("ruleId").GetString()!.StartsWith("SL0", StringComparison.Ordinal)),
+            f => Assert.Equal("default", f.GetProperty("messageId").GetString()));
+
+        using var sarif = JsonDocument.Parse(Sarif(repo, "ids.sarif"));
+        var result = sarif.RootElement.GetProperty("runs")[0].GetProperty("results").EnumerateArray()
+            .Single(r => r.GetProperty("ruleId").GetString() == "SL005" && r.GetProperty("properties").GetProperty("keyPath").GetString() == "motor.full_load_current");
+        Assert.Equal("negativeHereCannot", result.GetProperty("properties").GetProperty("messageId").GetString());
+    }
+
     [Fact]
     public void Json_parses_and_carries_the_findings()
     {

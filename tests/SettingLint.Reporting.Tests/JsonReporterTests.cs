@@ -78,7 +78,7 @@ public sealed class JsonReporterTests
         using var doc = Parse(Samples.Result(), Samples.Context("/r/motors"));
         var f = doc.RootElement.GetProperty("findings")[0];
         Assert.Equal(
-            ["ruleId", "level", "file", "line", "column", "endLine", "endColumn", "keyPath", "message", "fingerprint", "values"],
+            ["ruleId", "level", "file", "line", "column", "endLine", "endColumn", "keyPath", "message", "messageId", "fingerprint", "values"],
             f.EnumerateObject().Select(static p => p.Name));
         Assert.Equal("SL201", f.GetProperty("ruleId").GetString());
         Assert.Equal("error", f.GetProperty("level").GetString());

@@ -179,8 +179,9 @@ internal static class SarifReference
             ];
         }
 
-        // The property bag keeps insertion order: keyPath first, then the values in their (ordinal) order.
+        // The property bag keeps insertion order: keyPath and messageId first, then the values in their (ordinal) order.
         sarif.SetProperty("keyPath", finding.KeyPath);
+        sarif.SetProperty("messageId", finding.MessageId);
         foreach (var (name, value) in finding.Values)
         {
             var key = PropertyName(name);
@@ -227,7 +228,7 @@ internal static class SarifReference
 
     // A value may not take the name of our own properties, nor "tags", which SARIF reserves for a string array.
     private static string PropertyName(string valueName) =>
-        valueName is "keyPath" or UnitsProperty or "tags" ? "value." + valueName : valueName;
+        valueName is "keyPath" or "messageId" or UnitsProperty or "tags" ? "value." + valueName : valueName;
 
     private static Location Location(string file, Core.Documents.SourceSpan span) => new()
     {

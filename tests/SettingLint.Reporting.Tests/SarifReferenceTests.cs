@@ -208,7 +208,7 @@ public sealed class SarifReferenceTests
         Gen.Select(Text, Number, Gen.OneOf("A", "s", "xFLC", "%", "Ω", "", "A pri").Null(0.4), static (text, number, unit) => new FindingValue(text, number, unit));
 
     private static readonly Gen<string> ValueName = Gen.OneOf(
-        Gen.OneOf("pickup", "factor", "keyPath", "value.keyPath", "tags", "value.tags", "units", "value.units", "sarifv2/x", "", "Ä", "a\"b"),
+        Gen.OneOf("pickup", "factor", "keyPath", "value.keyPath", "messageId", "tags", "value.tags", "units", "value.units", "sarifv2/x", "", "Ä", "a\"b"),
         Text);
 
     private static readonly Gen<ImmutableSortedDictionary<string, FindingValue>> Values =
