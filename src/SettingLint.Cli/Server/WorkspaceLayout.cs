@@ -19,7 +19,7 @@ public static class WorkspaceLayout
         var gitRoot = GitRoot(dir);
         for (var d = dir; d is not null; d = Path.GetDirectoryName(d))
         {
-            if (File.Exists(Path.Combine(d, SettingsConfig.FileName)) || File.Exists(Path.Combine(d, ".settinglint.yml")))
+            if (SettingsConfig.FileNames.Any(name => File.Exists(Path.Combine(d, name))))
             {
                 return new CheckScope(d, RepositoryRoot.Find(d));
             }

@@ -87,7 +87,7 @@ public sealed class ConfigScopes
     {
         var parent = Of(Folder(folder));
         string? path = null;
-        foreach (var name in (string[])[SettingsConfig.FileName, ".settinglint.yml"])
+        foreach (var name in SettingsConfig.FileNames)
         {
             var candidate = SourcePaths.Full(_source.Root, folder + "/" + name);
             if (_source.Probe(candidate) == EntryKind.File) { path = candidate; break; }

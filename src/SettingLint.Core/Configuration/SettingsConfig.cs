@@ -22,6 +22,12 @@ public sealed record SettingsConfig(
 {
     public const string FileName = ".settinglint.yaml";
 
+    /// <summary>The names a configuration file may have in a folder, the preferred one first.</summary>
+    public static readonly ImmutableArray<string> FileNames = [FileName, ".settinglint.yml"];
+
+    /// <summary>Whether a file name (without folder) is a configuration file's.</summary>
+    public static bool IsFileName(string name) => FileNames.Contains(name);
+
     /// <summary>`electrical_code`: the electrical code that governs the repository's installations; null when not declared.</summary>
     public string? ElectricalCode { get; init; }
 
@@ -50,7 +56,7 @@ public sealed record SettingsConfig(
         string? outermost = null;
         for (var d = dir; d is not null && Discovery.RepositoryRoot.Contains(root, d); d = Path.GetDirectoryName(d))
         {
-            foreach (var name in (string[])[FileName, ".settinglint.yml"])
+            foreach (var name in FileNames)
             {
                 var f = Path.Combine(d, name);
                 if (source.Probe(f) == EntryKind.File) { outermost = f; break; }
@@ -69,8 +75,7 @@ public sealed record SettingsConfig(
     {
         if (source.Probe(dir) != EntryKind.Folder) return null;
         var rel = Discovery.RepositoryRoot.Relative(source.Root, dir);
-        var folders = (string[])[FileName, ".settinglint.yml"];
-        var found = folders.SelectMany(name => source.FindFiles(rel == "." ? "" : rel, name))
+        var found = FileNames.SelectMany(name => source.FindFiles(rel == "." ? "" : rel, name))
             .Select(f => (File: f, Folder: f.Contains('/', StringComparison.Ordinal) ? f[..(f.LastIndexOf('/') + 1)] : ""))
             .ToList();
         var outer = found.Where(a => !found.Any(b => b.Folder != a.Folder && a.Folder.StartsWith(b.Folder, StringComparison.Ordinal))).ToList();

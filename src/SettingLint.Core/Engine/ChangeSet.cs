@@ -60,7 +60,7 @@ public sealed record ChangeSet(
         foreach (var rel in changed.Concat(deleted))
         {
             var name = rel[(rel.LastIndexOf('/') + 1)..];
-            if (name is SettingsConfig.FileName or ".settinglint.yml") everything = "the configuration " + rel + " changed";
+            if (SettingsConfig.IsFileName(name)) everything = "the configuration " + rel + " changed";
             else if (packs.Any(p => rel.StartsWith(p, StringComparison.Ordinal))) everything = "the rule file " + rel + " changed";
             else if (rel == baselineFile) everything = "the baseline " + rel + " changed";
             if (everything is not null) break;

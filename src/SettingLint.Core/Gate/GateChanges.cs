@@ -43,7 +43,7 @@ internal static class GateChanges
             var found = new Found(rel);
             if (rel == baselineFile) CompareBaseline(old, now, found);
             else if (!Discovery.FileDiscovery.IsYaml(rel)) continue;
-            else if (name is SettingsConfig.FileName or ".settinglint.yml")
+            else if (SettingsConfig.IsFileName(name))
             {
                 // A folder's file says what changes from the files above it: a rule it does not name keeps their level.
                 CompareConfig(rel, old, now, found, defaultLevelOf, Inherited(rel, changes, readNew, defaultLevelOf, oldSide: true), Inherited(rel, changes, readNew, defaultLevelOf, oldSide: false));
@@ -94,7 +94,7 @@ internal static class GateChanges
         for (var depth = 0; depth < folders.Length; depth++)
         {
             var prefix = string.Concat(folders[..depth].Select(f => f + "/"));
-            foreach (var name in (string[])[SettingsConfig.FileName, ".settinglint.yml"])
+            foreach (var name in SettingsConfig.FileNames)
             {
                 var path = prefix + name;
                 var changed = changes.Changed.Contains(path) || changes.Deleted.Contains(path);
