@@ -131,7 +131,6 @@ internal static class FixFinder
         Func<string, string?>? electricalCode, IEnumerable<RuleOutcome> outcomes, IReadOnlyDictionary<string, MotorProtection> motors, Configuration.ConfigScopes? scopes = null,
         IReadOnlyList<string>? within = null)
     {
-        IRuleSet Scoped(RuleSet r) => scopes is null ? r : new Engine.ScopedRuleSet(r, scopes);
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(source);
         ArgumentNullException.ThrowIfNull(onlyRules);
@@ -145,6 +144,8 @@ internal static class FixFinder
         if (files.IsEmpty) return SuggestionSet.None;
 
         var root = source.Root;
+        // One rule set for every confirming round: each folder's rules are built once, on first use.
+        IRuleSet confirming = scopes is null ? rules : new Engine.ScopedRuleSet(rules, scopes);
         var texts = new Dictionary<string, SourceText>(StringComparer.Ordinal);
         string? Read(string rel)
         {
@@ -164,7 +165,7 @@ internal static class FixFinder
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
             var merged = new OverlaySource(source, contents);
-            var after = Run(Scoped(rules), root, include, merged, [.. contents.Keys], electricalCode, within).Findings;
+            var after = Run(confirming, root, include, merged, [.. contents.Keys], electricalCode, within).Findings;
             var bad = new List<(SettingFix, string)>();
             foreach (var fix in fixes)
             {
