@@ -73,7 +73,19 @@ public static class Linter
 
         public void OnMotor(MotorProtection motor) => _motors.TryAdd(motor.Document.RelativePath, motor);
 
-        public void OnOutcome(RuleOutcome outcome) => _outcomes.Enqueue(outcome);
+        // Only an outcome that bounds its own subject can make a window (SettingWindows.Derive reads no other): at 10,000
+        // motors keeping every outcome held some 60 per motor until the end.
+        public void OnOutcome(RuleOutcome outcome)
+        {
+            foreach (var b in outcome.Bounds)
+            {
+                if (b.Path == outcome.Subject && (b.IsLower || b.IsUpper))
+                {
+                    _outcomes.Enqueue(outcome);
+                    return;
+                }
+            }
+        }
     }
 
     /// <summary>
