@@ -38,7 +38,8 @@ internal static class CheckBounds
 
     /// <summary>
     /// The limit of each comparison of <see cref="Of"/> in words, in the order it visits them: they depend on the rule
-    /// alone, and made for every rule and motor they cost some 3 % of a check's CPU at 10,000 motors (perf, native build).
+    /// alone. Made for every rule and motor, at 10,000 motors they were 3.3 % of a check's CPU (perf, native build), and
+    /// made once the check took 4.93 x the parse-only floor's CPU against 5.48 x (docs/performance.md, 2026-12-05).
     /// </summary>
     public static ImmutableArray<string> Labels(CompiledRule rule)
     {
