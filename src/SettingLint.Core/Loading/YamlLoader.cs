@@ -46,14 +46,18 @@ public static class YamlLoader
     }
 
     /// <summary>Loads a file's bytes.</summary>
-    public static LoadedFile Load(byte[] bytes, string path, string relativePath, LoadLimits limits)
+    public static LoadedFile Load(byte[] bytes, string path, string relativePath, LoadLimits limits) => Load(bytes, path, relativePath, limits, simpleReader: true);
+
+    /// <summary>Loads a file's bytes; without <paramref name="simpleReader"/> only through the parser (for the tests that compare the two).</summary>
+    internal static LoadedFile Load(byte[] bytes, string path, string relativePath, LoadLimits limits, bool simpleReader)
     {
         if (bytes.LongLength > limits.MaxFileBytes) return TooLarge(path, relativePath, bytes.LongLength, limits);
         var findings = new FindingBuilder(relativePath);
         var text = Decode(bytes, findings);
         if (text is null || !Printable(text, findings)) return new LoadedFile(path, relativePath, null, findings.Findings, []);
         var lines = new LazyLines(text);
-        var root = new TreeBuilder(findings, limits).Build(text);
+        // Most setting files are plain block mappings that the simple reader takes; anything else goes through the parser.
+        var root = (simpleReader ? SimpleYamlReader.TryRead(text, limits) : null) ?? new TreeBuilder(findings, limits).Build(text);
         return new LoadedFile(path, relativePath, root, findings.Findings, lines);
     }
 

@@ -29,6 +29,9 @@ public sealed class RuleSet : IStagedRuleSet
 
     // Per rule (by position): which lets are evaluated when.
     private readonly LetPlan[] _plans;
+
+    // Per rule (by position): its comparisons' limits in words, for the bounds of a listened-to run (CheckBounds.Labels).
+    private readonly ImmutableArray<string>[] _labels;
     private readonly int _maxLets;
 
     // Every enabled rule in one go, and the same rules split into the two steps of a staged run.
@@ -43,6 +46,7 @@ public sealed class RuleSet : IStagedRuleSet
         Rules = rules;
         Descriptors = [.. rules.Where(r => r.Level != Level.None).Select(r => r.Descriptor)];
         _plans = [.. rules.Select(LetPlan.For)];
+        _labels = [.. rules.Select(CheckBounds.Labels)];
         _maxLets = rules.IsEmpty ? 0 : rules.Max(r => r.Lets.Length);
         var across = rules.Select(RuleExpressions.ReadsOtherMotors).ToArray();
         _all = new Stage(rules, _ => true);
@@ -154,7 +158,7 @@ public sealed class RuleSet : IStagedRuleSet
             if (!stage.Includes[k]) continue;
             try
             {
-                EvaluateRule(rule, _plans[k], ctx, findings);
+                EvaluateRule(rule, k, ctx, findings);
             }
             catch (Exception ex) when (ex is not OutOfMemoryException)
             {
@@ -164,13 +168,15 @@ public sealed class RuleSet : IStagedRuleSet
         }
     }
 
-    private void EvaluateRule(CompiledRule rule, LetPlan plan, EvalContext ctx, FindingBuilder findings)
+    private void EvaluateRule(CompiledRule rule, int index, EvalContext ctx, FindingBuilder findings)
     {
+        var plan = _plans[index];
+        var labels = _labels[index];
         ctx.Parameters = rule.ParameterValues;
         ctx.Item = null;
         if (!rule.ForEachRange)
         {
-            EvaluateOnce(rule, ctx, null, plan.First, findings);
+            EvaluateOnce(rule, ctx, null, plan.First, labels, findings);
             return;
         }
         var motor = ctx.Motor;
@@ -189,7 +195,7 @@ public sealed class RuleSet : IStagedRuleSet
             var info = k < infos.Length && infos[k].Fits(ranges[k]) ? infos[k] : new RangeInfo(ranges[k]);
             ctx.Item = Resolve(ctx, ranges[k], info, ref refs);
             // The lets that do not read the range keep their value from the first range.
-            EvaluateOnce(rule, ctx, info, k == 0 ? plan.First : plan.Again, findings);
+            EvaluateOnce(rule, ctx, info, k == 0 ? plan.First : plan.Again, labels, findings);
         }
     }
 
@@ -204,7 +210,7 @@ public sealed class RuleSet : IStagedRuleSet
     }
 
     /// <param name="lets">The lets to evaluate before the guard (the others are still valid from the motor's first range).</param>
-    private void EvaluateOnce(CompiledRule rule, EvalContext ctx, RangeInfo? range, bool[] lets, FindingBuilder findings)
+    private void EvaluateOnce(CompiledRule rule, EvalContext ctx, RangeInfo? range, bool[] lets, ImmutableArray<string> labels, FindingBuilder findings)
     {
         for (var i = 0; i < rule.Lets.Length; i++)
         {
@@ -231,7 +237,7 @@ public sealed class RuleSet : IStagedRuleSet
         if (Outcomes is not null)
         {
             // Bounds cost a second evaluation of each comparison, so only a report that listens pays for them.
-            Outcomes(new RuleOutcome(rule.Id, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, SubjectOf(rule, range), passed, numbers.ToRecord(), rule.Level) { Bounds = CheckBounds.Of(rule, ctx) });
+            Outcomes(new RuleOutcome(rule.Id, ctx.Motor.Document.RelativePath, ctx.Motor.Tag, SubjectOf(rule, range), passed, numbers.ToRecord(), rule.Level) { Bounds = CheckBounds.Of(rule, ctx, labels) });
         }
         if (passed) return;
         AddFinding(rule, ctx, range, numbers, findings);
