@@ -3,9 +3,16 @@ using System.Text;
 
 namespace SettingLint.Benchmarks;
 
-/// <summary>Writes a synthetic, valid setting repository: 20 motors per bus, two relay models, N motors.</summary>
+/// <summary>
+/// Writes a synthetic, valid setting repository: 20 motors per bus, two relay models, N motors. Like a real repository,
+/// most motors are set correctly: one in <see cref="PlantedEvery"/> carries a planted finding (an overvoltage pickup
+/// within the measuring error of the bus's highest voltage, SL607), so that a run's findings are a few, not one per motor.
+/// </summary>
 public static class Generator
 {
+    /// <summary>One motor in this many has a planted finding.</summary>
+    public const int PlantedEvery = 50;
+
     public static string Write(int motors)
     {
         var dir = Path.Combine(Path.GetTempPath(), $"settinglint-bench-{motors}-{Guid.NewGuid():N}"[..40]);
@@ -36,6 +43,7 @@ public static class Generator
         title: 4.16 kV synthetic switchgear bus {b}
         nominal_voltage: 4160 V
         max_voltage: 4370 V
+        min_voltage: 3950 V
         fault_current_max: {17 + b % 3} kA
         fault_current_min: 13 kA
         x_over_r: 12
@@ -79,6 +87,9 @@ public static class Generator
         var flc = 154 + m % 9;                              // 154..162 A
         var accel = (3.3 + (m % 5) * 0.1).ToString("F1", CultureInfo.InvariantCulture);
         var model = m % 2 == 0 ? "relay-b" : "relay-a";
+        // 112 % of 4000 V is 4480 V, 2.5 % above the bus's 4370 V and inside SL602's 107-113 % window; the planted
+        // 110 % (4400 V) keeps only 0.7 % above it, within SL607's 2 % room.
+        var overvoltage = m % PlantedEvery == 0 ? "110 %" : "112 %";
         var sb = new StringBuilder();
         sb.Append($"""
             # yaml-language-server: $schema=../../schema/motor-protection.schema.json
@@ -145,7 +156,7 @@ public static class Generator
                 delay: 6.5 s
               overvoltage:
                 enabled: true
-                pickup: 110 %
+                pickup: {overvoltage}
                 delay: 3 s
               acceleration:
                 enabled: true
