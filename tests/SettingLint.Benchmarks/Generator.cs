@@ -13,7 +13,10 @@ public static class Generator
     /// <summary>One motor in this many has a planted finding.</summary>
     public const int PlantedEvery = 50;
 
-    public static string Write(int motors)
+    public static string Write(int motors) => Write(motors, PlantedEvery);
+
+    /// <summary>A repository where one motor in <paramref name="plantedEvery"/> has the planted finding (1: every motor; 0: none).</summary>
+    public static string Write(int motors, int plantedEvery)
     {
         var dir = Path.Combine(Path.GetTempPath(), $"settinglint-bench-{motors}-{Guid.NewGuid():N}"[..40]);
         Directory.CreateDirectory(Path.Combine(dir, ".git"));
@@ -29,7 +32,7 @@ public static class Generator
         File.WriteAllText(Path.Combine(dir, "models", "relay-b.yaml"), Model("RELAY-B", "Synthetic motor relay B, 5 A inputs"));
         for (var m = 1; m <= motors; m++)
         {
-            File.WriteAllText(Path.Combine(dir, "motors", $"p-{m:D5}.yaml"), Motor(m, (m - 1) / 20 + 1));
+            File.WriteAllText(Path.Combine(dir, "motors", $"p-{m:D5}.yaml"), Motor(m, (m - 1) / 20 + 1, plantedEvery > 0 && m % plantedEvery == 0));
         }
         return dir;
     }
@@ -81,7 +84,7 @@ public static class Generator
 
         """;
 
-    private static string Motor(int m, int bus)
+    private static string Motor(int m, int bus, bool planted)
     {
         // Small, safe variations around a correctly set 1250 hp pump on a 200:5 CT.
         var flc = 154 + m % 9;                              // 154..162 A
@@ -89,7 +92,7 @@ public static class Generator
         var model = m % 2 == 0 ? "relay-b" : "relay-a";
         // 112 % of 4000 V is 4480 V, 2.5 % above the bus's 4370 V and inside SL602's 107-113 % window; the planted
         // 110 % (4400 V) keeps only 0.7 % above it, within SL607's 2 % room.
-        var overvoltage = m % PlantedEvery == 0 ? "110 %" : "112 %";
+        var overvoltage = planted ? "110 %" : "112 %";
         var sb = new StringBuilder();
         sb.Append($"""
             # yaml-language-server: $schema=../../schema/motor-protection.schema.json
