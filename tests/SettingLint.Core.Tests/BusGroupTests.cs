@@ -219,4 +219,29 @@ public sealed class BusGroupTests
         Assert.All(probe.AliveAtEachGroup, n => Assert.Equal(0, n));
         Assert.Contains(result.Findings, f => f.RuleId == "SL951");
     }
+
+    [Theory]
+    [InlineData(false, "motors/m-01.yaml")]
+    [InlineData(true, "motors/m-01.yaml")]
+    [InlineData(true, "buses/bus-2.yaml")]
+    [InlineData(true, "models/relay-a.yaml")]
+    [InlineData(true, "motors/m-03.yaml", "area-2/motors/y-1.yaml", "motors/x-twice.yaml")]
+    [InlineData(false, "motors/x-broken.yaml", "demo/motors/p-201.yaml")]
+    public void A_changed_files_run_bus_by_bus_gives_the_findings_of_one_group(bool parallel, params string[] changed)
+    {
+        using var repo = Repository();
+        var rules = new RuleSet(Rules());
+        var changes = new ChangeSet("test", null, false, [.. changed], [], null, ImmutableDictionary<string, byte[]>.Empty);
+        var byBus = new Checker(rules).Run(new CheckOptions([repo.Root], Parallel: parallel, Changes: changes));
+        var whole = new Checker(rules) { OneGroup = true }.Run(new CheckOptions([repo.Root], Parallel: false, Changes: changes));
+
+        Assert.Equal(Describe(whole), Describe(byBus));
+        // Immutable arrays compare by reference: their elements are compared here.
+        Assert.Equal(whole.Scope!.Dependants.ToArray(), byBus.Scope!.Dependants.ToArray());
+        Assert.Equal(whole.CheckedFiles.ToArray(), byBus.CheckedFiles.ToArray());
+        Assert.Equal(whole.LoadedFiles?.ToArray(), byBus.LoadedFiles?.ToArray());
+        // Each change reaches motors (a broken changed file, which the quick read is unsure of, makes the run read every file).
+        Assert.Contains(byBus.CheckedFiles, f => f.Contains("/motors/", StringComparison.Ordinal) || f.StartsWith("motors/", StringComparison.Ordinal));
+        Assert.Equal(changed.Contains("motors/x-broken.yaml"), byBus.LoadedFiles is null);
+    }
 }

@@ -189,24 +189,41 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var discoveryFindings = discovery.Findings;
         if (options.Changes is { EverythingBecause: null } changes)
         {
-            // Load only what the change can reach, found by a quick read of every file's references; bind all of it (the
-            // choice of motors needs them all), then evaluate and report only the changed files and their dependants.
-            var toLoad = discovery.Files;
+            // Load only what the change can reach, found by a quick read of every file's references; report only the
+            // changed files and their dependants. The changed motors are bound first: the buses they are on choose the rest.
             var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), options.EffectiveLimits.MaxFileBytes, options.Parallel);
-            if (changes.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
-            {
-                toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
-                planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
-            }
-            var settingFiles = BindAll(work, toLoad, options.Parallel);
-            var index = new RepositoryIndex(settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!));
+            var plan = changes.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath));
             ImmutableSortedSet<string> selected;
-            (selected, dependants) = changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList());
-            var reported = settingFiles.Where(s => selected.Contains(s.RelativePath)).ToArray();
-            work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
-            kept = [.. reported.Select(s => new Kept(s))];
-            // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
-            tags = TagsOf(settingFiles);
+            if (plan is null || OneGroup)
+            {
+                // A changed file the quick read is not sure of may be a motor on any bus: every file is bound, as one group.
+                var toLoad = plan is null ? discovery.Files : [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
+                if (plan is not null) planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
+                var settingFiles = BindAll(work, toLoad, options.Parallel);
+                var index = new RepositoryIndex(settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!));
+                (selected, dependants) = changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList());
+                var reported = settingFiles.Where(s => selected.Contains(s.RelativePath)).ToArray();
+                work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
+                kept = [.. reported.Select(s => new Kept(s))];
+                // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
+                tags = TagsOf(settingFiles);
+            }
+            else
+            {
+                List<DiscoveredFile> toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
+                planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
+                var changedMotors = refs.Where(m => changes.Changed.Contains(m.File)).Select(m => m.File);
+                Func<FileState, bool> Choose(IReadOnlyList<FileState> ahead)
+                {
+                    var buses = changes.TouchedBuses(root, [.. ahead.Where(s => s.Motor is not null && changes.Changed.Contains(s.RelativePath)).Select(s => ChangeSet.ReferencesOf(root, s.Motor!))]);
+                    return s => s.IsChecked && (changes.Changed.Contains(s.RelativePath) || (s.Motor is { } m && changes.Selects(ChangeSet.ReferencesOf(root, m), buses)));
+                }
+                var bound = new ConcurrentBag<(string, TextValue)>();
+                kept = ByBus(work, BusGroups.Of(toLoad, refs, [.. unsure.Concat(changedMotors)]), options.Parallel, Choose, bound);
+                tags = bound;
+                selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Select(k => k.RelativePath));
+                dependants = selected.Except(changes.Changed);
+            }
             discoveryFindings = [.. discovery.Findings.Where(f => selected.Contains(f.File))];
         }
         else if (OneGroup)
@@ -268,13 +285,21 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// no bus group holds (relay models, buses without motors) next, kept for the run since any motor may name them.
     /// Then each bus with its motors is loaded, bound, evaluated and let go, the groups in parallel.
     /// </summary>
-    private List<Kept> ByBus(Work work, BusGroups plan, bool parallel)
+    /// <param name="work">The run's work.</param>
+    /// <param name="plan">The files, divided.</param>
+    /// <param name="parallel">Run the groups in parallel.</param>
+    /// <param name="choose">
+    /// For a changed-files run: given the files bound first (the changed motors among them), which files to evaluate and
+    /// report; null reports every file.
+    /// </param>
+    /// <param name="tags">Receives the tag of every setting file bound, reported or not, when <paramref name="choose"/> is given.</param>
+    private List<Kept> ByBus(Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose = null, ConcurrentBag<(string, TextValue)>? tags = null)
     {
-        var (kept, early) = Ahead(work, plan, parallel);
+        var (kept, early, selected) = Ahead(work, plan, parallel, choose, tags);
         var gate = new Lock();
         ForEach(parallel, Ordered(plan.Buses.Values.ToArray()), group =>
         {
-            var done = Group(work, group, early.GetValueOrDefault(group.Bus) ?? []);
+            var done = Group(work, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags);
             lock (gate) kept.AddRange(done);
         });
         return kept;
@@ -284,7 +309,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// Binds the files the quick read is not sure of, and those that no group holds; evaluates the motors that are on no
     /// shared bus. What the run keeps of them, and the motors bound ahead by the bus they name.
     /// </summary>
-    private (List<Kept> Kept, Dictionary<string, List<FileState>> Early) Ahead(Work work, BusGroups plan, bool parallel)
+    private (List<Kept> Kept, Dictionary<string, List<FileState>> Early, Func<FileState, bool> Selected) Ahead(
+        Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose, ConcurrentBag<(string, TextValue)>? tags)
     {
         // Every file but the motors of a sure bus is entered now, so that a motor bound early, or any motor that names a
         // relay model, shares the reported state of what it names instead of loading it unreported.
@@ -295,7 +321,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
         var early = new Dictionary<string, List<FileState>>(StringComparer.Ordinal);
         var alone = new List<FileState>();
-        foreach (var s in work.Bind(Ordered(plan.First), parallel))
+        var first = work.Bind(Ordered(plan.First), parallel);
+        var selected = choose?.Invoke(first) ?? (_ => true);
+        foreach (var s in first)
         {
             if (s.Motor is { Bus: { } bus } motor && bus.Document.Path != motor.Document.Path)
             {
@@ -313,14 +341,22 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
         // A motor with an inline bus, or none, is on a bus of its own: one index serves them all.
         var loners = alone.Where(s => s.Motor is not null).ToArray();
-        work.Evaluate(Ordered(loners), new RepositoryIndex(loners.Select(s => s.Motor!)), parallel);
-        var kept = alone.Concat(work.Bind(Ordered(plan.Others), parallel)).Where(s => s.IsChecked && s.Reported).Select(s => new Kept(s)).ToList();
+        work.Evaluate(Ordered(loners.Where(selected).ToArray()), new RepositoryIndex(loners.Select(s => s.Motor!)), parallel);
+        var done = alone.Concat(work.Bind(Ordered(plan.Others), parallel)).Where(s => s.IsChecked && s.Reported).ToList();
+        Tags(done, tags);
+        var kept = done.Where(selected).Select(s => new Kept(s)).ToList();
         foreach (var s in loners) Drop(work, s.Document);
-        return (kept, early);
+        return (kept, early, selected);
+    }
+
+    private static void Tags(IEnumerable<FileState> files, ConcurrentBag<(string, TextValue)>? tags)
+    {
+        if (tags is null) return;
+        foreach (var t in TagsOf(files)) tags.Add(t);
     }
 
     /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
-    private List<Kept> Group(Work work, BusGroup group, List<FileState> early)
+    private List<Kept> Group(Work work, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<(string, TextValue)>? tags)
     {
         foreach (var f in group.Motors) work.Enter(f);
         List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. group.Motors] : group.Motors;
@@ -338,8 +374,10 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                     s.RelativePath));
             }
         }
-        work.Evaluate(Ordered(motors), new RepositoryIndex(motors.Select(s => s.Motor!)), parallel);
-        var kept = states.Where(s => s.IsChecked && s.Reported).Select(s => new Kept(s)).ToList();
+        work.Evaluate(Ordered(motors.Where(selected).ToArray()), new RepositoryIndex(motors.Select(s => s.Motor!)), parallel);
+        var done = states.Where(s => s.IsChecked && s.Reported).ToList();
+        Tags(done, tags);
+        var kept = done.Where(selected).Select(s => new Kept(s)).ToList();
         var busDocument = motors.Select(s => s.Motor!.Bus?.Document).FirstOrDefault(d => d?.RelativePath == group.Bus);
         foreach (var s in motors) Drop(work, s.Document);
         Drop(work, busDocument);
