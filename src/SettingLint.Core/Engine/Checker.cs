@@ -31,8 +31,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     internal Action<BoundDocument>? OnDropped { get; init; }
 
     /// <summary>
-    /// Binds every file before any rule runs and evaluates every motor against one index of them all, as a changed-files
-    /// run does (it needs every motor to choose which to report); tests compare it with the run bus by bus.
+    /// Binds every file (of a changed-files run, every file of its plan) before any rule runs and evaluates each motor
+    /// against one index of them all, as a changed-files run does when a changed file is one the quick read is unsure
+    /// of; tests compare it with the run bus by bus.
     /// </summary>
     internal bool OneGroup { get; init; }
 
