@@ -3,10 +3,20 @@ using System.Text;
 
 namespace SettingLint.Benchmarks;
 
-/// <summary>Writes a synthetic, valid setting repository: 20 motors per bus, two relay models, N motors.</summary>
+/// <summary>
+/// Writes a synthetic, valid setting repository: 20 motors per bus, two relay models, N motors. Like a real repository,
+/// most motors are set correctly: one in <see cref="PlantedEvery"/> carries a planted finding (an overvoltage pickup
+/// within the measuring error of the bus's highest voltage, SL607), so that a run's findings are a few, not one per motor.
+/// </summary>
 public static class Generator
 {
-    public static string Write(int motors)
+    /// <summary>One motor in this many has a planted finding.</summary>
+    public const int PlantedEvery = 50;
+
+    public static string Write(int motors) => Write(motors, PlantedEvery);
+
+    /// <summary>A repository where one motor in <paramref name="plantedEvery"/> has the planted finding (1: every motor; 0: none).</summary>
+    public static string Write(int motors, int plantedEvery)
     {
         var dir = Path.Combine(Path.GetTempPath(), $"settinglint-bench-{motors}-{Guid.NewGuid():N}"[..40]);
         Directory.CreateDirectory(Path.Combine(dir, ".git"));
@@ -22,7 +32,7 @@ public static class Generator
         File.WriteAllText(Path.Combine(dir, "models", "relay-b.yaml"), Model("RELAY-B", "Synthetic motor relay B, 5 A inputs"));
         for (var m = 1; m <= motors; m++)
         {
-            File.WriteAllText(Path.Combine(dir, "motors", $"p-{m:D5}.yaml"), Motor(m, (m - 1) / 20 + 1));
+            File.WriteAllText(Path.Combine(dir, "motors", $"p-{m:D5}.yaml"), Motor(m, (m - 1) / 20 + 1, plantedEvery > 0 && m % plantedEvery == 0));
         }
         return dir;
     }
@@ -36,6 +46,7 @@ public static class Generator
         title: 4.16 kV synthetic switchgear bus {b}
         nominal_voltage: 4160 V
         max_voltage: 4370 V
+        min_voltage: 3950 V
         fault_current_max: {17 + b % 3} kA
         fault_current_min: 13 kA
         x_over_r: 12
@@ -73,12 +84,15 @@ public static class Generator
 
         """;
 
-    private static string Motor(int m, int bus)
+    private static string Motor(int m, int bus, bool planted)
     {
         // Small, safe variations around a correctly set 1250 hp pump on a 200:5 CT.
         var flc = 154 + m % 9;                              // 154..162 A
         var accel = (3.3 + (m % 5) * 0.1).ToString("F1", CultureInfo.InvariantCulture);
         var model = m % 2 == 0 ? "relay-b" : "relay-a";
+        // 112 % of 4000 V is 4480 V, 2.5 % above the bus's 4370 V and inside SL602's 107-113 % window; the planted
+        // 110 % (4400 V) keeps only 0.7 % above it, within SL607's 2 % room.
+        var overvoltage = planted ? "110 %" : "112 %";
         var sb = new StringBuilder();
         sb.Append($"""
             # yaml-language-server: $schema=../../schema/motor-protection.schema.json
@@ -145,7 +159,7 @@ public static class Generator
                 delay: 6.5 s
               overvoltage:
                 enabled: true
-                pickup: 110 %
+                pickup: {overvoltage}
                 delay: 3 s
               acceleration:
                 enabled: true

@@ -61,9 +61,11 @@ public static class ProcessRuns
     /// Floor and check of each size as processes, interleaved round by round with every GC mode, so that a busy moment
     /// of the shared machine falls on all of them alike. Prints medians and the median of the per-round ratios.
     /// </summary>
-    public static void Repositories(string cli, string floorExe, int[] sizes, int rounds, bool gcModes)
+    /// <param name="others">Other builds of the CLI (such as the code before a change), run in the same rounds with the shipped setting.</param>
+    public static void Repositories(string cli, string floorExe, int[] sizes, int rounds, bool gcModes, IReadOnlyList<string>? others = null)
     {
         var modes = gcModes ? GcModes : GcModes[..1];
+        others ??= [];
         Console.WriteLine($"process runs: floor {floorExe} --floor DIR; check {cli} check DIR (text to a pipe); {rounds} rounds, interleaved");
         Console.WriteLine("| motors | run | wall ms (median) | CPU ms (median) | peak RSS MiB (median) | wall / floor (median of rounds) | CPU / floor (median of rounds) | RSS / floor | exit |");
         Console.WriteLine("|---:|---|---:|---:|---:|---:|---:|---:|---:|");
@@ -72,13 +74,16 @@ public static class ProcessRuns
             var dir = Generator.Write(n);
             var floor = new List<Sample>();
             var checks = modes.Select(_ => new List<Sample>()).ToArray();
+            var otherChecks = others.Select(_ => new List<Sample>()).ToArray();
             for (var r = 0; r < rounds; r++)
             {
                 floor.Add(Time(floorExe, ["--floor", dir], dir));
                 for (var m = 0; m < modes.Length; m++) checks[m].Add(Time(cli, ["check", dir], dir, modes[m].Environment));
+                for (var k = 0; k < others.Count; k++) otherChecks[k].Add(Time(others[k], ["check", dir], dir));
             }
             Print(n, "parse-only floor", floor, floor);
             for (var m = 0; m < modes.Length; m++) Print(n, "check, " + modes[m].Name, checks[m], floor);
+            for (var k = 0; k < others.Count; k++) Print(n, "check, " + others[k], otherChecks[k], floor);
             Directory.Delete(dir, true);
         }
     }

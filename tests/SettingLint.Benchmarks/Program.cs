@@ -23,6 +23,13 @@ if (args is ["--generate", var count])
     return 0;
 }
 
+// What a finding costs a run that keeps it to the end: the heap a check's result holds, with a finding on every motor and on none.
+if (args is ["--finding-cost", var costCount])
+{
+    FindingCost(int.Parse(costCount, CultureInfo.InvariantCulture));
+    return 0;
+}
+
 var sizes = new[] { 100, 1000, 10000 };
 string? cli = null;
 string? hello = null;
@@ -32,12 +39,14 @@ string? native = null;
 string? floorExe = null;
 var gcModes = false;
 var changed = 0;
+var others = new List<string>();
 for (var i = 0; i < args.Length; i++)
 {
     switch (args[i])
     {
         case "--native": native = args[++i]; break;
         case "--floor-exe": floorExe = args[++i]; break;
+        case "--also": others.Add(args[++i]); break;
         case "--gc-modes": gcModes = true; break;
         case "--changed": changed = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
         case "--sizes": sizes = args[++i].Split(',', StringSplitOptions.RemoveEmptyEntries).Select(int.Parse).ToArray(); break;
@@ -53,7 +62,7 @@ for (var i = 0; i < args.Length; i++)
 if (native is not null)
 {
     Console.WriteLine($"SettingLint process benchmarks  |  {Environment.ProcessorCount} logical CPUs  |  {DateTime.UtcNow:yyyy-MM-dd HH:mm} UTC  |  rounds={rounds}");
-    if (floorExe is not null) ProcessRuns.Repositories(native, floorExe, sizes, rounds, gcModes);
+    if (floorExe is not null) ProcessRuns.Repositories(native, floorExe, sizes, rounds, gcModes, others);
     if (changed > 0) ProcessRuns.ChangedSince(native, changed, rounds);
     if (hello is not null) StartUp(native, hello);
     return 0;
@@ -156,6 +165,33 @@ Console.WriteLine("(peak WS is cumulative for the process: each row includes the
 
 if (cli is not null) StartUp(cli, hello);
 return 0;
+
+static void FindingCost(int n)
+{
+    long Held(int plantedEvery, out int findings)
+    {
+        var dir = Generator.Write(n, plantedEvery);
+        try
+        {
+            _ = Session.Open([dir]).Check([dir], null); // warm: rules and schemas loaded, tables filled
+            GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
+            var before = GC.GetTotalMemory(true);
+            var result = Session.Open([dir]).Check([dir], null);
+            GC.Collect(); GC.WaitForPendingFinalizers(); GC.Collect();
+            var held = GC.GetTotalMemory(true) - before;
+            findings = result.Findings.Length;
+            GC.KeepAlive(result);
+            return held;
+        }
+        finally
+        {
+            Directory.Delete(dir, true);
+        }
+    }
+    var with = Held(1, out var many);
+    var without = Held(0, out var none);
+    Console.WriteLine($"{n} motors: result with {many} findings holds {with / 1024.0:F0} KiB, with {none} findings {without / 1024.0:F0} KiB: {(with - without) / (double)Math.Max(1, many - none):F0} bytes per finding");
+}
 
 static void ParseFloor(string dir)
 {

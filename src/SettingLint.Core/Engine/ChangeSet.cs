@@ -121,7 +121,18 @@ public sealed record ChangeSet(
     public static ImmutableArray<MotorReferences> ReferencesOf(string root, RepositoryIndex index) =>
         [.. index.Motors.Select(m => new MotorReferences(m.Document.RelativePath, Reference(root, m.Document, "bus"), Reference(root, m.Document, "relay_model")))];
 
-    private HashSet<string> TouchedBuses(string root, IReadOnlyCollection<MotorReferences> motors)
+    /// <summary>Whether the change selects a motor with these references (see <see cref="Select"/>), given its touched buses.</summary>
+    internal bool Selects(MotorReferences motor, IReadOnlySet<string> touchedBuses) =>
+        (motor.Bus is { } bus && touchedBuses.Contains(bus)) || (motor.RelayModel is { } relay && (Changed.Contains(relay) || Deleted.Contains(relay)));
+
+    /// <summary>A bound motor's references, resolved as the reference resolver does.</summary>
+    internal static MotorReferences ReferencesOf(string root, MotorProtection motor) =>
+        new(motor.Document.RelativePath, Reference(root, motor.Document, "bus"), Reference(root, motor.Document, "relay_model"));
+
+    /// <summary>The buses whose motors the change selects: changed or deleted files, the buses changed motors are or were on.</summary>
+    /// <param name="root">The repository root (absolute).</param>
+    /// <param name="motors">The references of (at least) the changed motors.</param>
+    internal HashSet<string> TouchedBuses(string root, IReadOnlyCollection<MotorReferences> motors)
     {
         var buses = new HashSet<string>(StringComparer.Ordinal);
         foreach (var rel in Changed.Union(Deleted))

@@ -14,7 +14,11 @@ namespace SettingLint.Core.Engine;
 
 /// <summary>
 /// The pipeline of one run: discover, load, validate and bind, resolve references, evaluate rules, collect findings.
-/// Each file's work is independent after loading, so files run in parallel; the output order never depends on it.
+/// A full run works bus by bus: a quick read of every file's references (<see cref="QuickScan"/>) tells which bus each
+/// motor is on before anything is loaded, and each bus with its motors is loaded, bound, evaluated and let go as one
+/// group, in parallel with the other groups. Then only the groups in flight are alive, with what the result lists of
+/// every file (its path, its tag, its findings), so that a run's memory does not grow with the size of its motor files.
+/// The output order never depends on the order of work.
 /// </summary>
 internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 {
@@ -23,23 +27,20 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// <summary>Called with each file as it is loaded, before it is bound; tests hold it weakly to see that no tree outlives its binding.</summary>
     internal Action<LoadedFile>? OnLoaded { get; init; }
 
-    /// <summary>Called with a motor's whole document once its own rules ran and only its later paths are kept; tests hold it weakly.</summary>
-    internal Action<BoundDocument>? OnStaged { get; init; }
+    /// <summary>Called with each motor's and bus's document when its group is done and let go; tests hold it weakly.</summary>
+    internal Action<BoundDocument>? OnDropped { get; init; }
 
     /// <summary>
-    /// Evaluates every rule of a motor in one go after binding even when the rule set can do it in two steps; tests
-    /// compare the two. The two steps keep 63 MB of heap at 10,000 motors where one step keeps 151 MB (docs/performance.md).
+    /// Binds every file (of a changed-files run, every file of its plan) before any rule runs and evaluates each motor
+    /// against one index of them all, as a changed-files run does when a changed file is one the quick read is unsure
+    /// of; tests compare it with the run bus by bus.
     /// </summary>
-    internal bool OneStep { get; init; }
+    internal bool OneGroup { get; init; }
 
     /// <summary>Does each pass's work in the reverse of discovery order; tests use it to show that the output order does not come from the order of work.</summary>
     internal bool Reversed { get; init; }
 
-    /// <summary>
-    /// What a run keeps of one file once its own values are bound: its findings, bound values (of a motor in a full run,
-    /// only those its later rules read) and acceptance comments. Its YAML tree and text are not kept, so that a run's
-    /// memory grows with the number of files only by these.
-    /// </summary>
+    /// <summary>A file while its group is in flight: everything read off it, and its findings so far.</summary>
     private sealed class FileState(string path, string relativePath, bool reported, bool isChecked, IReadOnlyList<Finding> loadFindings)
     {
         /// <summary>Absolute path.</summary>
@@ -71,11 +72,88 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         /// <summary>The bus written inline in a motor file.</summary>
         public Bus? InlineBus { get; set; }
 
+        /// <summary>Whether its references were resolved: a motor bound ahead of its group is not bound again.</summary>
+        public bool Resolved { get; set; }
+
         public MotorProtection? Motor { get; set; }
 
         /// <summary>The acceptance comments, found while the tree was there (it tells comments from text and finds blocks).</summary>
         public ImmutableArray<AcceptComment> Acceptances { get; set; } = [];
     }
+
+    /// <summary>
+    /// What a run keeps of a reported file once its group is done, until the end (the output is sorted, and SARIF and JSON
+    /// are written whole): its findings, its tag (tags are compared across the repository) and its acceptance comments.
+    /// </summary>
+    private sealed class Kept(FileState s)
+    {
+        public string RelativePath { get; } = s.RelativePath;
+
+        public IReadOnlyList<Finding> Findings { get; } = s.LoadFindings.Count + s.Findings.Findings.Count == 0 ? [] : [.. s.LoadFindings, .. s.Findings.Findings];
+
+        public IReadOnlyList<CheckNotRun> NotRun { get; } = s.Findings.NotRun.Count == 0 ? [] : [.. s.Findings.NotRun];
+
+        public ImmutableArray<AcceptComment> Acceptances { get; } = s.Acceptances;
+
+        public TextValue? Tag { get; } = s.Document?["tag"] as TextValue;
+
+        /// <summary>The motor's name (its tag, else its file name) when the file is a motor.</summary>
+        public string? Motor { get; } = s.Motor?.Tag;
+    }
+
+    /// <summary>The work of one run on its files, shared by its ways of dividing them.</summary>
+    private sealed class Work(Checker checker, CheckOptions options, IFileSource source, ConcurrentBag<Notification> notifications)
+    {
+        private readonly ConcurrentDictionary<string, Lazy<FileState>> _states = new(StringComparer.Ordinal);
+        private ReferenceResolver<FileState>? _resolver;
+
+        public ConcurrentBag<Notification> Notifications => notifications;
+
+        // A bus or relay model is loaded and bound by whichever comes first, its group or a motor that names it (Lazy runs
+        // it once). Own binding never resolves a reference, so no file waits on one that waits on it. A file that is not
+        // entered (or no longer) is loaded again for the reference, unreported.
+        private ReferenceResolver<FileState> Resolver => _resolver ??= new(source, _states, s => s.Document, (full, rel) => Load(full, rel, false));
+
+        /// <summary>Makes a discovered file's state the one that a reference to it finds (replacing an unreported one).</summary>
+        public void Enter(DiscoveredFile f) => _states[f.FullPath] = new Lazy<FileState>(() => Load(f.FullPath, f.RelativePath, true));
+
+        /// <summary>Lets a file's state go: a later reference to it loads it again, unreported.</summary>
+        public void Drop(string path) => _states.TryRemove(path, out _);
+
+        /// <summary>Loads and binds entered files, a motor with its references; the states in the order of the files.</summary>
+        public FileState[] Bind(IReadOnlyList<DiscoveredFile> files, bool parallel)
+        {
+            var resolver = Resolver;
+            var bound = new FileState[files.Count];
+            ForEach(parallel, Enumerable.Range(0, files.Count).ToArray(), i =>
+            {
+                var s = bound[i] = _states[files[i].FullPath].Value;
+                if (s.Kind != SchemaSet.MotorProtection || s.Resolved) return;
+                s.Resolved = true;
+                Guard(() => BindMotor(s, resolver, options.ElectricalCode), s.RelativePath, notifications);
+            });
+            return bound;
+        }
+
+        /// <summary>Evaluates every rule on each of these motors, with the index the rules over a bus read.</summary>
+        public void Evaluate(IReadOnlyList<FileState> motors, RepositoryIndex index, bool parallel) => ForEach(parallel, motors, s => Guard(
+            () => checker.Rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add), s.RelativePath, notifications, "a rule failed on this motor"));
+
+        // A file's own work in one go, while its tree is there: kind and format, validation and binding, acceptance
+        // comments. The tree and text are garbage once this returns, so only a few trees are alive at any time.
+        private FileState Load(string full, string rel, bool reported)
+        {
+            var loaded = Guard(() => source.Load(full, rel, options.EffectiveLimits), rel, notifications) ?? new LoadedFile(full, rel, null, [], []);
+            checker.OnLoaded?.Invoke(loaded);
+            var state = new FileState(full, rel, reported, loaded.IsSettingFile || loaded.Failed, loaded.Findings);
+            // A file without a kind binds to nothing: a reference to it is SL007 whether it is bound or not.
+            if (loaded.IsSettingFile) Guard(() => checker.BindOwn(state, loaded), rel, notifications);
+            if (reported && state.IsChecked && options.Accept) Guard(() => state.Acceptances = AcceptComments.Find(loaded), rel, notifications);
+            return state;
+        }
+    }
+
+    private IRuleSet Rules => rules;
 
     /// <summary>Runs a check.</summary>
     public CheckResult Run(CheckOptions options)
@@ -104,126 +182,243 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 "The path '" + o + "' lies outside the repository root " + root + " (found from the first path); check it in a run of its own."));
         }
 
-        var states = new ConcurrentDictionary<string, Lazy<FileState>>(StringComparer.Ordinal);
-        var limits = options.EffectiveLimits;
-        var toLoad = discovery.Files;
+        var work = new Work(this, options, source, notifications);
+        List<Kept> kept;
+        IEnumerable<(string File, TextValue Tag)> tags;
         IReadOnlyList<string>? planned = null;
-        if (options.Changes is { EverythingBecause: null } changed)
+        var dependants = ImmutableSortedSet<string>.Empty;
+        var discoveryFindings = discovery.Findings;
+        if (options.Changes is { EverythingBecause: null } changes)
         {
-            // Load only what the change can reach, found by a quick read of every file's references.
-            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), limits.MaxFileBytes, options.Parallel);
-            if (changed.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
+            // Load only what the change can reach, found by a quick read of every file's references; report only the
+            // changed files and their dependants. The changed motors are bound first: the buses they are on choose the rest.
+            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), options.EffectiveLimits.MaxFileBytes, options.Parallel);
+            var plan = changes.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath));
+            ImmutableSortedSet<string> selected;
+            if (plan is null || OneGroup)
             {
-                toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
-                planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
+                // A changed file the quick read is not sure of may be a motor on any bus: every file is bound, as one group.
+                var toLoad = plan is null ? discovery.Files : [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
+                if (plan is not null) planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
+                var settingFiles = BindAll(work, toLoad, options.Parallel);
+                var index = new RepositoryIndex(settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!));
+                (selected, dependants) = changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList());
+                var reported = settingFiles.Where(s => selected.Contains(s.RelativePath)).ToArray();
+                work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
+                kept = [.. reported.Select(s => new Kept(s))];
+                // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
+                tags = TagsOf(settingFiles);
             }
-        }
-        LoadedFile Read(string full, string rel) => source.Load(full, rel, limits);
-        // A file's own work in one go, while its tree is there: kind and format, validation and binding, acceptance
-        // comments. The tree and text are garbage once this returns, so only a few trees are alive at any time.
-        FileState LoadState(string full, string rel, bool reported)
-        {
-            var loaded = Guard(() => Read(full, rel), rel, notifications) ?? new LoadedFile(full, rel, null, [], []);
-            OnLoaded?.Invoke(loaded);
-            var state = new FileState(full, rel, reported, loaded.IsSettingFile || loaded.Failed, loaded.Findings);
-            // A file without a kind binds to nothing: a reference to it is SL007 whether it is bound or not.
-            if (loaded.IsSettingFile) Guard(() => BindOwn(state, loaded), rel, notifications);
-            if (reported && state.IsChecked && options.Accept) Guard(() => state.Acceptances = AcceptComments.Find(loaded), rel, notifications);
-            return state;
-        }
-        foreach (var f in toLoad)
-        {
-            var file = f;
-            states[f.FullPath] = new Lazy<FileState>(() => LoadState(file.FullPath, file.RelativePath, true));
-        }
-        var discovered = toLoad.Select(f => states[f.FullPath]).ToArray();
-        if (Reversed) Array.Reverse(discovered);
-        // A bus or relay model is loaded and bound by whichever comes first, the pass over it or a motor that names
-        // it (Lazy runs it once). Own binding never resolves a reference, so no file waits on one that waits on it.
-        var resolver = new ReferenceResolver<FileState>(source, states, s => s.Document, (full, rel) => LoadState(full, rel, false));
-        // A run that reports every file evaluates a motor's own rules as soon as it is bound, and keeps of it only what
-        // the rules over its bus read once every motor is bound (a changed-files run needs the whole index to choose).
-        var staged = !OneStep && rules is IStagedRuleSet { LaterPaths: { } later } stager && options.Changes is not { EverythingBecause: null }
-            // The run itself reads the tag of every motor afterwards (duplicate tags, the motors checked).
-            ? (Rules: stager, Keep: new PathSelection(later.Append("tag")), Run: new RepositoryIndex([]))
-            : default;
-        ForEach(options.Parallel, discovered, lazy =>
-        {
-            var s = lazy.Value;
-            if (s.Kind != SchemaSet.MotorProtection) return;
-            Guard(() => BindMotor(s, resolver, options.ElectricalCode), s.RelativePath, notifications);
-            if (staged.Rules is null || s.Motor is not { } motor || !s.Reported) return;
-            Guard(() => staged.Rules.EvaluateOwn(motor, staged.Run, s.Findings, notifications.Add), s.RelativePath, notifications, "a rule failed on this motor");
-            var kept = motor.Document.Restrict(staged.Keep);
-            s.Document = kept;
-            s.Motor = motor with { Document = kept };
-            OnStaged?.Invoke(motor.Document);
-        });
-        var settingFiles = discovered.Select(s => s.Value).Where(s => s.IsChecked).ToArray();
-
-        var motors = settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!).ToArray();
-        var index = new RepositoryIndex(motors);
-        ReportDuplicateTags(settingFiles);
-        // A changed-files run binds every file (the index needs them all) but evaluates and reports only its selection.
-        var (selected, dependants) = options.Changes is { EverythingBecause: null } changes
-            ? changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList())
-            : (null, ImmutableSortedSet<string>.Empty);
-        bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.RelativePath));
-        var reported = settingFiles.Where(Reported).ToArray();
-        var motorStates = reported.Where(s => s.Motor is not null).ToArray();
-        if (Reversed) Array.Reverse(motorStates);
-        ForEach(options.Parallel, motorStates, s => Guard(
-            () =>
+            else
             {
-                if (staged.Rules is null) rules.Evaluate(s.Motor!, index, s.Findings, notifications.Add);
-                else staged.Rules.EvaluateAcrossBus(s.Motor!, index, s.Findings, notifications.Add);
-            },
-            s.RelativePath, notifications, "a rule failed on this motor"));
+                List<DiscoveredFile> toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
+                planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
+                var changedMotors = refs.Where(m => changes.Changed.Contains(m.File)).Select(m => m.File);
+                Func<FileState, bool> Choose(IReadOnlyList<FileState> ahead)
+                {
+                    var buses = changes.TouchedBuses(root, [.. ahead.Where(s => s.Motor is not null && changes.Changed.Contains(s.RelativePath)).Select(s => ChangeSet.ReferencesOf(root, s.Motor!))]);
+                    return s => s.IsChecked && (changes.Changed.Contains(s.RelativePath) || (s.Motor is { } m && changes.Selects(ChangeSet.ReferencesOf(root, m), buses)));
+                }
+                var bound = new ConcurrentBag<(string, TextValue)>();
+                kept = ByBus(work, BusGroups.Of(toLoad, refs, [.. unsure.Concat(changedMotors)]), options.Parallel, Choose, bound);
+                tags = bound;
+                selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Select(k => k.RelativePath));
+                dependants = selected.Except(changes.Changed);
+            }
+            discoveryFindings = [.. discovery.Findings.Where(f => selected.Contains(f.File))];
+        }
+        else if (OneGroup)
+        {
+            var settingFiles = BindAll(work, discovery.Files, options.Parallel);
+            var motors = settingFiles.Where(s => s.Motor is not null).ToArray();
+            work.Evaluate(Ordered(motors), new RepositoryIndex(motors.Select(s => s.Motor!)), options.Parallel);
+            kept = [.. settingFiles.Select(s => new Kept(s))];
+            tags = kept.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
+        }
+        else
+        {
+            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), options.EffectiveLimits.MaxFileBytes, options.Parallel);
+            kept = ByBus(work, BusGroups.Of(discovery.Files, refs, unsure), options.Parallel);
+            tags = kept.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
+        }
 
         var known = descriptors.Select(d => d.Id).ToHashSet(StringComparer.Ordinal);
-        IEnumerable<Finding> Own(FileState s)
+        var reused = DuplicateTags(tags);
+        IEnumerable<Finding> Own(Kept s)
         {
-            IReadOnlyList<Finding> own = [.. s.LoadFindings, .. s.Findings.Findings];
+            IReadOnlyList<Finding> own = reused.TryGetValue(s.RelativePath, out var more) ? [.. s.Findings, .. more.Findings] : s.Findings;
             return options.Accept ? Acceptances.Apply(s.RelativePath, s.Acceptances, own, known) : own;
         }
-        var findings = discovery.Findings.Where(f => selected is null || selected.Contains(f.File))
-            .Concat(reported.SelectMany(Own))
+        var findings = discoveryFindings
+            .Concat(kept.SelectMany(Own))
             .OrderBy(f => f, Finding.Order)
             .ToImmutableArray();
-        var motorNames = motorStates.Select(s => s.Motor!.Tag).OrderBy(t => t, StringComparer.Ordinal).ToImmutableArray();
+        var motorFiles = kept.Where(s => s.Motor is not null).ToArray();
         return new CheckResult(
             root,
             findings,
             descriptors,
             [.. notifications.OrderBy(n => n.File ?? "", StringComparer.Ordinal).ThenBy(n => n.Message, StringComparer.Ordinal)],
-            reported.Length,
-            motorNames,
+            kept.Count,
+            [.. motorFiles.Select(s => s.Motor!).Order(StringComparer.Ordinal)],
             options.FailOn)
         {
-            CheckedFiles = [.. reported.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
-            NotRun = [.. reported.SelectMany(s => s.Findings.NotRun).Order(CheckNotRun.Order)],
-            MotorFiles = [.. motorStates.Select(s => (s.RelativePath, s.Motor!.Tag)).OrderBy(m => m.RelativePath, StringComparer.Ordinal)],
+            CheckedFiles = [.. kept.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
+            NotRun = [.. kept.SelectMany(s => s.NotRun).Order(CheckNotRun.Order)],
+            MotorFiles = [.. motorFiles.Select(s => (s.RelativePath, s.Motor!)).OrderBy(m => m.RelativePath, StringComparer.Ordinal)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
             LoadedFiles = planned,
         };
+    }
+
+    /// <summary>Enters and binds every one of these files; the setting files among them.</summary>
+    private FileState[] BindAll(Work work, IReadOnlyList<DiscoveredFile> files, bool parallel)
+    {
+        foreach (var f in files) work.Enter(f);
+        return [.. work.Bind(Ordered(files), parallel).Where(s => s.IsChecked)];
+    }
+
+    private static IEnumerable<(string File, TextValue Tag)> TagsOf(IEnumerable<FileState> files) =>
+        files.Where(s => s.Document?["tag"] is TextValue).Select(s => (s.RelativePath, (TextValue)s.Document!["tag"]!));
+
+    /// <summary>
+    /// A full run, bus by bus. The files the quick read is not sure of are bound first, to learn their bus; the files that
+    /// no bus group holds (relay models, buses without motors) next, kept for the run since any motor may name them.
+    /// Then each bus with its motors is loaded, bound, evaluated and let go, the groups in parallel.
+    /// </summary>
+    /// <param name="work">The run's work.</param>
+    /// <param name="plan">The files, divided.</param>
+    /// <param name="parallel">Run the groups in parallel.</param>
+    /// <param name="choose">
+    /// For a changed-files run: given the files bound first (the changed motors among them), which files to evaluate and
+    /// report; null reports every file.
+    /// </param>
+    /// <param name="tags">Receives the tag of every setting file bound, reported or not, when <paramref name="choose"/> is given.</param>
+    private List<Kept> ByBus(Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose = null, ConcurrentBag<(string, TextValue)>? tags = null)
+    {
+        var (kept, early, selected) = Ahead(work, plan, parallel, choose, tags);
+        var gate = new Lock();
+        ForEach(parallel, Ordered(plan.Buses.Values.ToArray()), group =>
+        {
+            var done = Group(work, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags);
+            lock (gate) kept.AddRange(done);
+        });
+        return kept;
+    }
+
+    /// <summary>
+    /// Binds the files the quick read is not sure of, and those that no group holds; evaluates the motors that are on no
+    /// shared bus. What the run keeps of them, and the motors bound ahead by the bus they name.
+    /// </summary>
+    private (List<Kept> Kept, Dictionary<string, List<FileState>> Early, Func<FileState, bool> Selected) Ahead(
+        Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose, ConcurrentBag<(string, TextValue)>? tags)
+    {
+        // Every file but the motors of a sure bus is entered now, so that a motor bound early, or any motor that names a
+        // relay model, shares the reported state of what it names instead of loading it unreported.
+        foreach (var f in plan.First.Concat(plan.Others)) work.Enter(f);
+        foreach (var g in plan.Buses.Values)
+        {
+            if (g.File is { } file) work.Enter(file);
+        }
+        var early = new Dictionary<string, List<FileState>>(StringComparer.Ordinal);
+        var alone = new List<FileState>();
+        var first = work.Bind(Ordered(plan.First), parallel);
+        var selected = choose?.Invoke(first) ?? (_ => true);
+        foreach (var s in first)
+        {
+            if (s.Motor is { Bus: { } bus } motor && bus.Document.Path != motor.Document.Path)
+            {
+                // A motor bound ahead joins the group of the bus it names, bound as it is.
+                (early.TryGetValue(bus.Document.RelativePath, out var list) ? list : early[bus.Document.RelativePath] = []).Add(s);
+            }
+            else
+            {
+                alone.Add(s);
+            }
+        }
+        foreach (var bus in early.Keys)
+        {
+            if (!plan.Buses.ContainsKey(bus)) plan.Buses[bus] = new BusGroup(bus, null, []);
+        }
+        // A motor with an inline bus, or none, is on a bus of its own: one index serves them all.
+        var loners = alone.Where(s => s.Motor is not null).ToArray();
+        work.Evaluate(Ordered(loners.Where(selected).ToArray()), new RepositoryIndex(loners.Select(s => s.Motor!)), parallel);
+        var done = alone.Concat(work.Bind(Ordered(plan.Others), parallel)).Where(s => s.IsChecked && s.Reported).ToList();
+        Tags(done, tags);
+        var kept = done.Where(selected).Select(s => new Kept(s)).ToList();
+        foreach (var s in loners) Drop(work, s.Document);
+        return (kept, early, selected);
+    }
+
+    private static void Tags(IEnumerable<FileState> files, ConcurrentBag<(string, TextValue)>? tags)
+    {
+        if (tags is null) return;
+        foreach (var t in TagsOf(files)) tags.Add(t);
+    }
+
+    /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
+    private List<Kept> Group(Work work, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<(string, TextValue)>? tags)
+    {
+        foreach (var f in group.Motors) work.Enter(f);
+        List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. group.Motors] : group.Motors;
+        // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many.
+        var parallel = group.Motors.Count >= 64;
+        var states = work.Bind(Ordered(files), parallel).Concat(early).ToArray();
+        var motors = states.Where(s => s.Motor is not null).ToArray();
+        foreach (var s in motors)
+        {
+            // The quick read is sure of the bus, and the group's other motors are those the rules over the bus compare with.
+            if (s.Motor!.Bus is { } bus && bus.Document.Path != s.Path && bus.Document.RelativePath != group.Bus)
+            {
+                work.Notifications.Add(new Notification(NotificationKind.Internal,
+                    "Internal error while checking this file: the quick read of references found the bus " + group.Bus + ", the loader " + bus.Document.RelativePath + "; the rules over the bus may have missed motors.",
+                    s.RelativePath));
+            }
+        }
+        work.Evaluate(Ordered(motors.Where(selected).ToArray()), new RepositoryIndex(motors.Select(s => s.Motor!)), parallel);
+        var done = states.Where(s => s.IsChecked && s.Reported).ToList();
+        Tags(done, tags);
+        var kept = done.Where(selected).Select(s => new Kept(s)).ToList();
+        var busDocument = motors.Select(s => s.Motor!.Bus?.Document).FirstOrDefault(d => d?.RelativePath == group.Bus);
+        foreach (var s in motors) Drop(work, s.Document);
+        Drop(work, busDocument);
+        if (group.File is { } file) work.Drop(file.FullPath);
+        early.Clear();
+        return kept;
+    }
+
+    private void Drop(Work work, BoundDocument? doc)
+    {
+        if (doc is null) return;
+        work.Drop(doc.Path);
+        OnDropped?.Invoke(doc);
+    }
+
+    private T[] Ordered<T>(IReadOnlyList<T> items)
+    {
+        var array = items.ToArray();
+        if (Reversed) Array.Reverse(array);
+        return array;
     }
 
     private static ChangeScope Scope(ChangeSet changes, ImmutableSortedSet<string> dependants) =>
         new(changes.Revision, changes.Staged, [.. changes.Changed], [.. changes.Deleted], [.. dependants], changes.EverythingBecause);
 
     /// <summary>A tag names one piece of equipment in the repository: every later file that reuses one is told where it is taken.</summary>
-    private static void ReportDuplicateTags(IEnumerable<FileState> files)
+    /// <returns>The findings of the files that reuse a tag, by file.</returns>
+    private static Dictionary<string, FindingBuilder> DuplicateTags(IEnumerable<(string File, TextValue Tag)> files)
     {
-        var tagged = files.Where(f => f.Document?["tag"] is TextValue).GroupBy(f => ((TextValue)f.Document!["tag"]!).Value, StringComparer.Ordinal);
-        foreach (var group in tagged)
+        var found = new Dictionary<string, FindingBuilder>(StringComparer.Ordinal);
+        foreach (var group in files.GroupBy(f => f.Tag.Value, StringComparer.Ordinal))
         {
-            var ordered = group.OrderBy(f => f.RelativePath, StringComparer.Ordinal).ToList();
+            var ordered = group.OrderBy(f => f.File, StringComparer.Ordinal).ToList();
             foreach (var later in ordered.Skip(1))
             {
-                later.Findings.Add(EngineMessages.TagAlreadyUsedBy, later.Document!["tag"]!.Span, "tag",
-                    ("tag", group.Key), ("other", ordered[0].RelativePath));
+                var builder = found.TryGetValue(later.File, out var b) ? b : found[later.File] = new FindingBuilder(later.File);
+                builder.Add(EngineMessages.TagAlreadyUsedBy, later.Tag.Span, "tag", ("tag", group.Key), ("other", ordered[0].File));
             }
         }
+        return found;
     }
 
     private static void ForEach<T>(bool parallel, IReadOnlyList<T> items, Action<T> action)

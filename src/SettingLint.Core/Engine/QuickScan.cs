@@ -10,6 +10,7 @@ namespace SettingLint.Core.Engine;
 /// A quick read of the top-level <c>kind</c>, <c>bus</c> and <c>relay_model</c> lines of YAML files, without a YAML
 /// parser or schema, so that a changed-files run loads only what a change can reach. A file it cannot read for
 /// certain (a flow document, a quoted key, an anchor, a tag, an escape) is reported as uncertain and loaded anyway.
+/// A full run groups the motors by the bus it finds (<see cref="BusGroups"/>).
 /// </summary>
 internal static class QuickScan
 {

@@ -12,7 +12,7 @@ namespace SettingLint.Core.Engine;
 /// sets them (on or off, severity, parameters). Folders that add no rule setting share the root's rule set; each other
 /// set of settings gets one rule set for the run, made on first use, with the root's listeners.
 /// </summary>
-internal sealed class ScopedRuleSet : IStagedRuleSet
+internal sealed class ScopedRuleSet : IRuleSet
 {
     private readonly RuleSet _root;
     private readonly ConfigScopes _scopes;
@@ -25,27 +25,15 @@ internal sealed class ScopedRuleSet : IStagedRuleSet
         _root = root;
         _scopes = scopes;
         _sets[root.Rules] = root;
-        // A folder may switch on a rule the root switched off: the descriptors and the paths kept for the second step are
-        // those of every loaded rule then, so that no folder's rule reads a value the run dropped.
-        var everyRule = root.Rules.Any(r => r.Level == Level.None)
-            ? new RuleSet([.. root.Rules.Select(r => r.Level == Level.None ? r with { Level = r.Descriptor.DefaultLevel } : r)])
-            : root;
-        Descriptors = everyRule.Descriptors;
-        LaterPaths = everyRule.LaterPaths;
+        // A folder may switch on a rule the root switched off (back to its default level): the descriptors are those of
+        // every loaded rule that is on by default or at the root.
+        Descriptors = [.. root.Rules.Where(r => (r.Level == Level.None ? r.Descriptor.DefaultLevel : r.Level) != Level.None).Select(r => r.Descriptor)];
     }
 
     public ImmutableArray<RuleDescriptor> Descriptors { get; }
 
-    public IReadOnlySet<string>? LaterPaths { get; }
-
     public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify) =>
         For(motor).Evaluate(motor, index, findings, notify);
-
-    public void EvaluateOwn(MotorProtection motor, RepositoryIndex run, FindingBuilder findings, Action<Notification> notify) =>
-        For(motor).EvaluateOwn(motor, run, findings, notify);
-
-    public void EvaluateAcrossBus(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify) =>
-        For(motor).EvaluateAcrossBus(motor, index, findings, notify);
 
     private RuleSet For(MotorProtection motor) =>
         _sets.GetOrAdd(_scopes.For(motor.Document.RelativePath).Rules, rules => new RuleSet(rules) { Outcomes = _root.Outcomes, Motors = _root.Motors });

@@ -36,7 +36,7 @@ public static class Linter
         if (!session.Problems.IsEmpty) return session.Stopped(threshold, session.Problems);
         var observers = request.Observers;
         // Suggestions come from this run's own outcomes and motors: a collector listens beside the caller's observers.
-        var collector = request.Suggest ? new FixCollector() : null;
+        using var collector = request.Suggest ? new FixCollector() : null;
         if (collector is not null) observers = observers.Add(collector);
         var ruleSet = session.Rules;
         if (!observers.IsEmpty)
@@ -61,31 +61,92 @@ public static class Linter
         return set.ApplyTo(result);
     }
 
-    /// <summary>Keeps a run's motors and outcomes for its suggestions (calls come from several threads).</summary>
-    private sealed class FixCollector : ICheckObserver
+    /// <summary>
+    /// Keeps, for a run's suggestions, the motors that failed a rule with all their outcomes: a suggestion is made only for a
+    /// finding, and its window needs every rule's outcome on that motor. A motor that passes every rule is let go with its
+    /// outcomes, so that a run keeps neither every motor's document nor every rule's outcome on every motor.
+    /// </summary>
+    /// <remarks>
+    /// A rule set calls <see cref="OnMotor"/> and then each of the motor's outcomes on one thread, one motor after the
+    /// other: each thread's current motor is held until its next one (or the end) tells whether it is kept.
+    /// </remarks>
+    private sealed class FixCollector : ICheckObserver, IDisposable
     {
         private readonly ConcurrentQueue<RuleOutcome> _outcomes = new();
         private readonly ConcurrentDictionary<string, MotorProtection> _motors = new(StringComparer.Ordinal);
+        private readonly ThreadLocal<Current> _current = new(() => new Current(), trackAllValues: true);
 
-        public IEnumerable<RuleOutcome> Outcomes => _outcomes;
+        /// <summary>Every outcome of the kept motors; read once the run is over.</summary>
+        public IEnumerable<RuleOutcome> Outcomes
+        {
+            get
+            {
+                FlushAll();
+                return _outcomes;
+            }
+        }
 
-        public IReadOnlyDictionary<string, MotorProtection> Motors => _motors;
+        /// <summary>The kept motors by file; read once the run is over.</summary>
+        public IReadOnlyDictionary<string, MotorProtection> Motors
+        {
+            get
+            {
+                FlushAll();
+                return _motors;
+            }
+        }
 
-        public void OnMotor(MotorProtection motor) => _motors.TryAdd(motor.Document.RelativePath, motor);
+        public void OnMotor(MotorProtection motor)
+        {
+            var current = _current.Value!;
+            Flush(current);
+            current.Motor = motor;
+        }
 
         // Only an outcome that bounds its own subject can make a window (SettingWindows.Derive reads no other). With the
         // windows derived only for settings with a finding (FixFinder), peak RSS at 10,000 motors fell from 721 to 563 MiB
         // and CPU from 8.1 x to 6.7 x the parse-only floor's (docs/performance.md, 2026-12-05, third measurement).
         public void OnOutcome(RuleOutcome outcome)
         {
+            var current = _current.Value!;
+            current.Failed |= !outcome.Passed;
             foreach (var b in outcome.Bounds)
             {
                 if (b.Path == outcome.Subject && (b.IsLower || b.IsUpper))
                 {
-                    _outcomes.Enqueue(outcome);
+                    current.Outcomes.Add(outcome);
                     return;
                 }
             }
+        }
+
+        public void Dispose() => _current.Dispose();
+
+        private void FlushAll()
+        {
+            foreach (var current in _current.Values) Flush(current);
+        }
+
+        private void Flush(Current current)
+        {
+            if (current.Failed)
+            {
+                if (current.Motor is { } motor) _motors.TryAdd(motor.Document.RelativePath, motor);
+                foreach (var o in current.Outcomes) _outcomes.Enqueue(o);
+            }
+            current.Motor = null;
+            current.Outcomes.Clear();
+            current.Failed = false;
+        }
+
+        /// <summary>A thread's motor under evaluation and its outcomes so far.</summary>
+        private sealed class Current
+        {
+            public MotorProtection? Motor { get; set; }
+
+            public List<RuleOutcome> Outcomes { get; } = [];
+
+            public bool Failed { get; set; }
         }
     }
 

@@ -46,22 +46,6 @@ public sealed class BoundDocument
         _keys = keys;
     }
 
-    /// <summary>
-    /// The same document for these key paths only: for each of them it gives the same value and the same span as this
-    /// one (a span found through the keys on the way included), and it keeps nothing of any other path.
-    /// </summary>
-    public BoundDocument Restrict(PathSelection kept)
-    {
-        ArgumentNullException.ThrowIfNull(kept);
-        var values = new Dictionary<string, BoundValue>(StringComparer.Ordinal);
-        foreach (var p in kept.Paths)
-        {
-            if (_values.TryGetValue(p, out var v)) values[p] = v;
-        }
-        values.TrimExcess();
-        return new BoundDocument(Kind, Path, RelativePath, values, _keys.Restrict(kept));
-    }
-
     /// <summary>motor-protection, bus or relay-model.</summary>
     public string Kind { get; }
 

@@ -87,44 +87,6 @@ internal sealed class KeySpans
     }
 
     /// <summary>
-    /// The key spans that <see cref="SpanOf"/> reads for these paths: a scalar at one of them, and the keys at each of
-    /// them and on the way to each.
-    /// </summary>
-    public KeySpans Restrict(PathSelection kept)
-    {
-        // A subset of an array in its order is sorted when the array is; read under the lock, in case it is being sorted.
-        if (_sorted) return Filter();
-        lock (_keys)
-        {
-            return Filter();
-        }
-
-        // Plain loops into this thread's lists: their code is ready from Of, where a query over these structs is not.
-        KeySpans Filter()
-        {
-            var keys = t_keys ??= new List<Entry>(256);
-            var scalars = t_scalars ??= new List<Entry>(16);
-            try
-            {
-                foreach (var e in _keys)
-                {
-                    if (kept.OnTheWay.Contains(e.Path)) keys.Add(e);
-                }
-                foreach (var e in _unboundScalars)
-                {
-                    if (kept.Paths.Contains(e.Path)) scalars.Add(e);
-                }
-                return new KeySpans(keys.ToArray(), scalars.ToArray(), _sorted);
-            }
-            finally
-            {
-                keys.Clear();
-                scalars.Clear();
-            }
-        }
-    }
-
-    /// <summary>
     /// The span for a path that has no bound value: a scalar written there, else the key there (of a mapping or list),
     /// else the deepest key on the way (whose value has no such child), else the file's start.
     /// </summary>

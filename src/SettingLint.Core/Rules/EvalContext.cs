@@ -129,8 +129,10 @@ internal sealed class PathTable
         {
             if (_slots.TryGetValue(path, out s)) return s;
             s = new PathSlot(this, _count, path);
-            _slots[path] = s;
+            // The count first: a thread that finds the slot without the lock (a relay range's path, numbered while other
+            // motors are evaluated) sizes its arrays by the count, and must find the slot's index inside them.
             Volatile.Write(ref _count, _count + 1);
+            _slots[path] = s;
             return s;
         }
     }

@@ -56,32 +56,20 @@ internal sealed class LetPlan
 /// <summary>The expressions a rule is made of, and the document paths they read.</summary>
 internal static class RuleExpressions
 {
-    /// <summary>The sides of a check's comparisons and its plain expressions; an unknown kind of node gives an expression no analysis knows.</summary>
+    /// <summary>The sides of a check's comparisons and its plain expressions.</summary>
     public static IEnumerable<Expr> Check(CheckNode node) => node switch
     {
         ComparisonNode c => [c.Left.Source, c.Right.Source],
         AndNode a => Check(a.Left).Concat(Check(a.Right)),
         OrNode o => Check(o.Left).Concat(Check(o.Right)),
         PlainNode p => [p.Expression.Source],
-        _ => [new Call(0, "", [])],
+        _ => [],
     };
 
     /// <summary>The motor and bus key paths a rule reads (bus ones with their "bus." prefix), in its lets, guard and check.</summary>
     public static IEnumerable<string> Paths(CompiledRule rule) =>
         All(rule).SelectMany(Paths).Where(p => p.Contains('.', StringComparison.Ordinal)
             && !p.StartsWith("param.", StringComparison.Ordinal) && !p.StartsWith("item.", StringComparison.Ordinal));
-
-    /// <summary>Whether a rule reads other motors (an aggregate over its bus) in its lets, guard or check.</summary>
-    public static bool ReadsOtherMotors(CompiledRule rule) => All(rule).Any(HasAggregate);
-
-    /// <summary>Whether an expression has an aggregate in it; the expression that stands for an unknown check counts as one.</summary>
-    public static bool HasAggregate(Expr e) => e switch
-    {
-        Call c => c.Name.Length == 0 || (Functions.All.TryGetValue(c.Name, out var fn) && fn.OverOtherMotors) || c.Args.Any(HasAggregate),
-        Unary u => HasAggregate(u.Operand),
-        Binary b => HasAggregate(b.Left) || HasAggregate(b.Right),
-        _ => false,
-    };
 
     private static IEnumerable<Expr> All(CompiledRule rule)
     {

@@ -16,7 +16,7 @@ public sealed record RuleOutcome(string RuleId, string MotorFile, string Motor, 
 }
 
 /// <summary>The compiled rules of a run, applied to every motor.</summary>
-public sealed class RuleSet : IStagedRuleSet
+public sealed class RuleSet : IRuleSet
 {
     private static readonly PathSlot GroundConnection = PathTable.Motor.Of(SchemaPaths.Motor.GroundCtConnection);
 
@@ -34,10 +34,8 @@ public sealed class RuleSet : IStagedRuleSet
     private readonly ImmutableArray<string>[] _labels;
     private readonly int _maxLets;
 
-    // Every enabled rule in one go, and the same rules split into the two steps of a staged run.
+    // Every enabled rule, with the paths they read.
     private readonly Stage _all;
-    private readonly Stage _own;
-    private readonly Stage _acrossBus;
 
     private readonly ConditionalWeakTable<RepositoryIndex, RunCache> _runs = new();
 
@@ -48,25 +46,20 @@ public sealed class RuleSet : IStagedRuleSet
         _plans = [.. rules.Select(LetPlan.For)];
         _labels = [.. rules.Select(CheckBounds.Labels)];
         _maxLets = rules.IsEmpty ? 0 : rules.Max(r => r.Lets.Length);
-        var across = rules.Select(RuleExpressions.ReadsOtherMotors).ToArray();
-        _all = new Stage(rules, _ => true);
-        _own = new Stage(rules, k => !across[k]);
-        _acrossBus = new Stage(rules, k => across[k]);
-        LaterPaths = _acrossBus.KeepPaths(rules);
+        _all = new Stage(rules);
     }
 
-    /// <summary>The rules of one step: which of them run, and the document paths they read, read together at the start of each motor.</summary>
+    /// <summary>Which rules run, and the document paths they read, read together at the start of each motor.</summary>
     private sealed class Stage
     {
-        public Stage(ImmutableArray<CompiledRule> rules, Func<int, bool> includes)
+        public Stage(ImmutableArray<CompiledRule> rules)
         {
-            Includes = [.. Enumerable.Range(0, rules.Length).Select(k => rules[k].Level != Level.None && includes(k))];
+            Includes = [.. Enumerable.Range(0, rules.Length).Select(k => rules[k].Level != Level.None)];
             var enabled = Enumerable.Range(0, rules.Length).Where(k => Includes[k]).Select(k => rules[k]).ToList();
             var paths = enabled.SelectMany(RuleExpressions.Paths).Distinct(StringComparer.Ordinal).ToList();
             MotorSlots = [.. paths.Where(p => !p.StartsWith("bus.", StringComparison.Ordinal)).Select(PathTable.Motor.Of)];
             BusSlots = [.. paths.Where(p => p.StartsWith("bus.", StringComparison.Ordinal)).Select(p => PathTable.Bus.Of(p["bus.".Length..]))];
             ForEachRange = enabled.Any(r => r.ForEachRange);
-            Empty = enabled.Count == 0;
         }
 
         public bool[] Includes { get; }
@@ -76,28 +69,7 @@ public sealed class RuleSet : IStagedRuleSet
         public PathSlot[] BusSlots { get; }
 
         public bool ForEachRange { get; }
-
-        public bool Empty { get; }
-
-        /// <summary>
-        /// The motor paths this step reads, with the tag and every subject (findings are placed on it and show its value);
-        /// null when a rule reads relay ranges, whose paths come from the relay model.
-        /// </summary>
-        public IReadOnlySet<string>? KeepPaths(ImmutableArray<CompiledRule> rules)
-        {
-            if (ForEachRange) return null;
-            var keep = new HashSet<string>(StringComparer.Ordinal) { "tag" };
-            foreach (var slot in MotorSlots) keep.Add(slot.Path);
-            for (var k = 0; k < rules.Length; k++)
-            {
-                if (Includes[k]) keep.Add(rules[k].Subject);
-            }
-            return keep;
-        }
     }
-
-    /// <inheritdoc />
-    public IReadOnlySet<string>? LaterPaths { get; }
 
     public ImmutableArray<CompiledRule> Rules { get; }
 
@@ -114,19 +86,6 @@ public sealed class RuleSet : IStagedRuleSet
     {
         Motors?.Invoke(motor);
         Evaluate(_all, motor, index, findings, notify);
-    }
-
-    /// <inheritdoc />
-    public void EvaluateOwn(MotorProtection motor, RepositoryIndex run, FindingBuilder findings, Action<Notification> notify)
-    {
-        Motors?.Invoke(motor);
-        Evaluate(_own, motor, run, findings, notify);
-    }
-
-    /// <inheritdoc />
-    public void EvaluateAcrossBus(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
-    {
-        if (!_acrossBus.Empty) Evaluate(_acrossBus, motor, index, findings, notify);
     }
 
     private void Evaluate(Stage stage, MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)

@@ -62,42 +62,4 @@ public sealed class DeterminismTests
         Assert.Contains("\"executionSuccessful\": false", sarif, StringComparison.Ordinal);
         Assert.Contains("toolExecutionNotifications", sarif, StringComparison.Ordinal);
     }
-
-    /// <summary>Throws after the first step of one motor and in the second step of another; the rest of both steps runs.</summary>
-    private sealed class ThrowingStagedRules(IStagedRuleSet inner, string ownVictim, string busVictim) : IStagedRuleSet
-    {
-        public ImmutableArray<RuleDescriptor> Descriptors => inner.Descriptors;
-
-        public IReadOnlySet<string>? LaterPaths => inner.LaterPaths;
-
-        public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify) =>
-            throw new InvalidOperationException("a full run evaluates in two steps");
-
-        public void EvaluateOwn(MotorProtection motor, RepositoryIndex run, FindingBuilder findings, Action<Notification> notify)
-        {
-            inner.EvaluateOwn(motor, run, findings, notify);
-            if (motor.Tag == ownVictim) throw new InvalidOperationException("simulated failure of an own rule");
-        }
-
-        public void EvaluateAcrossBus(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
-        {
-            if (motor.Tag == busVictim) throw new InvalidOperationException("simulated failure of a rule over the bus");
-            inner.EvaluateAcrossBus(motor, index, findings, notify);
-        }
-    }
-
-    [Fact]
-    public void A_rule_that_throws_in_either_step_of_a_full_run_is_exit_3_while_other_findings_stay()
-    {
-        var session = Session.Open([Examples()]);
-        var result = new Checker(new ThrowingStagedRules(session.Rules, "P-202", "B-401")).Run(new CheckOptions([Examples()]));
-        Assert.Equal(
-            ["examples/motors/b-401.yaml: simulated failure of a rule over the bus", "examples/motors/p-202.yaml: simulated failure of an own rule"],
-            result.Notifications.Where(n => n.Kind == NotificationKind.Internal).Select(n => n.File + ": " + n.Message[(n.Message.IndexOf(": ", StringComparison.Ordinal) + 2)..]).Order(StringComparer.Ordinal));
-        Assert.Equal(ExitCodes.Internal, result.ExitCode);
-        // P-202's own rules ran before the failure, B-401's own rules before the failing second step, the others in full.
-        Assert.Contains(result.Findings, f => f.RuleId == "SL102" && f.File == "examples/motors/p-202.yaml");
-        Assert.Contains(result.Findings, f => f.RuleId == "SL302" && f.File == "examples/motors/b-401.yaml");
-        Assert.Contains(result.Findings, f => f.RuleId == "SL701" && f.File == "examples/motors/p-503.yaml");
-    }
 }
