@@ -78,7 +78,10 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>Runs a check.</summary>
-    public CheckResult Run(CheckOptions options)
+    public CheckResult Run(CheckOptions options) => Run(options, usePlan: true);
+
+    // With usePlan, a changed-files run loads only what its quick read says the change can reach.
+    private CheckResult Run(CheckOptions options, bool usePlan)
     {
         _schemas.Warm();
         IReadOnlyList<string> shown = options.Paths.Count == 0 ? ["."] : options.Paths;
@@ -108,11 +111,13 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var limits = options.EffectiveLimits;
         var toLoad = discovery.Files;
         IReadOnlyList<string>? planned = null;
-        if (options.Changes is { EverythingBecause: null } changed)
+        IReadOnlyDictionary<string, string>? quickTags = null;
+        if (usePlan && options.Changes is { EverythingBecause: null } changed)
         {
             // Load only what the change can reach, found by a quick read of every file's references.
-            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), limits.MaxFileBytes, options.Parallel);
-            if (changed.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath)) is { } plan)
+            var (refs, unsure, tags) = QuickScan.Read(root, discovery.Files, source, limits.MaxFileBytes, options.Parallel);
+            quickTags = tags;
+            if (changed.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath), tags) is { } plan)
             {
                 toLoad = [.. discovery.Files.Where(f => plan.Contains(f.RelativePath))];
                 planned = [.. toLoad.Select(f => f.RelativePath).Order(StringComparer.Ordinal)];
@@ -170,6 +175,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             : (null, ImmutableSortedSet<string>.Empty);
         bool Reported(FileState s) => s.Reported && (selected is null || selected.Contains(s.RelativePath));
         var reported = settingFiles.Where(Reported).ToArray();
+        // A selected file that the quick read was not sure of may have the tag of a file the plan left unread.
+        if (planned is not null && UnreadTagMate(reported, planned, quickTags!)) return Run(options, usePlan: false);
         var motorStates = reported.Where(s => s.Motor is not null).ToArray();
         if (Reversed) Array.Reverse(motorStates);
         ForEach(options.Parallel, motorStates, s => Guard(
@@ -206,6 +213,14 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
             LoadedFiles = planned,
         };
+    }
+
+    private static bool UnreadTagMate(IEnumerable<FileState> reported, IReadOnlyList<string> planned, IReadOnlyDictionary<string, string> quickTags)
+    {
+        var tags = reported.Select(s => s.Document?["tag"]).OfType<TextValue>().Select(t => t.Value).ToHashSet(StringComparer.Ordinal);
+        if (tags.Count == 0) return false;
+        var loaded = planned.ToHashSet(StringComparer.Ordinal);
+        return quickTags.Any(t => tags.Contains(t.Value) && !loaded.Contains(t.Key));
     }
 
     private static ChangeScope Scope(ChangeSet changes, ImmutableSortedSet<string> dependants) =>
