@@ -27,17 +27,17 @@ internal static class QuickScan
     /// <param name="read">Reads a file's bytes (from an overlay or the disk); null when it cannot be read.</param>
     /// <param name="maxBytes">Files above this size are left to the loader (and its SL008).</param>
     /// <param name="parallel">Read the files in parallel.</param>
-    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, ImmutableDictionary<string, string> Tags) Read(
+    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
         string root, IReadOnlyList<DiscoveredFile> files, Func<DiscoveredFile, byte[]?> read, long maxBytes, bool parallel) =>
         Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => FileBytes.CopyInto(read(f), max, ref buffer), maxBytes, parallel);
 
     /// <summary>The same, each file read through a source into a buffer that each thread keeps (no array per file).</summary>
-    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, ImmutableDictionary<string, string> Tags) Read(
+    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
         string root, IReadOnlyList<DiscoveredFile> files, IFileSource source, long maxBytes, bool parallel) =>
         Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => source.ReadInto(f.FullPath, f.RelativePath, max, ref buffer), maxBytes, parallel);
 
     /// <summary>The same, with the files read by <paramref name="read"/>.</summary>
-    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, ImmutableDictionary<string, string> Tags) Read(
+    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
         string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel)
     {
         var found = new ConcurrentBag<Written>();
@@ -74,7 +74,7 @@ internal static class QuickScan
             // An empty value is an inline bus mapping: the motor's own, shared with no other motor.
             return new MotorReferences(m.File.RelativePath, m.Bus.Length == 0 ? null : Resolve(dir, m.Bus), m.RelayModel is null ? null : Resolve(dir, m.RelayModel));
         });
-        return ([.. motors], [.. uncertain.Order(StringComparer.Ordinal)], ImmutableDictionary.CreateRange(StringComparer.Ordinal, tags));
+        return ([.. motors], [.. uncertain.Order(StringComparer.Ordinal)], new Dictionary<string, string>(tags, StringComparer.Ordinal));
     }
 
     private const int BufferBytes = 64 * 1024;
