@@ -13,7 +13,7 @@ public sealed class GateQuickScanTests
     private static (MotorReferences? Motor, bool Unsure) Scan(string text)
     {
         var file = new DiscoveredFile("/r/motors/m-1.yaml", "motors/m-1.yaml");
-        var (motors, unsure) = QuickScan.Read(Root, [file], _ => Encoding.UTF8.GetBytes(text), 4 << 20, parallel: false);
+        var (motors, unsure, _) = QuickScan.Read(Root, [file], _ => Encoding.UTF8.GetBytes(text), 4 << 20, parallel: false);
         return (motors.SingleOrDefault(), unsure.Contains("motors/m-1.yaml"));
     }
 
@@ -43,9 +43,28 @@ public sealed class GateQuickScanTests
     [InlineData("kind: motor-protection\nbus: a.yaml\nbus: b.yaml\n")]
     [InlineData("kind: motor-protection\nbus: ../buses/b-1.yaml\n--- \nkind: bus\n")]
     [InlineData("title: notes without a kind\n")]
+    [InlineData("kind: motor-protection\nbus:\n  ../buses/b-1.yaml\n")]
+    [InlineData("kind: motor-protection\nbus: ../buses/\n\n  b-1.yaml\n")]
+    [InlineData("kind:\n  motor-protection\nbus: ../buses/b-1.yaml\n")]
+    [InlineData("kind: motor-protection\ntag:\n  M-1\nbus: ../buses/b-1.yaml\n")]
+    [InlineData("kind: motor-protection\nbus:\n  - ../buses/b-1.yaml\n")]
     public void Anything_richer_is_unsure_and_so_loaded(string text)
     {
         Assert.True(Scan(text).Unsure);
+    }
+
+    [Fact]
+    public void Tags_are_read_from_every_kind_of_setting_file()
+    {
+        DiscoveredFile[] files = [new("/r/a.yaml", "a.yaml"), new("/r/b.yaml", "b.yaml"), new("/r/c.yaml", "c.yaml")];
+        var text = new Dictionary<string, string>
+        {
+            ["a.yaml"] = "kind: bus\ntag: 'SG-1' # switchgear\n",
+            ["b.yaml"] = "kind: motor-protection\ntag: P-1\nbus: b.yaml\n",
+            ["c.yaml"] = "kind: relay-model\n",
+        };
+        var (_, _, tags) = QuickScan.Read(Root, files, f => Encoding.UTF8.GetBytes(text[f.RelativePath]), 1000, parallel: false);
+        Assert.Equal([("a.yaml", "SG-1"), ("b.yaml", "P-1")], tags.OrderBy(t => t.Key, StringComparer.Ordinal).Select(t => (t.Key, t.Value)));
     }
 
     [Fact]

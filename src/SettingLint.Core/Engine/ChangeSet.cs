@@ -36,14 +36,16 @@ public sealed record ChangeSet(
     /// holds <paramref name="root"/>.
     /// </summary>
     /// <param name="git">The work tree.</param>
+    /// <param name="commit">The commit <paramref name="revision"/> names, as <see cref="GitRepository.Open(string, string)"/> found it; null when it names none.</param>
     /// <param name="root">The SettingLint repository root (absolute).</param>
     /// <param name="revision">The revision to compare with.</param>
     /// <param name="staged">Compare the index rather than the working tree.</param>
     /// <param name="packFolders">The rule pack folders of the configuration (absolute; "builtin" is skipped).</param>
     /// <param name="baselineFile">The baseline in use, root-relative; null when none.</param>
-    public static ChangeSet Detect(GitRepository git, string root, string revision, bool staged, IEnumerable<string> packFolders, string? baselineFile)
+    public static ChangeSet Detect(GitRepository git, string? commit, string root, string revision, bool staged, IEnumerable<string> packFolders, string? baselineFile)
     {
-        string? commit = staged && revision == "HEAD" && !git.HasHead() ? null : git.ResolveCommit(revision);
+        // Only the staged contents may be compared with a HEAD that names nothing yet (before the first commit: everything staged is new).
+        if (commit is null && !(staged && revision == "HEAD")) throw GitRepository.NotARevision(revision);
         var changed = ImmutableSortedSet.CreateBuilder<string>(StringComparer.Ordinal);
         var deleted = ImmutableSortedSet.CreateBuilder<string>(StringComparer.Ordinal);
         var gitPathOf = new Dictionary<string, string>(StringComparer.Ordinal);
@@ -101,10 +103,18 @@ public sealed record ChangeSet(
     }
 
     /// <summary>
-    /// The files a changed-files run must load: the selection, and the other motors on the buses of the selected
-    /// motors (the rules compare motors on one bus). Null when the quick read of the files was not sure enough.
+    /// The files a changed-files run must load: the selection, the other motors on the buses of the selected motors (the
+    /// rules compare motors on one bus), the files the quick read was not sure of, and the files with the tag of a
+    /// selected file (a tag names one piece of equipment: the first file with it, by path, is told of the others). Null
+    /// when the quick read of a changed file was not sure enough.
     /// </summary>
-    public ImmutableHashSet<string>? LoadPlan(string root, IReadOnlyCollection<MotorReferences> motors, IReadOnlyCollection<string> uncertain, IEnumerable<string> settingFiles)
+    /// <param name="root">The repository root (absolute).</param>
+    /// <param name="motors">The bus and relay model each motor file refers to.</param>
+    /// <param name="uncertain">The files the quick read was not sure of.</param>
+    /// <param name="settingFiles">Every setting file of the run, root-relative.</param>
+    /// <param name="tags">The tag of each file the quick read was sure of, by file; none when not given.</param>
+    public ImmutableHashSet<string>? LoadPlan(string root, IReadOnlyCollection<MotorReferences> motors, IReadOnlyCollection<string> uncertain, IEnumerable<string> settingFiles,
+        IReadOnlyDictionary<string, string>? tags = null)
     {
         // A changed file that could not be read quickly may be a motor on any bus.
         if (uncertain.Any(Changed.Contains)) return null;
@@ -114,6 +124,11 @@ public sealed record ChangeSet(
         plan.UnionWith(selected);
         plan.UnionWith(uncertain);
         plan.UnionWith(motors.Where(m => m.Bus is { } b && busesOfSelected.Contains(b)).Select(m => m.File));
+        if (tags is not null)
+        {
+            var selectedTags = selected.Select(f => tags.GetValueOrDefault(f)).OfType<string>().ToHashSet(StringComparer.Ordinal);
+            if (selectedTags.Count > 0) plan.UnionWith(tags.Where(t => selectedTags.Contains(t.Value)).Select(t => t.Key));
+        }
         return plan.ToImmutable();
     }
 

@@ -156,7 +156,10 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     private IRuleSet Rules => rules;
 
     /// <summary>Runs a check.</summary>
-    public CheckResult Run(CheckOptions options)
+    public CheckResult Run(CheckOptions options) => Run(options, usePlan: true);
+
+    // With usePlan, a changed-files run loads only what its quick read says the change can reach.
+    private CheckResult Run(CheckOptions options, bool usePlan)
     {
         _schemas.Warm();
         IReadOnlyList<string> shown = options.Paths.Count == 0 ? ["."] : options.Paths;
@@ -192,8 +195,16 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             // Load only what the change can reach, found by a quick read of every file's references; report only the
             // changed files and their dependants. The changed motors are bound first: the buses they are on choose the rest.
-            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), options.EffectiveLimits.MaxFileBytes, options.Parallel);
-            var plan = changes.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath));
+            // A run asked to read everything (usePlan false) binds every file as one group.
+            ImmutableHashSet<string>? plan = null;
+            ImmutableArray<MotorReferences> refs = [];
+            ImmutableArray<string> unsure = [];
+            IReadOnlyDictionary<string, string> quickTags = ImmutableDictionary<string, string>.Empty;
+            if (usePlan)
+            {
+                (refs, unsure, quickTags) = QuickScan.Read(root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel);
+                plan = changes.LoadPlan(root, refs, unsure, discovery.Files.Select(f => f.RelativePath), quickTags);
+            }
             ImmutableSortedSet<string> selected;
             if (plan is null || OneGroup)
             {
@@ -204,6 +215,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 var index = new RepositoryIndex(settingFiles.Where(s => s.Motor is not null).Select(s => s.Motor!));
                 (selected, dependants) = changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList());
                 var reported = settingFiles.Where(s => selected.Contains(s.RelativePath)).ToArray();
+                // A reported file that the quick read was not sure of may have the tag of a file the plan left unread.
+                if (planned is not null && UnreadTagMate(reported.Select(s => s.Document?["tag"] as TextValue), planned, quickTags)) return Run(options, usePlan: false);
                 work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
                 kept = [.. reported.Select(s => new Kept(s))];
                 // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
@@ -223,6 +236,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 kept = ByBus(work, BusGroups.Of(toLoad, refs, [.. unsure.Concat(changedMotors)]), options.Parallel, Choose, bound);
                 tags = bound;
                 selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Select(k => k.RelativePath));
+                if (UnreadTagMate(kept.Select(k => k.Tag), planned, quickTags)) return Run(options, usePlan: false);
                 dependants = selected.Except(changes.Changed);
             }
             discoveryFindings = [.. discovery.Findings.Where(f => selected.Contains(f.File))];
@@ -237,7 +251,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
         else
         {
-            var (refs, unsure) = QuickScan.Read(root, discovery.Files, f => source.Read(f.RelativePath), options.EffectiveLimits.MaxFileBytes, options.Parallel);
+            var (refs, unsure, _) = QuickScan.Read(root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel);
             kept = ByBus(work, BusGroups.Of(discovery.Files, refs, unsure), options.Parallel);
             tags = kept.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
         }
@@ -399,6 +413,15 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var array = items.ToArray();
         if (Reversed) Array.Reverse(array);
         return array;
+    }
+
+    /// <summary>Whether a reported file has the tag of a file that the plan left unread (the quick read of a reported file may not have been sure of its tag).</summary>
+    private static bool UnreadTagMate(IEnumerable<TextValue?> reportedTags, IReadOnlyList<string> planned, IReadOnlyDictionary<string, string> quickTags)
+    {
+        var tags = reportedTags.OfType<TextValue>().Select(t => t.Value).ToHashSet(StringComparer.Ordinal);
+        if (tags.Count == 0) return false;
+        var loaded = planned.ToHashSet(StringComparer.Ordinal);
+        return quickTags.Any(t => tags.Contains(t.Value) && !loaded.Contains(t.Key));
     }
 
     private static ChangeScope Scope(ChangeSet changes, ImmutableSortedSet<string> dependants) =>

@@ -3,66 +3,113 @@ using System.Collections.Immutable;
 using System.Text;
 using System.Text.Unicode;
 using SettingLint.Core.Discovery;
+using SettingLint.Core.Sources;
 
 namespace SettingLint.Core.Engine;
 
 /// <summary>
-/// A quick read of the top-level <c>kind</c>, <c>bus</c> and <c>relay_model</c> lines of YAML files, without a YAML
-/// parser or schema, so that a changed-files run loads only what a change can reach. A file it cannot read for
-/// certain (a flow document, a quoted key, an anchor, a tag, an escape) is reported as uncertain and loaded anyway.
+/// A quick read of the top-level <c>kind</c>, <c>tag</c>, <c>bus</c> and <c>relay_model</c> lines of YAML files, without
+/// a YAML parser or schema, so that a changed-files run loads only what a change can reach. A file it cannot read for
+/// certain (a flow document, a quoted key, an anchor, a tag, an escape, a value that goes on over the next line) is
+/// reported as uncertain and loaded anyway.
 /// A full run groups the motors by the bus it finds (<see cref="BusGroups"/>).
 /// </summary>
 internal static class QuickScan
 {
-    /// <summary>The references of the motor files among <paramref name="files"/>, and the files that could not be read for certain.</summary>
+    /// <summary>Reads a file into the caller's buffer, as <see cref="IFileSource.ReadInto"/>: its length, -1 when it is not there.</summary>
+    public delegate long Reader(DiscoveredFile file, long maxBytes, ref byte[] buffer);
+
+    /// <summary>
+    /// The references of the motor files among <paramref name="files"/>, the files that could not be read for certain, and
+    /// the tag of each setting file read for certain that has one (a tag names one piece of equipment in the repository).
+    /// </summary>
     /// <param name="root">The repository root (absolute).</param>
     /// <param name="files">The discovered files.</param>
     /// <param name="read">Reads a file's bytes (from an overlay or the disk); null when it cannot be read.</param>
     /// <param name="maxBytes">Files above this size are left to the loader (and its SL008).</param>
     /// <param name="parallel">Read the files in parallel.</param>
-    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain) Read(
-        string root, IReadOnlyList<DiscoveredFile> files, Func<DiscoveredFile, byte[]?> read, long maxBytes, bool parallel)
+    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
+        string root, IReadOnlyList<DiscoveredFile> files, Func<DiscoveredFile, byte[]?> read, long maxBytes, bool parallel) =>
+        Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => FileBytes.CopyInto(read(f), max, ref buffer), maxBytes, parallel);
+
+    /// <summary>The same, each file read through a source into a buffer that each thread keeps (no array per file).</summary>
+    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
+        string root, IReadOnlyList<DiscoveredFile> files, IFileSource source, long maxBytes, bool parallel) =>
+        Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => source.ReadInto(f.FullPath, f.RelativePath, max, ref buffer), maxBytes, parallel);
+
+    /// <summary>The same, with the files read by <paramref name="read"/>.</summary>
+    public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
+        string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel)
     {
-        var motors = new ConcurrentBag<MotorReferences>();
+        var found = new ConcurrentBag<Written>();
         var uncertain = new ConcurrentBag<string>();
-        void One(DiscoveredFile f)
+        var tags = new ConcurrentBag<KeyValuePair<string, string>>();
+        byte[] One(DiscoveredFile f, byte[] buffer)
         {
-            var bytes = SafeRead(read, f);
-            if (bytes is null || bytes.LongLength > maxBytes || !TryScan(root, f, bytes, out var motor)) uncertain.Add(f.RelativePath);
-            else if (motor is not null) motors.Add(motor);
+            var length = SafeRead(read, f, maxBytes, ref buffer);
+            if (length < 0 || length > maxBytes || !TryScan(buffer.AsSpan(0, (int)length), out var scanned)) uncertain.Add(f.RelativePath);
+            else
+            {
+                if (scanned.Tag is { } tag) tags.Add(KeyValuePair.Create(f.RelativePath, tag));
+                if (scanned.IsMotor) found.Add(new Written(f, scanned.Bus!, scanned.RelayModel));
+            }
+            return buffer;
         }
-        if (parallel && files.Count > 1) Parallel.ForEach(files, One);
-        else foreach (var f in files) One(f);
-        return ([.. motors.OrderBy(m => m.File, StringComparer.Ordinal)], [.. uncertain.Order(StringComparer.Ordinal)]);
+        // Most setting files are a few KB: one buffer per thread, grown for a larger file.
+        if (parallel && files.Count > 1) Parallel.ForEach(files, () => new byte[BufferBytes], (f, _, buffer) => One(f, buffer), _ => { });
+        else
+        {
+            var buffer = new byte[BufferBytes];
+            foreach (var f in files) buffer = One(f, buffer);
+        }
+        // The references are resolved once per folder and value written (a bus has many motors in one folder).
+        var resolved = new Dictionary<(string Dir, string Value), string?>();
+        string? Resolve(string dir, string value)
+        {
+            if (!resolved.TryGetValue((dir, value), out var rel)) resolved[(dir, value)] = rel = ChangeSet.Resolve(root, dir, value);
+            return rel;
+        }
+        var motors = found.OrderBy(m => m.File.RelativePath, StringComparer.Ordinal).Select(m =>
+        {
+            var dir = Path.GetDirectoryName(m.File.FullPath) ?? root;
+            // An empty value is an inline bus mapping: the motor's own, shared with no other motor.
+            return new MotorReferences(m.File.RelativePath, m.Bus.Length == 0 ? null : Resolve(dir, m.Bus), m.RelayModel is null ? null : Resolve(dir, m.RelayModel));
+        });
+        return ([.. motors], [.. uncertain.Order(StringComparer.Ordinal)], new Dictionary<string, string>(tags, StringComparer.Ordinal));
     }
 
-    private static byte[]? SafeRead(Func<DiscoveredFile, byte[]?> read, DiscoveredFile f)
+    private const int BufferBytes = 64 * 1024;
+
+    // A motor file's bus and relay model as written (relay model null when absent).
+    private sealed record Written(DiscoveredFile File, string Bus, string? RelayModel);
+
+    // What the quick read found in a setting file: its tag, and of a motor its bus ("" for an inline one) and relay model as written.
+    private readonly record struct Scanned(bool IsMotor, string? Tag, string? Bus, string? RelayModel);
+
+    private static long SafeRead(Reader read, DiscoveredFile f, long maxBytes, ref byte[] buffer)
     {
         try
         {
-            return read(f);
+            return read(f, maxBytes, ref buffer);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return null;
+            return -1;
         }
     }
 
-    // False when unsure; else the motor's references, or no motor for another kind. It reads the bytes line by line and
-    // decodes only the values of the three keys it looks for: every file of the repository passes through here.
-    private static bool TryScan(string root, DiscoveredFile file, byte[] bytes, out MotorReferences? motor)
+    // False when unsure; else what the file is, with the values as written. It reads the bytes line by line and decodes
+    // only the values of the four keys it looks for: every file of the repository passes through here.
+    private static bool TryScan(ReadOnlySpan<byte> bytes, out Scanned scanned)
     {
-        motor = null;
+        scanned = default;
         if (!Utf8.IsValid(bytes)) return false;
-        string? kind = null, bus = null, relay = null;
-        bool hasBus = false, hasRelay = false;
-        ReadOnlySpan<byte> rest = bytes;
+        string? kind = null, tag = null, bus = null, relay = null;
+        bool hasTag = false, hasBus = false, hasRelay = false;
+        var rest = bytes;
         while (!rest.IsEmpty)
         {
-            var eol = rest.IndexOf((byte)'\n');
-            var line = eol < 0 ? rest : rest[..eol];
-            rest = eol < 0 ? [] : rest[(eol + 1)..];
-            line = line.TrimEnd((byte)'\r');
+            var line = NextLine(ref rest);
             if (line.Length == 0 || line[0] is (byte)' ' or (byte)'\t' or (byte)'#') continue;
             if (line.StartsWith("---"u8) || line.StartsWith("..."u8))
             {
@@ -72,25 +119,64 @@ internal static class QuickScan
             var colon = line.IndexOf((byte)':');
             if (colon <= 0) continue;
             var key = line[..colon];
-            var which = key.SequenceEqual("kind"u8) ? 1 : key.SequenceEqual("bus"u8) ? 2 : key.SequenceEqual("relay_model"u8) ? 3 : 0;
+            var which = key.SequenceEqual("kind"u8) ? 1 : key.SequenceEqual("bus"u8) ? 2 : key.SequenceEqual("relay_model"u8) ? 3 : key.SequenceEqual("tag"u8) ? 4 : 0;
             if (which == 0) continue;
-            if (Value(Encoding.UTF8.GetString(line[(colon + 1)..])) is not { } value) return false;
+            if (Value(Encoding.UTF8.GetString(line[(colon + 1)..].Trim(" \t"u8))) is not { } value) return false;
+            // An indented line after the key goes on with its value (a plain scalar over two lines, or the value on the
+            // next line): unsure, but for a bus written inline as a mapping under an empty value.
+            if (NextContent(rest, out var indented) is var next && indented && !(which == 2 && value.Length == 0 && IsKeyLine(next))) return false;
             switch (which)
             {
                 case 1 when kind is null: kind = value; break;
                 case 2 when !hasBus: bus = value; hasBus = true; break;
                 case 3 when !hasRelay: relay = value; hasRelay = true; break;
+                case 4 when !hasTag: tag = value.Length == 0 ? null : value; hasTag = true; break;
                 default: return false; // a duplicate key: the loader reports it
             }
         }
         if (kind is null) return false;
-        if (kind != "motor-protection") return true;
+        if (kind != "motor-protection")
+        {
+            scanned = new Scanned(false, tag, null, null);
+            return true;
+        }
         if (!hasBus || (hasRelay && relay!.Length == 0)) return false;
-        var dir = Path.GetDirectoryName(file.FullPath) ?? root;
-        // An empty value is an inline bus mapping: the motor's own, shared with no other motor.
-        var busFile = bus!.Length == 0 ? null : ChangeSet.Resolve(root, dir, bus);
-        var relayFile = relay is null ? null : ChangeSet.Resolve(root, dir, relay);
-        motor = new MotorReferences(file.RelativePath, busFile, relayFile);
+        scanned = new Scanned(true, tag, bus, relay);
+        return true;
+    }
+
+    private static ReadOnlySpan<byte> NextLine(scoped ref ReadOnlySpan<byte> rest)
+    {
+        var eol = rest.IndexOf((byte)'\n');
+        var line = eol < 0 ? rest : rest[..eol];
+        rest = eol < 0 ? [] : rest[(eol + 1)..];
+        return line.TrimEnd((byte)'\r');
+    }
+
+    // The content of the next line that is neither blank nor a comment, and whether it is indented (below the key before it).
+    private static ReadOnlySpan<byte> NextContent(ReadOnlySpan<byte> rest, out bool indented)
+    {
+        while (!rest.IsEmpty)
+        {
+            var line = NextLine(ref rest);
+            var content = line.TrimStart(" \t"u8);
+            if (content.IsEmpty || content[0] == (byte)'#') continue;
+            indented = content.Length != line.Length;
+            return content;
+        }
+        indented = false;
+        return [];
+    }
+
+    // A plain key and a colon that ends the line or is followed by a blank: a mapping's first line.
+    private static bool IsKeyLine(ReadOnlySpan<byte> content)
+    {
+        var colon = content.IndexOf((byte)':');
+        if (colon <= 0 || (colon + 1 < content.Length && content[colon + 1] is not ((byte)' ' or (byte)'\t'))) return false;
+        foreach (var b in content[..colon])
+        {
+            if (!(char.IsAsciiLetterOrDigit((char)b) || b is (byte)'_' or (byte)'-' or (byte)'.')) return false;
+        }
         return true;
     }
 

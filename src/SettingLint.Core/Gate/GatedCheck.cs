@@ -56,8 +56,8 @@ internal static class GatedCheck
         {
             try
             {
-                var git = GitRepository.Open(root);
-                changes = ChangeSet.Detect(git, root, revision, gate.Staged, session.Config.Packs, baselineRel);
+                var (git, commit) = GitRepository.Open(root, revision);
+                changes = ChangeSet.Detect(git, commit, root, revision, gate.Staged, session.Config.Packs, baselineRel);
                 if (gate.Staged) view = StagedView(git, source, changes, baselineRel);
             }
             catch (GitException ex)

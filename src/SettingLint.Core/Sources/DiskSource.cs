@@ -27,6 +27,9 @@ public sealed class DiskSource : IFileSource
         return File.Exists(full) ? File.ReadAllBytes(full) : null;
     }
 
+    // Every file of a changed-files run passes through here once (its plan): one open, no array per file.
+    public long ReadInto(string fullPath, string relativePath, long maxBytes, ref byte[] buffer) => FileBytes.ReadInto(fullPath, maxBytes, ref buffer);
+
     // The size limit is checked before anything is read.
     public LoadedFile Load(string fullPath, string relativePath, LoadLimits limits) => YamlLoader.LoadFile(fullPath, relativePath, limits);
 

@@ -53,8 +53,8 @@ public sealed class GitRevisionSource : IFileSource
     /// </summary>
     public static GitRevisionSource At(string root, string revision)
     {
-        var git = GitRepository.Open(root);
-        var commit = git.ResolveCommit(revision);
+        var (git, resolved) = GitRepository.Open(root, revision);
+        var commit = resolved ?? throw GitRepository.NotARevision(revision);
         var files = ImmutableSortedDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
         foreach (var (mode, gitPath) in git.Tree(commit))
         {

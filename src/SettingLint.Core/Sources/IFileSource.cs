@@ -36,6 +36,17 @@ public interface IFileSource
     /// <summary>The bytes of a root-relative file; null when it is not there.</summary>
     byte[]? Read(string relativePath);
 
+    /// <summary>
+    /// Reads a root-relative file into a buffer that the caller keeps from file to file (replaced by a larger one when
+    /// too small), for a reader that looks at every file once and keeps none: the plan of a changed-files run.
+    /// </summary>
+    /// <param name="fullPath">Absolute path, as <see cref="Load"/> takes it.</param>
+    /// <param name="relativePath">The same, root-relative.</param>
+    /// <param name="maxBytes">A longer file is measured, not read.</param>
+    /// <param name="buffer">The caller's buffer; on return, the file's bytes are its first bytes.</param>
+    /// <returns>The file's length; -1 when it is not there.</returns>
+    long ReadInto(string fullPath, string relativePath, long maxBytes, ref byte[] buffer) => FileBytes.CopyInto(Read(relativePath), maxBytes, ref buffer);
+
     /// <summary>Loads a file with the loader's limits (a missing file loads as an empty one without findings).</summary>
     LoadedFile Load(string fullPath, string relativePath, LoadLimits limits) =>
         Read(relativePath) is { } bytes ? YamlLoader.Load(bytes, fullPath, relativePath, limits) : new LoadedFile(fullPath, relativePath, null, [], []);

@@ -47,6 +47,12 @@ public sealed class OverlaySource : IFileSource
     public byte[]? Read(string relativePath) =>
         Contents.TryGetValue(relativePath, out var bytes) ? bytes : Hidden.Contains(relativePath) ? null : _below.Read(relativePath);
 
+    public long ReadInto(string fullPath, string relativePath, long maxBytes, ref byte[] buffer)
+    {
+        if (Contents.TryGetValue(relativePath, out var bytes)) return FileBytes.CopyInto(bytes, maxBytes, ref buffer);
+        return Hidden.Contains(relativePath) ? -1 : _below.ReadInto(fullPath, relativePath, maxBytes, ref buffer);
+    }
+
     public LoadedFile Load(string fullPath, string relativePath, LoadLimits limits)
     {
         if (Contents.TryGetValue(relativePath, out var bytes)) return YamlLoader.Load(bytes, fullPath, relativePath, limits);
