@@ -98,6 +98,19 @@ public sealed class GateRunTests
     }
 
     [Fact]
+    public void Staged_hides_a_file_only_marked_with_intent_to_add()
+    {
+        // `git add -N` records that a file will be added, with an empty blob in the index; a commit leaves it out.
+        using var git = GatePlant.Create();
+        git.Write("motors/m-9.yaml", Broken("M-9", "bus-1"));
+        git.Git("add", "-N", "motors/m-9.yaml");
+        var result = Run(git, new GateOptions(Staged: true, AllFiles: true));
+        Assert.Empty(result.Notifications);
+        Assert.Equal($"{M1} {M2} {M3}", Motors(result));
+        Assert.DoesNotContain(result.Findings, f => f.File == "motors/m-9.yaml");
+    }
+
+    [Fact]
     public void All_files_checks_every_file_when_only_a_motor_changed()
     {
         using var git = GatePlant.Create();
