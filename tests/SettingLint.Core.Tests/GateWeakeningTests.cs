@@ -167,6 +167,17 @@ public sealed class GateWeakeningTests
     }
 
     [Fact]
+    public void The_files_above_are_found_under_either_name_and_at_every_depth()
+    {
+        // The root's file is spelt .settinglint.yml; site-a switches SL201 on; site-a/hall/ takes its own `on` out:
+        // SL201 still runs there through site-a's, so nothing is reported. Without site-a's, it would be off.
+        (string, string)[] above = [(".settinglint.yml", "rules:\n  SL201: off\n"), (Site, "rules:\n  SL201: on\n")];
+        Assert.Empty(One("site-a/hall/.settinglint.yaml", "rules:\n  SL201: on\n", "rules: {}\n", above));
+        var off = Assert.Single(One("site-a/hall/.settinglint.yaml", "rules:\n  SL201: on\n", "rules: {}\n", above[0]));
+        Assert.Equal(("site-a/hall/.settinglint.yaml", "SL201 is switched off (it was error): it no longer reports anything."), (off.File, off.Message));
+    }
+
+    [Fact]
     public void A_folders_on_brings_back_the_severity_the_root_gave_with_its_off()
     {
         // The root keeps severity warning beside `enabled: false`; a folder's `on` runs the rule at warning there.
