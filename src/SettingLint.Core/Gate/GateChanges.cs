@@ -216,15 +216,17 @@ internal static class GateChanges
             {
                 found.Warn(span, "rules." + id, EngineMessages.SeverityLoweredFrom, ("id", id), ("old", ol.Token()), ("new", nl.Token()));
             }
-            var op = o?.Parameters ?? ImmutableDictionary<string, (string, SourceSpan)>.Empty;
-            var np = n?.Parameters ?? ImmutableDictionary<string, (string, SourceSpan)>.Empty;
+            // Named element types and FindingValue spelt out: the code means the same, and a mutation testing tool can
+            // compile its variants of this method (unnamed, they failed to compile and the whole method went unmeasured).
+            var op = o?.Parameters ?? ImmutableDictionary<string, (string Text, SourceSpan Span)>.Empty;
+            var np = n?.Parameters ?? ImmutableDictionary<string, (string Text, SourceSpan Span)>.Empty;
             foreach (var p in op.Keys.Union(np.Keys).Order(StringComparer.Ordinal))
             {
                 var ot = op.TryGetValue(p, out var ov) ? ov.Text : null;
                 var nt = np.TryGetValue(p, out var nv) ? nv.Text : null;
                 if (ot == nt) continue;
                 found.Note(nt is null ? span : nv.Span, "rules." + id + ".parameters." + p, EngineMessages.ParameterChangedFromCheck,
-                    ("parameter", p), ("id", id), ("old", ot ?? "the rule's default"), ("new", nt ?? "the rule's default"));
+                    ("parameter", new FindingValue(p)), ("id", id), ("old", ot ?? "the rule's default"), ("new", nt ?? "the rule's default"));
             }
         }
         CompareCode(old, now, found);
