@@ -21,11 +21,22 @@ public static class ConfigCommand
 
     private static int Show(string path, TextWriter stdout, TextWriter stderr)
     {
+        if (Open(path, stderr) is not var (session, scope, rel)) return ExitCodes.Usage;
+        stdout.Write(Describe(rel, session.Scopes!.RootFile, scope.Effective));
+        return ExitCodes.Clean;
+    }
+
+    /// <summary>
+    /// The session of a path and the scope that governs it (a folder: the files directly in it), with the path relative
+    /// to the root; null when the path does not exist or the configuration has problems (written to stderr).
+    /// </summary>
+    internal static (Session Session, ConfigScopes.Scope Scope, string Relative)? Open(string path, TextWriter stderr)
+    {
         var full = Path.GetFullPath(path);
         if (!File.Exists(full) && !Directory.Exists(full))
         {
             stderr.WriteLine("settinglint: the path '" + path + "' does not exist.");
-            return ExitCodes.Usage;
+            return null;
         }
         var session = Session.Open([full]);
         var rel = RepositoryRoot.Relative(session.Root, full);
@@ -33,9 +44,7 @@ public static class ConfigCommand
         var asFile = Directory.Exists(full) ? (rel == "." ? "" : rel + "/") + "(file)" : rel;
         var scope = session.Scopes?.For(asFile);
         Report(session, scope, stderr, out var failed);
-        if (failed || scope is null) return ExitCodes.Usage;
-        stdout.Write(Describe(rel, session.Scopes!.RootFile, scope.Effective));
-        return ExitCodes.Clean;
+        return failed || scope is null ? null : (session, scope, rel);
     }
 
     private static void Report(Session session, ConfigScopes.Scope? scope, TextWriter stderr, out bool failed)

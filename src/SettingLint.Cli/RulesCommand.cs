@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Text.Json;
+using SettingLint.Core.Configuration;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Linting;
@@ -15,11 +16,17 @@ public static class RulesCommand
         var rules = new Command("rules", "List, explain and test the rules.");
         var format = new Option<string>("--format", "-f") { Description = "text or json.", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong("text", "json");
-        var list = new Command("list", "List the rules in effect here: id, severity, title.") { format };
-        list.SetAction(parse => List(parse.GetValue(format) == "json", stdout, stderr));
+        Option<string?> ForOption() => new("--for")
+        {
+            Description = "A setting file or folder: the rules as its folder's configuration sets them (each .settinglint.yaml from the root configuration down), not the root configuration's.",
+        };
+        var listFor = ForOption();
+        var list = new Command("list", "List the rules in effect here (or for a file or folder with --for): id, severity, title.") { format, listFor };
+        list.SetAction(parse => List(parse.GetValue(format) == "json", parse.GetValue(listFor), stdout, stderr));
         var id = new Argument<string>("id") { Description = "A rule id such as SL201." };
-        var show = new Command("show", "Explain a rule: rationale, basis, parameters with defaults and the values in effect here.") { id };
-        show.SetAction(parse => Show(parse.GetValue(id)!, stdout, stderr));
+        var showFor = ForOption();
+        var show = new Command("show", "Explain a rule: rationale, basis, parameters with defaults and the values in effect here (or for a file or folder with --for).") { id, showFor };
+        show.SetAction(parse => Show(parse.GetValue(id)!, parse.GetValue(showFor), stdout, stderr));
         var dir = new Argument<string?>("dir")
         {
             Description = "A rule pack folder or one rule's folder; without it, every pack the configuration here names (the built-in pack's fixtures when its rules/ folder is at the root).",
@@ -59,11 +66,30 @@ public static class RulesCommand
     private static string Where(Notification n) =>
         n.File is null ? "settinglint: " : n.Span is { } s ? $"{n.File}:{s.StartLine}:{s.StartColumn}: " : n.File + ": ";
 
-    private static int List(bool json, TextWriter stdout, TextWriter stderr)
+    /// <summary>What `rules list` and `rules show` describe: the rules of the root configuration, or those of a path's folder.</summary>
+    private sealed record View(Session Session, IReadOnlyList<CompiledRule> Rules, ConfigScopes.Scope? Scope, string? For);
+
+    private static View? OpenView(string? forPath, TextWriter stderr)
     {
-        if (Open(stderr) is not { } session) return ExitCodes.Usage;
+        if (forPath is null) return Open(stderr) is { } session ? new View(session, session.Rules.Rules, null, null) : null;
+        if (ConfigCommand.Open(forPath, stderr) is not var (s, scope, rel)) return null;
+        return new View(s, scope.Rules, scope, rel);
+    }
+
+    // With --for: which path, which configuration files and which governing code (a rule's `when:` may read it).
+    private static void WriteHeader(View view, TextWriter stdout)
+    {
+        if (view.Scope is not { } scope) return;
+        var files = scope.Effective.Files.IsEmpty ? "none" : string.Join(", ", scope.Effective.Files);
+        var code = scope.Effective.ElectricalCode is { } c ? $"{c.Value} ({c.File}:{c.Span.StartLine})" : "not declared";
+        stdout.WriteLine($"Rules in effect for {view.For} (configuration: {files}; electrical_code: {code})");
+    }
+
+    private static int List(bool json, string? forPath, TextWriter stdout, TextWriter stderr)
+    {
+        if (OpenView(forPath, stderr) is not { } view) return ExitCodes.Usage;
         var all = EngineRules.All.Select(r => (r.Id, Level: r.DefaultLevel.Token(), r.Title, Tags: string.Join(" ", r.Tags)))
-            .Concat(session.Rules.Rules.Select(r => (r.Id, Level: r.Level.Token(), r.Descriptor.Title, Tags: string.Join(" ", r.Descriptor.Tags))))
+            .Concat(view.Rules.Select(r => (r.Id, Level: r.Level.Token(), r.Descriptor.Title, Tags: string.Join(" ", r.Descriptor.Tags))))
             .OrderBy(r => r.Id, StringComparer.Ordinal).ToList();
         if (json)
         {
@@ -85,14 +111,15 @@ public static class RulesCommand
             stdout.WriteLine(System.Text.Encoding.UTF8.GetString(buffer.ToArray()));
             return ExitCodes.Clean;
         }
+        WriteHeader(view, stdout);
         foreach (var r in all) stdout.WriteLine($"{r.Id}  {r.Level,-7}  {r.Title}");
         return ExitCodes.Clean;
     }
 
-    private static int Show(string id, TextWriter stdout, TextWriter stderr)
+    private static int Show(string id, string? forPath, TextWriter stdout, TextWriter stderr)
     {
-        if (Open(stderr) is not { } session) return ExitCodes.Usage;
-        var rule = session.Rules.Rules.FirstOrDefault(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase));
+        if (OpenView(forPath, stderr) is not { } view) return ExitCodes.Usage;
+        var rule = view.Rules.FirstOrDefault(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase));
         if (rule is null)
         {
             var engine = EngineRules.All.FirstOrDefault(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase));
@@ -101,13 +128,23 @@ public static class RulesCommand
                 stderr.WriteLine($"settinglint: no rule {id}. Try '{SettingLint.Reporting.ToolCommand.Current} rules list'.");
                 return ExitCodes.Usage;
             }
+            WriteHeader(view, stdout);
             stdout.WriteLine($"{engine.Id} ({engine.DefaultLevel.Token()}): {engine.Title}");
             stdout.WriteLine();
             stdout.WriteLine(engine.HelpText);
             return ExitCodes.Clean;
         }
         var d = rule.Descriptor;
+        var set = view.Scope?.Effective.Rules.GetValueOrDefault(rule.Id);
+        WriteHeader(view, stdout);
         stdout.WriteLine($"{d.Id} ({rule.Level.Token()}; default {d.DefaultLevel.Token()}): {d.Title}");
+        if (set is not null)
+        {
+            var from = set.Enabled is { Value: false } off ? off.File + ":" + off.Span.StartLine
+                : set.Severity is { } sev ? sev.File + ":" + sev.Span.StartLine
+                : set.Enabled is { } on ? on.File + ":" + on.Span.StartLine : null;
+            if (from is not null) stdout.WriteLine("Level set in: " + from);
+        }
         stdout.WriteLine("Tags: " + string.Join(", ", d.Tags) + "    File: " + rule.SourceFile);
         stdout.WriteLine();
         stdout.WriteLine(d.Summary);
@@ -116,10 +153,11 @@ public static class RulesCommand
         if (!rule.Parameters.IsEmpty)
         {
             stdout.WriteLine();
-            stdout.WriteLine("Parameters (default -> in effect here):");
+            stdout.WriteLine(view.For is null ? "Parameters (default -> in effect here):" : $"Parameters (default -> in effect for {view.For}):");
             foreach (var p in rule.Parameters)
             {
-                stdout.WriteLine($"  {p.Name}: {p.Format(p.Default)} -> {p.Format(rule.ParameterValues[p.Index])}   {p.Meaning}");
+                var from = set?.Parameters.GetValueOrDefault(p.Name) is { } v ? $" ({v.File}:{v.Span.StartLine})" : "";
+                stdout.WriteLine($"  {p.Name}: {p.Format(p.Default)} -> {p.Format(rule.ParameterValues[p.Index])}{from}   {p.Meaning}");
             }
         }
         return ExitCodes.Clean;

@@ -254,15 +254,15 @@ public sealed class GateEdgeTests
             ImmutableSortedSet<string>.Empty.WithComparer(StringComparer.Ordinal), null,
             ImmutableDictionary<string, byte[]>.Empty
                 .Add(".settinglint.yaml", Encoding.UTF8.GetBytes("rules:\n  SL302: error\n  SL201: error\n  SL1001: error\n"))
-                .Add("z/.settinglint.yaml", Encoding.UTF8.GetBytes("fail_on: note\n")));
+                .Add("z/.settinglint.yaml", Encoding.UTF8.GetBytes("rules:\n  SL201: error\n")));
         var now = new Dictionary<string, string>
         {
             [".settinglint.yaml"] = "rules:\n  SL1001: off\n  SL302: note\n  SL201: warning\n",
-            ["z/.settinglint.yaml"] = "fail_on: warning\n",
+            ["z/.settinglint.yaml"] = "rules:\n  SL201: off\n",
         };
         var found = GateChanges.Find("/r", changes, rel => Encoding.UTF8.GetBytes(now[rel]), ["builtin"], null, _ => Level.Error, []);
         Assert.Equal(
-            [(".settinglint.yaml", 2, "rules.SL1001"), (".settinglint.yaml", 3, "rules.SL302"), (".settinglint.yaml", 4, "rules.SL201"), ("z/.settinglint.yaml", 1, "fail_on")],
+            [(".settinglint.yaml", 2, "rules.SL1001"), (".settinglint.yaml", 3, "rules.SL302"), (".settinglint.yaml", 4, "rules.SL201"), ("z/.settinglint.yaml", 2, "rules.SL201")],
             found.Select(f => (f.File, f.Span.StartLine, f.KeyPath)));
     }
 

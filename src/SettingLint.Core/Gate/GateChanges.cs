@@ -46,7 +46,7 @@ internal static class GateChanges
             else if (SettingsConfig.IsFileName(name))
             {
                 // A folder's file says what changes from the files above it: a rule it does not name keeps their level.
-                CompareConfig(rel, old, now, found, defaultLevelOf, Inherited(rel, changes, readNew, defaultLevelOf, oldSide: true), Inherited(rel, changes, readNew, defaultLevelOf, oldSide: false));
+                CompareConfig(rel, old, now, found, defaultLevelOf, Above(rel, changes, readNew, oldSide: true), Above(rel, changes, readNew, oldSide: false));
             }
             else if (packs.Any(p => rel.StartsWith(p, StringComparison.Ordinal))) CompareRule(rel, old, now, found);
             else CompareAcceptances(rel, old, now, found, findings);
@@ -77,17 +77,29 @@ internal static class GateChanges
 
     // ---- configuration
 
-    private sealed record RuleEntry(Level? Level, bool Off, SourceSpan Span, ImmutableDictionary<string, (string Text, SourceSpan Span)> Parameters)
+    /// <summary>
+    /// A rule as one configuration file names it: `enabled` (false for `off`; true for `on`, a level word or
+    /// `enabled: true`) and `severity`, each null when the file leaves it to the files above (as ConfigFile reads them).
+    /// </summary>
+    private sealed record RuleEntry(bool? Enabled, Level? Severity, SourceSpan Span, ImmutableDictionary<string, (string Text, SourceSpan Span)> Parameters);
+
+    /// <summary>
+    /// A rule after a chain of configuration files: `enabled` and `severity` each from the nearest file that sets it,
+    /// key by key as EffectiveConfig merges them, so that a folder's `severity: warning` under the root's `off` keeps
+    /// the rule off, and a folder's `on` brings back the severity the root gave beside its `enabled: false`.
+    /// </summary>
+    private readonly record struct RuleState(bool? Enabled, Level? Severity)
     {
-        /// <summary>`on` (or `enabled: true`): the rule runs again where a farther file switched it off.</summary>
-        public bool On { get; init; }
+        public RuleState Then(RuleEntry? r) => r is null ? this : new(r.Enabled ?? Enabled, r.Severity ?? Severity);
+
+        public Level LevelOr(Level defaultLevel) => Enabled == false ? Level.None : Severity ?? defaultLevel;
     }
 
     /// <summary>
-    /// The level of a rule in the folder of a configuration file before that file applies: its default, then every
-    /// configuration file in the folders above, on the old side of the change or the new.
+    /// The configuration files in the folders above a configuration file, farthest first, on the old side of the
+    /// change or the new: what the file's own keys override.
     /// </summary>
-    private static Func<string, Level?> Inherited(string rel, ChangeSet changes, Func<string, byte[]?> readNew, Func<string, Level?> defaultLevelOf, bool oldSide)
+    private static List<ConfigView> Above(string rel, ChangeSet changes, Func<string, byte[]?> readNew, bool oldSide)
     {
         var views = new List<ConfigView>();
         var folders = rel.Split('/')[..^1];
@@ -104,18 +116,7 @@ internal static class GateChanges
                 break;
             }
         }
-        return id =>
-        {
-            var level = defaultLevelOf(id);
-            foreach (var v in views)
-            {
-                if (v.Rules.GetValueOrDefault(id) is not { } r) continue;
-                if (r.Off) level = Level.None;
-                else if (r.Level is { } l) level = l;
-                else if (r.On && level == Level.None) level = defaultLevelOf(id);
-            }
-            return level;
-        };
+        return views;
     }
 
     private sealed record ConfigView(
@@ -127,6 +128,12 @@ internal static class GateChanges
         ImmutableArray<(string Text, SourceSpan Span)> Exclude,
         SourceSpan RulesSpan)
     {
+        /// <summary>Whether the file has an `include` key (an empty list included): without one, it narrows nothing.</summary>
+        public bool IncludeGiven { get; init; }
+
+        /// <summary>Where the `include` key is (line 1 without one).</summary>
+        public SourceSpan IncludeSpan { get; init; } = SourceSpan.FileStart;
+
         /// <summary>`electrical_code` and its place; null when the file does not declare one.</summary>
         public (string Text, SourceSpan Span)? ElectricalCode { get; init; }
     }
@@ -149,16 +156,16 @@ internal static class GateChanges
                 switch (e.Value)
                 {
                     case YScalar s:
-                        rules[e.Key.Value] = new RuleEntry(s.Value is "off" or "on" ? null : Levels.Parse(s.Value), s.Value == "off", s.Span, ImmutableDictionary<string, (string, SourceSpan)>.Empty) { On = s.Value == "on" };
+                        rules[e.Key.Value] = new RuleEntry(s.Value != "off", s.Value is "off" or "on" ? null : Levels.Parse(s.Value), s.Span, ImmutableDictionary<string, (string, SourceSpan)>.Empty);
                         break;
                     case YMapping o:
                     {
-                        var off = o["enabled"] is YScalar en && en.Value is "false" or "False" or "FALSE";
+                        bool? enabled = o["enabled"] is YScalar en ? en.Value is "true" or "True" or "TRUE" : null;
                         Level? level = o["severity"] is YScalar sv ? Levels.Parse(sv.Value) : null;
                         var prm = o["parameters"] is YMapping pm
                             ? pm.Entries.Where(p => p.Value is YScalar).ToImmutableDictionary(p => p.Key.Value, p => (((YScalar)p.Value).Value, p.Value.Span), StringComparer.Ordinal)
                             : ImmutableDictionary<string, (string, SourceSpan)>.Empty;
-                        rules[e.Key.Value] = new RuleEntry(level, off, e.Key.Span, prm) { On = o["enabled"] is YScalar { Value: "true" or "True" or "TRUE" } };
+                        rules[e.Key.Value] = new RuleEntry(enabled, level, e.Key.Span, prm);
                         break;
                     }
                 }
@@ -170,6 +177,8 @@ internal static class GateChanges
         return new ConfigView(failOn, failOnSpan, rules.ToImmutable(), packs, List("include"), List("exclude"), m?.Find("rules")?.Key.Span ?? SourceSpan.FileStart)
         {
             ElectricalCode = m?["electrical_code"] is YScalar ec ? (ec.Value, ec.Span) : null,
+            IncludeGiven = m?["include"] is YSequence,
+            IncludeSpan = m?.Find("include")?.Key.Span ?? SourceSpan.FileStart,
         };
     }
 
@@ -178,11 +187,14 @@ internal static class GateChanges
 
     private static string FailOnToken(Level l) => l == Level.None ? "never" : l.Token();
 
-    private static void CompareConfig(string rel, byte[]? oldBytes, byte[]? newBytes, Found found, Func<string, Level?> defaultLevelOf, Func<string, Level?> oldInherited, Func<string, Level?> newInherited)
+    private static void CompareConfig(string rel, byte[]? oldBytes, byte[]? newBytes, Found found, Func<string, Level?> defaultLevelOf, List<ConfigView> oldAbove, List<ConfigView> newAbove)
     {
         var old = ReadConfig(Load(rel, oldBytes));
         var now = ReadConfig(Load(rel, newBytes));
-        if (Strictness(now.FailOn) < Strictness(old.FailOn))
+        // fail_on and packs are read from the root configuration only (the outermost file): a file with another above
+        // it may repeat the root's value and nothing else (another value stops the run), so a change there loosens nothing.
+        var folderFile = oldAbove.Count > 0 || newAbove.Count > 0;
+        if (!folderFile && Strictness(now.FailOn) < Strictness(old.FailOn))
         {
             found.Warn(now.FailOnSpan ?? SourceSpan.FileStart, "fail_on", EngineMessages.FailOnFewerFindings,
                 ("new", FailOnToken(now.FailOn)), ("old", FailOnToken(old.FailOn)));
@@ -192,12 +204,9 @@ internal static class GateChanges
             var o = old.Rules.GetValueOrDefault(id);
             var n = now.Rules.GetValueOrDefault(id);
             var defaultLevel = defaultLevelOf(id) ?? Level.Error;
-            Level Effective(RuleEntry? r, Func<string, Level?> inherited)
-            {
-                var above = inherited(id) ?? defaultLevel;
-                return r is null ? above : r.Off ? Level.None : r.Level ?? (r.On && above == Level.None ? defaultLevel : above);
-            }
-            var (ol, nl) = (Effective(o, oldInherited), Effective(n, newInherited));
+            Level Effective(RuleEntry? r, List<ConfigView> above) =>
+                above.Aggregate(default(RuleState), (state, v) => state.Then(v.Rules.GetValueOrDefault(id))).Then(r).LevelOr(defaultLevel);
+            var (ol, nl) = (Effective(o, oldAbove), Effective(n, newAbove));
             var span = n?.Span ?? now.RulesSpan;
             if (nl == Level.None && ol != Level.None)
             {
@@ -207,19 +216,21 @@ internal static class GateChanges
             {
                 found.Warn(span, "rules." + id, EngineMessages.SeverityLoweredFrom, ("id", id), ("old", ol.Token()), ("new", nl.Token()));
             }
-            var op = o?.Parameters ?? ImmutableDictionary<string, (string, SourceSpan)>.Empty;
-            var np = n?.Parameters ?? ImmutableDictionary<string, (string, SourceSpan)>.Empty;
+            // Named element types and FindingValue spelt out: the code means the same, and a mutation testing tool can
+            // compile its variants of this method (unnamed, they failed to compile and the whole method went unmeasured).
+            var op = o?.Parameters ?? ImmutableDictionary<string, (string Text, SourceSpan Span)>.Empty;
+            var np = n?.Parameters ?? ImmutableDictionary<string, (string Text, SourceSpan Span)>.Empty;
             foreach (var p in op.Keys.Union(np.Keys).Order(StringComparer.Ordinal))
             {
                 var ot = op.TryGetValue(p, out var ov) ? ov.Text : null;
                 var nt = np.TryGetValue(p, out var nv) ? nv.Text : null;
                 if (ot == nt) continue;
                 found.Note(nt is null ? span : nv.Span, "rules." + id + ".parameters." + p, EngineMessages.ParameterChangedFromCheck,
-                    ("parameter", p), ("id", id), ("old", ot ?? "the rule's default"), ("new", nt ?? "the rule's default"));
+                    ("parameter", new FindingValue(p)), ("id", id), ("old", ot ?? "the rule's default"), ("new", nt ?? "the rule's default"));
             }
         }
         CompareCode(old, now, found);
-        foreach (var (pack, _) in old.Packs.Where(p => !now.Packs.Any(q => q.Text == p.Text)))
+        foreach (var (pack, _) in folderFile ? [] : old.Packs.Where(p => !now.Packs.Any(q => q.Text == p.Text)))
         {
             found.Warn(now.Packs.IsEmpty ? SourceSpan.FileStart : now.Packs[0].Span, "packs", EngineMessages.RulePackLongerUsed, ("pack", pack));
         }
@@ -227,12 +238,14 @@ internal static class GateChanges
         {
             found.Warn(span, "exclude", EngineMessages.FilesMatchingExcludedLonger, ("glob", glob));
         }
-        if (old.Include.IsEmpty && !now.Include.IsEmpty)
+        if (!old.IncludeGiven && now.IncludeGiven)
         {
-            found.Warn(now.Include[0].Span, "include", EngineMessages.OnlyFilesMatchingChecked,
-                ("globs", string.Join(", ", now.Include.Select(i => i.Text))));
+            found.Warn(now.Include.IsEmpty ? now.IncludeSpan : now.Include[0].Span, "include", EngineMessages.OnlyFilesMatchingChecked,
+                ("globs", now.Include.IsEmpty ? "(none)" : string.Join(", ", now.Include.Select(i => i.Text))));
         }
-        else
+        // Without an `include` of its own the file narrows nothing: the root's file then checks every YAML file, and a
+        // folder's file leaves its folder to the include of the files above, whose globs are not these.
+        else if (now.IncludeGiven || newAbove.Any(v => v.IncludeGiven))
         {
             foreach (var (glob, _) in old.Include.Where(p => !now.Include.Any(q => q.Text == p.Text)))
             {
