@@ -95,8 +95,12 @@ public sealed class FunctionEdgeMutationTests
         Assert.Equal(ExprType.Bool, TypeOf("ct_class_complete", Text, Current));
         var e = Assert.Throws<ArgumentException>(() => TypeOf("ct_saturation", Plain, Current, Current, Text, Ohms, Current, Current));
         Assert.Contains("argument 7 must be the CT's rated burden", e.Message, StringComparison.Ordinal);
+        Assert.EndsWith("not " + Current, e.Message, StringComparison.Ordinal);
         e = Assert.Throws<ArgumentException>(() => TypeOf("ct_class_complete", Text, Current, Current));
         Assert.Contains("argument 3 must be the CT's rated burden", e.Message, StringComparison.Ordinal);
+        Assert.EndsWith("not " + Current, e.Message, StringComparison.Ordinal);
+        e = Assert.Throws<ArgumentException>(() => TypeOf("ct_limit", Text, Ohms, Ohms));
+        Assert.Equal("argument 3 must be the CT's rated secondary current, not " + Ohms, e.Message);
     }
 
     // IEC 61869-2: a 5P20 CT with 1 A secondary and 15 ohm rated burden holds 20 x 1 x 15 = 300 V, 60 A into 5 ohm; its
