@@ -22,7 +22,9 @@ public sealed class FormatsMutationTests
     [InlineData(-0.5123456, "-0.512")]
     [InlineData(0.012345, "0.0123")]
     [InlineData(0.00012345, "0.000123")]
+    [InlineData(1.234e-5, "0.000012")]
     [InlineData(1.23e-7, "0")]
+    [InlineData(2.5e20, "250000000000000000000")]
     [InlineData(0, "0")]
     public void Numbers_have_three_significant_figures(double value, string expected) =>
         Assert.Equal(expected, Formats.Number(value));

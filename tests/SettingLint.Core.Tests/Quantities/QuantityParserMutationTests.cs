@@ -83,8 +83,15 @@ public sealed class QuantityParserMutationTests
     }
 
     // Glued forms by the YAML 1.2 float grammar (signs, exponent in either case, a leading point); a glued unit that is
-    // not known is no glued quantity, and a text that starts with a letter has no number to glue.
+    // not known is no glued quantity, and a text that starts with a letter has no number to glue. A run of number
+    // characters that is no number by that grammar ("1.2.3", "1e") is no glued number either, with or without a unit
+    // after it: the message must not suggest a space that would not make it a quantity.
     [Theory]
+    [InlineData("1.2.3 A", null)]
+    [InlineData("1.2.3A", null)]
+    [InlineData("1.2.3", null)]
+    [InlineData("1e", null)]
+    [InlineData("-", null)]
     [InlineData("-5A", "A")]
     [InlineData("+5A", "A")]
     [InlineData("1E3V", "V")]
