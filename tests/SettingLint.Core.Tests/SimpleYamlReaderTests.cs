@@ -93,35 +93,10 @@ public sealed class SimpleYamlReaderTests
         Assert.True(taken > files.Count / 3, $"the simple reader took {taken} of {files.Count} files");
     }
 
-    private static string? CorpusFolder()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            var c = Path.Combine(d, "shared", "corpora", "yaml-test-suite");
-            if (Directory.Exists(c)) return c;
-            var beside = Path.Combine(Path.GetDirectoryName(d) ?? d, "shared", "corpora", "yaml-test-suite");
-            if (Directory.Exists(beside)) return beside;
-        }
-        return null;
-    }
-
-    /// <summary>A fact that needs the YAML test suite corpus: skipped with the reason outside CI when it is missing, failing on CI.</summary>
-    [AttributeUsage(AttributeTargets.Method)]
-    private sealed class CorpusFactAttribute : FactAttribute
-    {
-        public CorpusFactAttribute()
-        {
-            // As tests/Shared/ToolFacts does (not linked here: it needs the SARIF helpers): under CI=true the test runs, and fails without the corpus.
-            var onCi = string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase);
-            if (CorpusFolder() is null && !onCi) Skip = "The YAML test suite corpus (shared/corpora) is not beside the clone. Skipped outside CI; under CI=true this test fails instead.";
-        }
-    }
-
-    // The public YAML test suite's inputs (valid and invalid), each loaded both ways.
-    [CorpusFact]
+    [YamlCorpusFact]
     public void EveryCaseOfTheYamlTestSuite_LoadsAlikeBothWays()
     {
-        var corpus = CorpusFolder() ?? throw new Xunit.Sdk.XunitException("The YAML test suite corpus (shared/corpora) must be beside the clone in CI.");
+        var corpus = YamlTestSuiteCorpus.Require();
         var inputs = Directory.EnumerateFiles(corpus, "in.yaml", SearchOption.AllDirectories).Order(StringComparer.Ordinal).ToList();
         Assert.True(inputs.Count > 300, $"only {inputs.Count} cases under {corpus}");
         foreach (var input in inputs)

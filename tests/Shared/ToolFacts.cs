@@ -8,10 +8,10 @@ namespace SettingLint.Tests.Shared;
 public static class ToolFacts
 {
     /// <summary>Whether the run is CI's (CI=true, as hosted runners and .ci/run set it).</summary>
-    public static bool OnCi => string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase);
+    public static bool OnCi => CiSkip.OnCi;
 
     /// <summary>Why a test that needs a tool is skipped, or null when it runs (the tool is there, or this is CI).</summary>
-    public static string? SkipReason(bool present, string missing) => present || OnCi ? null : missing + " Skipped outside CI; under CI=true this test fails instead.";
+    public static string? SkipReason(bool present, string missing) => CiSkip.Reason(present, missing);
 
     /// <summary>The reason the SARIF multitool tests skip, or null when they run.</summary>
     public static string? MultitoolSkip() => SkipReason(SarifValidation.MultitoolPath() is not null,

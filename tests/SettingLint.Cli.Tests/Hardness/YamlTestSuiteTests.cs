@@ -1,6 +1,7 @@
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Rules;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Cli.Tests.Hardness;
 
@@ -30,32 +31,10 @@ public sealed class YamlTestSuiteTests
         ["UKK6-00"] = "valid: '- :' (a sequence entry that is a mapping with an empty key); YamlDotNet rejects it",
     };
 
-    private static string? CorpusFolder()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            var c = Path.Combine(d, "shared", "corpora", "yaml-test-suite");
-            if (Directory.Exists(c)) return c;
-            var beside = Path.Combine(Path.GetDirectoryName(d) ?? d, "shared", "corpora", "yaml-test-suite");
-            if (Directory.Exists(beside)) return beside;
-        }
-        return null;
-    }
-
-    /// <summary>A fact that needs the corpus: skipped with the reason outside CI when it is missing, failing on CI.</summary>
-    [AttributeUsage(AttributeTargets.Method)]
-    private sealed class CorpusFactAttribute : FactAttribute
-    {
-        public CorpusFactAttribute()
-        {
-            if (SettingLint.Tests.Shared.ToolFacts.SkipReason(CorpusFolder() is not null, "The YAML test suite corpus (shared/corpora) is not beside the clone.") is { } reason) Skip = reason;
-        }
-    }
-
-    [CorpusFact]
+    [YamlCorpusFact]
     public void Every_case_loads_or_gives_a_positioned_syntax_finding()
     {
-        var corpus = CorpusFolder() ?? throw new Xunit.Sdk.XunitException("The YAML test suite corpus (shared/corpora) must be beside the clone in CI.");
+        var corpus = YamlTestSuiteCorpus.Require();
         var repo = Path.Combine(Path.GetTempPath(), "settinglint-yts-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(Path.Combine(repo, ".git"));
         var invalid = new HashSet<string>(StringComparer.Ordinal);

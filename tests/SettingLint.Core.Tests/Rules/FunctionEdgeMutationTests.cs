@@ -1,4 +1,5 @@
 using SettingLint.Core.Rules;
+using static SettingLint.Core.Tests.Rules.FunctionCalls;
 
 namespace SettingLint.Core.Tests.Rules;
 
@@ -10,27 +11,6 @@ namespace SettingLint.Core.Tests.Rules;
 /// </summary>
 public sealed class FunctionEdgeMutationTests
 {
-    private static readonly Val None = Val.Absent;
-    private static readonly ExprType Current = ExprType.Num(Dim.Current);
-    private static readonly ExprType Plain = ExprType.Num(Dim.None);
-    private static readonly ExprType Ohms = ExprType.Num(Dim.Of(SettingLint.Core.Quantities.Dimension.Impedance));
-    private static readonly ExprType Text = ExprType.Text;
-
-    private static Val Call(string name, params Val[] args) => Functions.All[name].Body(args);
-
-    private static double Number(string name, params Val[] args)
-    {
-        var v = Call(name, args);
-        Assert.Equal(ValKind.Number, v.Kind);
-        return v.Number;
-    }
-
-    private static Val N(double x) => Val.Of(x);
-
-    private static Val T(string s) => Val.Of(s);
-
-    private static ExprType TypeOf(string name, params ExprType[] args) => Functions.All[name].Type(args);
-
     // Common practice: a soft starter limits the current it lets through; a limit of 0 A or an unbounded one is no
     // limit a start can be worked out from, so the profile is absent (docs/rule-language.md, start profile: "absent
     // ... for a soft starter without its current limit"), never a start at 0 A or at LRC.

@@ -1,5 +1,6 @@
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
+using static SettingLint.Core.Tests.Rules.FunctionCalls;
 
 namespace SettingLint.Core.Tests.Rules;
 
@@ -11,31 +12,11 @@ namespace SettingLint.Core.Tests.Rules;
 /// </summary>
 public sealed class FunctionTableMutationTests
 {
-    private static readonly Val None = Val.Absent;
-    private static readonly ExprType Current = ExprType.Num(Dim.Current);
     private static readonly ExprType Voltage = ExprType.Num(Dim.Voltage);
     private static readonly ExprType Time = ExprType.Num(Dim.Time);
-    private static readonly ExprType Plain = ExprType.Num(Dim.None);
     private static readonly ExprType Power = ExprType.Num(Dim.Of(Dimension.Power));
-    private static readonly ExprType Ohms = ExprType.Num(Dim.Of(Dimension.Impedance));
     private static readonly ExprType Hertz = ExprType.Num(Dim.Of(Dimension.Frequency));
-    private static readonly ExprType Text = ExprType.Text;
     private static readonly ExprType Profile = ExprType.StartProfile;
-
-    private static Val Call(string name, params Val[] args) => Functions.All[name].Body(args);
-
-    private static double Number(string name, params Val[] args)
-    {
-        var v = Call(name, args);
-        Assert.Equal(ValKind.Number, v.Kind);
-        return v.Number;
-    }
-
-    private static Val N(double x) => Val.Of(x);
-
-    private static Val T(string s) => Val.Of(s);
-
-    private static ExprType TypeOf(string name, params ExprType[] args) => Functions.All[name].Type(args);
 
     private static void Refuses(string name, string mention, params ExprType[] args)
     {
