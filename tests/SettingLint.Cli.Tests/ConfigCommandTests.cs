@@ -32,15 +32,7 @@ public sealed class ConfigCommandTests
 
     // The sample motor with its thermal element at 1.3 x FLC, above the 1.25 x FLC of NFPA 70 430.32(A)(1) for a
     // service factor of 1.15: SL801 wherever NFPA 70 governs.
-    private static string Motor(string tag) => Samples.Replace(Samples.MotorWith("protection:\n", """
-        protection:
-          thermal:
-            enabled: true
-            pickup: 1.3 xFLC
-            time_constant: 9 min
-            cooling_time_constant: 27 min
-
-        """), "tag: M-1", "tag: " + tag);
+    private static string Motor(string tag) => Samples.ThermalAbove125Tagged(tag);
 
     private static TempRepo TwoSites()
     {

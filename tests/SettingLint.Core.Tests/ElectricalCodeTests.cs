@@ -16,15 +16,7 @@ public sealed class ElectricalCodeTests
 {
     // The sample motor with a thermal element set at 1.3 x FLC: above the 1.25 x FLC that NFPA 70 430.32(A)(1)
     // allows for a service factor of 1.15, so SL801 fires wherever NFPA 70 governs.
-    private static readonly string HighPickup = Samples.MotorWith("protection:\n", """
-        protection:
-          thermal:
-            enabled: true
-            pickup: 1.3 xFLC
-            time_constant: 9 min
-            cooling_time_constant: 27 min
-
-        """);
+    private static readonly string HighPickup = Samples.ThermalAbove125;
 
     // Common practice: NFPA 70 is the code of 60 Hz installations in the US; a declared code always wins, and with none
     // declared a bus of another frequency leaves the code undeclared (the contract's default frequency is 60 Hz).

@@ -15,15 +15,7 @@ public sealed class ScopedConfigTests
     // for a service factor of 1.15, so SL801 fires wherever NFPA 70 governs and nowhere else. Its 50P pickup of
     // 7.2 A sec (108 A) lies below its asymmetrical start current (1.7 x 6.2 x 58 A = 611 A, IEEE C37.96 common
     // practice), so SL201 fires wherever it is on.
-    private static string Motor(string tag) => Samples.Replace(Samples.MotorWith("protection:\n", """
-        protection:
-          thermal:
-            enabled: true
-            pickup: 1.3 xFLC
-            time_constant: 9 min
-            cooling_time_constant: 27 min
-
-        """), "tag: M-1", "tag: " + tag);
+    private static string Motor(string tag) => Samples.ThermalAbove125Tagged(tag);
 
     private const string RootConfig = "fail_on: error\nrules:\n  SL201: warning\n";
 

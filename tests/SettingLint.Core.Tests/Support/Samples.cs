@@ -63,6 +63,23 @@ public static class Samples
 
         """;
 
+    /// <summary>
+    /// The sample motor with a thermal element set at 1.3 x FLC: above the 1.25 x FLC that NFPA 70 430.32(A)(1) allows
+    /// for a service factor of 1.15, so SL801 fires wherever NFPA 70 governs and nowhere else.
+    /// </summary>
+    public static readonly string ThermalAbove125 = MotorWith("protection:\n", """
+        protection:
+          thermal:
+            enabled: true
+            pickup: 1.3 xFLC
+            time_constant: 9 min
+            cooling_time_constant: 27 min
+
+        """);
+
+    /// <summary><see cref="ThermalAbove125"/> with another tag, for repositories of several such motors.</summary>
+    public static string ThermalAbove125Tagged(string tag) => Replace(ThermalAbove125, "tag: M-1", "tag: " + tag);
+
     /// <summary>The sample motor with one exact piece of text replaced (it must occur exactly once).</summary>
     public static string MotorWith(string old, string replacement) => Replace(Motor, old, replacement);
 
