@@ -136,12 +136,8 @@ internal static class FixFinder
         ArgumentNullException.ThrowIfNull(onlyRules);
         ArgumentNullException.ThrowIfNull(outcomes);
         ArgumentNullException.ThrowIfNull(motors);
-        var unreadable = findings.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)).Select(f => f.File).ToHashSet(StringComparer.Ordinal);
-        var files = findings
-            .Where(f => f.Suppression is null && f.KeyPath.StartsWith(FixPlanner.SettingPrefix, StringComparison.Ordinal) && !unreadable.Contains(f.File)
-                && (onlyRules.Count == 0 || onlyRules.Contains(f.RuleId)))
-            .Select(f => f.File).ToImmutableSortedSet(StringComparer.Ordinal);
-        if (files.IsEmpty) return SuggestionSet.None;
+        var fixable = FixPlanner.Fixable(findings, onlyRules);
+        if (fixable.Count == 0) return SuggestionSet.None;
 
         var root = source.Root;
         // One rule set for every confirming round: each folder's rules are built once, on first use.
@@ -156,12 +152,9 @@ internal static class FixFinder
         }
         // Only the settings that have a finding get a window (the planner takes no other): at 10,000 motors, each with a
         // finding on one setting, deriving every setting's window took some 11 % of a check's CPU (perf, native build).
-        var wanted = findings
-            .Where(f => f.Suppression is null && !unreadable.Contains(f.File) && (onlyRules.Count == 0 || onlyRules.Contains(f.RuleId)))
-            .Select(f => (f.File, f.KeyPath)).ToHashSet();
-        var windows = SettingWindows.Derive(outcomes.Where(o => wanted.Contains((o.MotorFile, o.Subject))));
+        var windows = SettingWindows.Derive(outcomes.Where(o => fixable.Contains((o.MotorFile, o.Subject))));
         var preferences = rules.Rules.Where(r => r.Prefer is not null).ToDictionary(r => r.Id, r => r.Prefer!, StringComparer.Ordinal);
-        var plan = FixPlanner.Plan(findings, windows, motors, Read, onlyRules, preferences);
+        var plan = FixPlanner.Plan(fixable, windows, motors, Read, preferences);
         var refused = plan.Where(f => !f.HasValue).Select(f => (f, f.Reason!)).ToList();
         var fixes = plan.Where(f => f.HasValue).ToList();
         var known = findings.Select(f => (f.File, f.RuleId, f.KeyPath)).ToHashSet();

@@ -15,37 +15,46 @@ internal static class FixPlanner
     /// <summary>The key paths a fix may edit: the relay's settings, never the motor's data.</summary>
     public const string SettingPrefix = SchemaPaths.Motor.ProtectionPrefix;
 
-    /// <summary>The fixes of a check, sorted by file and line; those without a value say why.</summary>
+    /// <summary>
+    /// The settings a check's findings ask to fix, as (file, key path): an unsuppressed finding on a relay setting, of the
+    /// rules asked for, in a file that every finding shows was read whole (no SL0nn finding on it, accepted or not).
+    /// </summary>
     /// <param name="findings">The check's findings.</param>
+    /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
+    public static HashSet<(string File, string KeyPath)> Fixable(IReadOnlyCollection<Finding> findings, IReadOnlySet<string> onlyRules)
+    {
+        ArgumentNullException.ThrowIfNull(findings);
+        ArgumentNullException.ThrowIfNull(onlyRules);
+        var unreadable = findings.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)).Select(f => f.File).ToHashSet(StringComparer.Ordinal);
+        return findings
+            .Where(f => f.Suppression is null && f.KeyPath.StartsWith(SettingPrefix, StringComparison.Ordinal) && !unreadable.Contains(f.File)
+                && (onlyRules.Count == 0 || onlyRules.Contains(f.RuleId)))
+            .Select(f => (f.File, f.KeyPath)).ToHashSet();
+    }
+
+    /// <summary>The fixes of a check, sorted by file and line; those without a value say why.</summary>
+    /// <param name="fixable">The settings to fix (<see cref="Fixable"/>).</param>
     /// <param name="windows">The windows derived from the same check's rule outcomes.</param>
     /// <param name="motors">The bound motors of that check, by root-relative file.</param>
     /// <param name="readText">Reads a root-relative file's text as the check saw it.</param>
-    /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
     /// <param name="preferences">The preferred side of the rules that state one (rule.yaml's `prefer`), by rule id; null for none.</param>
     public static ImmutableArray<SettingFix> Plan(
-        IEnumerable<Finding> findings,
+        IReadOnlySet<(string File, string KeyPath)> fixable,
         IEnumerable<SettingWindow> windows,
         IReadOnlyDictionary<string, MotorProtection> motors,
         Func<string, string?> readText,
-        IReadOnlySet<string> onlyRules,
         IReadOnlyDictionary<string, FixPreference>? preferences = null)
     {
-        ArgumentNullException.ThrowIfNull(findings);
+        ArgumentNullException.ThrowIfNull(fixable);
         ArgumentNullException.ThrowIfNull(windows);
         ArgumentNullException.ThrowIfNull(motors);
         ArgumentNullException.ThrowIfNull(readText);
-        ArgumentNullException.ThrowIfNull(onlyRules);
-        var all = findings.Where(f => f.Suppression is null).ToList();
-        var unreadable = all.Where(f => f.RuleId.StartsWith("SL0", StringComparison.Ordinal)).Select(f => f.File).ToHashSet(StringComparer.Ordinal);
-        var wanted = all.Where(f => onlyRules.Count == 0 || onlyRules.Contains(f.RuleId))
-            .Select(f => (f.File, f.KeyPath)).ToHashSet();
         var texts = new Dictionary<string, string?>(StringComparer.Ordinal);
         var fixes = ImmutableArray.CreateBuilder<SettingFix>();
         foreach (var window in windows)
         {
-            // Only settings: a rule on the motor's data (a stall time, a CT rating) asks for the data to be checked, not rewritten.
-            if (!window.Setting.StartsWith(SettingPrefix, StringComparison.Ordinal)) continue;
-            if (unreadable.Contains(window.MotorFile) || !wanted.Contains((window.MotorFile, window.Setting))) continue;
+            // Only settings (Fixable): a rule on the motor's data (a stall time, a CT rating) asks for the data to be checked, not rewritten.
+            if (!fixable.Contains((window.MotorFile, window.Setting))) continue;
             if (!motors.TryGetValue(window.MotorFile, out var motor)) continue;
             if (!texts.TryGetValue(window.MotorFile, out var text)) texts[window.MotorFile] = text = readText(window.MotorFile);
             if (text is null) continue;
