@@ -87,7 +87,6 @@ public sealed record ChangeSet(
     /// <param name="settingFiles">Every setting file of the run, root-relative.</param>
     public (ImmutableSortedSet<string> Selected, ImmutableSortedSet<string> Dependants) Select(string root, IReadOnlyCollection<MotorReferences> motors, IEnumerable<string> settingFiles)
     {
-        var touched = Changed.Union(Deleted);
         var buses = TouchedBuses(root, motors);
         var selected = ImmutableSortedSet.CreateBuilder<string>(StringComparer.Ordinal);
         foreach (var f in settingFiles)
@@ -96,7 +95,7 @@ public sealed record ChangeSet(
         }
         foreach (var m in motors)
         {
-            if ((m.Bus is { } bus && buses.Contains(bus)) || (m.RelayModel is { } relay && touched.Contains(relay))) selected.Add(m.File);
+            if (Selects(m, buses)) selected.Add(m.File);
         }
         var all = selected.ToImmutable();
         return (all, all.Except(Changed));
@@ -134,7 +133,7 @@ public sealed record ChangeSet(
 
     /// <summary>The motors of a bound repository with their references, resolved as the reference resolver does.</summary>
     public static ImmutableArray<MotorReferences> ReferencesOf(string root, RepositoryIndex index) =>
-        [.. index.Motors.Select(m => new MotorReferences(m.Document.RelativePath, Reference(root, m.Document, "bus"), Reference(root, m.Document, "relay_model")))];
+        [.. index.Motors.Select(m => ReferencesOf(root, m))];
 
     /// <summary>Whether the change selects a motor with these references (see <see cref="Select"/>), given its touched buses.</summary>
     internal bool Selects(MotorReferences motor, IReadOnlySet<string> touchedBuses) =>
