@@ -247,13 +247,13 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             var motors = settingFiles.Where(s => s.Motor is not null).ToArray();
             work.Evaluate(Ordered(motors), new RepositoryIndex(motors.Select(s => s.Motor!)), options.Parallel);
             kept = [.. settingFiles.Select(s => new Kept(s))];
-            tags = kept.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
+            tags = TagsOf(kept);
         }
         else
         {
             var (refs, unsure, _) = QuickScan.Read(root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel);
             kept = ByBus(work, BusGroups.Of(discovery.Files, refs, unsure), options.Parallel);
-            tags = kept.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
+            tags = TagsOf(kept);
         }
 
         var known = descriptors.Select(d => d.Id).ToHashSet(StringComparer.Ordinal);
@@ -291,6 +291,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         foreach (var f in files) work.Enter(f);
         return [.. work.Bind(Ordered(files), parallel).Where(s => s.IsChecked)];
     }
+
+    private static IEnumerable<(string File, TextValue Tag)> TagsOf(IEnumerable<Kept> files) =>
+        files.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
 
     private static IEnumerable<(string File, TextValue Tag)> TagsOf(IEnumerable<FileState> files) =>
         files.Where(s => s.Document?["tag"] is TextValue).Select(s => (s.RelativePath, (TextValue)s.Document!["tag"]!));
