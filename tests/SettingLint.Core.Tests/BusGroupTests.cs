@@ -3,9 +3,12 @@ using System.Collections.Immutable;
 using System.Globalization;
 using System.Text;
 using SettingLint.Core.Engine;
+using SettingLint.Core.Discovery;
 using SettingLint.Core.Findings;
+using SettingLint.Core.Loading;
 using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
+using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
 using SettingLint.Tests.Support;
 
@@ -218,6 +221,69 @@ public sealed class BusGroupTests
         Assert.True(probe.AliveAtEachGroup.Count >= 5, "groups: " + probe.AliveAtEachGroup.Count);
         Assert.All(probe.AliveAtEachGroup, n => Assert.Equal(0, n));
         Assert.Contains(result.Findings, f => f.RuleId == "SL951");
+    }
+
+    /// <summary>A disk source that holds each file it discovers weakly, by its root-relative path.</summary>
+    private sealed class WatchedSource(DiskSource inner, ConcurrentDictionary<string, WeakReference> discovered) : IFileSource
+    {
+        public string Root => inner.Root;
+
+        public EntryKind Probe(string fullPath) => inner.Probe(fullPath);
+
+        public byte[]? Read(string relativePath) => inner.Read(relativePath);
+
+        public LoadedFile Load(string fullPath, string relativePath, LoadLimits limits) => ((IFileSource)inner).Load(fullPath, relativePath, limits);
+
+        public DiscoveryResult Discover(IReadOnlyList<string> paths, IReadOnlyList<string> shown, Func<string, bool>? included)
+        {
+            var found = inner.Discover(paths, shown, included);
+            foreach (var f in found.Files) discovered[f.RelativePath] = new WeakReference(f);
+            return found;
+        }
+
+        public IReadOnlyList<string> FindFiles(string relativeFolder, string fileName) => inner.FindFiles(relativeFolder, fileName);
+    }
+
+    /// <summary>At the first motor of each group, counts the discovered files of the motors of the groups done before that are still alive.</summary>
+    private sealed class DiscoveryProbe(RuleSet inner, ConcurrentDictionary<string, WeakReference> discovered) : IRuleSet
+    {
+        private readonly List<string> _done = [];
+        private readonly List<string> _current = [];
+        private string? _last;
+
+        public List<int> AliveAtEachGroup { get; } = [];
+
+        public ImmutableArray<RuleDescriptor> Descriptors => inner.Descriptors;
+
+        public void Evaluate(MotorProtection motor, RepositoryIndex index, FindingBuilder findings, Action<Notification> notify)
+        {
+            var group = index.Motors[0].Document.RelativePath;
+            if (group != _last)
+            {
+                _done.AddRange(_current);
+                _current.Clear();
+                AliveAtEachGroup.Add(Heap.Alive(_done.Select(f => discovered[f])));
+            }
+            _last = group;
+            _current.Add(motor.Document.RelativePath);
+            inner.Evaluate(motor, index, findings, notify);
+        }
+    }
+
+    [Fact]
+    public void A_finished_groups_discovered_files_are_collected_while_the_run_goes_on()
+    {
+        using var repo = Repository();
+        var discovered = new ConcurrentDictionary<string, WeakReference>(StringComparer.Ordinal);
+        var probe = new DiscoveryProbe(new RuleSet(Rules()), discovered);
+        var source = new WatchedSource(new DiskSource(repo.Root), discovered);
+        var result = new Checker(probe).Run(new CheckOptions([repo.Root], Parallel: false, Source: source));
+
+        // Each motor's discovered file (its two paths) goes with its group, not at the end of the run.
+        Assert.True(discovered.Count >= 35, "files discovered: " + discovered.Count);
+        Assert.True(probe.AliveAtEachGroup.Count >= 5, "groups: " + probe.AliveAtEachGroup.Count);
+        Assert.All(probe.AliveAtEachGroup, n => Assert.Equal(0, n));
+        Assert.Equal(new Checker(new RuleSet(Rules())).Run(new CheckOptions([repo.Root], Parallel: false)).Findings.Length, result.Findings.Length);
     }
 
     [Theory]

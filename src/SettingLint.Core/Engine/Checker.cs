@@ -174,25 +174,15 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             // Nothing that can change a finding changed: no need to read the repository at all.
             return new CheckResult(root, [], descriptors, [], 0, [], options.FailOn) { Scope = Scope(untouched, []) };
         }
-        var discovery = source.Discover(paths, shown, options.Include);
-        foreach (var m in discovery.Missing)
-        {
-            notifications.Add(new Notification(NotificationKind.Configuration, "The path '" + m + "' does not exist."));
-        }
-        foreach (var o in discovery.Outside)
-        {
-            notifications.Add(new Notification(NotificationKind.Configuration,
-                "The path '" + o + "' lies outside the repository root " + root + " (found from the first path); check it in a run of its own."));
-        }
-
         var work = new Work(this, options, source, notifications);
         List<Kept> kept;
         IEnumerable<(string File, TextValue Tag)> tags;
         IReadOnlyList<string>? planned = null;
         var dependants = ImmutableSortedSet<string>.Empty;
-        var discoveryFindings = discovery.Findings;
+        IReadOnlyList<Finding> discoveryFindings;
         if (options.Changes is { EverythingBecause: null } changes)
         {
+            var discovery = Discover(source, paths, shown, options, notifications);
             // Load only what the change can reach, found by a quick read of every file's references; report only the
             // changed files and their dependants. The changed motors are bound first: the buses they are on choose the rest.
             // A run asked to read everything (usePlan false) binds every file as one group.
@@ -243,6 +233,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
         else if (OneGroup)
         {
+            var discovery = Discover(source, paths, shown, options, notifications);
+            discoveryFindings = discovery.Findings;
             var settingFiles = BindAll(work, discovery.Files, options.Parallel);
             var motors = settingFiles.Where(s => s.Motor is not null).ToArray();
             work.Evaluate(Ordered(motors), new RepositoryIndex(motors.Select(s => s.Motor!)), options.Parallel);
@@ -251,8 +243,10 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
         else
         {
-            var (refs, unsure, _) = QuickScan.Read(root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel);
-            kept = ByBus(work, BusGroups.Of(discovery.Files, refs, unsure), options.Parallel);
+            // Only the groups hold the discovered files, each letting its own go when it is done: the run keeps no entry
+            // (two paths) per file to its end.
+            (var plan, discoveryFindings) = Plan(source, paths, shown, options, notifications);
+            kept = ByBus(work, plan, options.Parallel);
             tags = TagsOf(kept);
         }
 
@@ -283,6 +277,34 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
             LoadedFiles = planned,
         };
+    }
+
+    /// <summary>Finds the files to check; a path that is missing or outside the root is a notification.</summary>
+    private static DiscoveryResult Discover(IFileSource source, string[] paths, IReadOnlyList<string> shown, CheckOptions options, ConcurrentBag<Notification> notifications)
+    {
+        var discovery = source.Discover(paths, shown, options.Include);
+        foreach (var m in discovery.Missing)
+        {
+            notifications.Add(new Notification(NotificationKind.Configuration, "The path '" + m + "' does not exist."));
+        }
+        foreach (var o in discovery.Outside)
+        {
+            notifications.Add(new Notification(NotificationKind.Configuration,
+                "The path '" + o + "' lies outside the repository root " + source.Root + " (found from the first path); check it in a run of its own."));
+        }
+        return discovery;
+    }
+
+    /// <summary>
+    /// Finds a full run's files and divides them by bus, from a quick read of their references: what the run holds of the
+    /// discovery is the groups and its findings (the quick read and the list of every file are let go here).
+    /// </summary>
+    private static (BusGroups Plan, IReadOnlyList<Finding> Findings) Plan(
+        IFileSource source, string[] paths, IReadOnlyList<string> shown, CheckOptions options, ConcurrentBag<Notification> notifications)
+    {
+        var discovery = Discover(source, paths, shown, options, notifications);
+        var (refs, unsure, _) = QuickScan.Read(source.Root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel, withTags: false);
+        return (BusGroups.Of(discovery.Files, refs, unsure), discovery.Findings);
     }
 
     /// <summary>Enters and binds every one of these files; the setting files among them.</summary>
@@ -340,6 +362,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var early = new Dictionary<string, List<FileState>>(StringComparer.Ordinal);
         var alone = new List<FileState>();
         var first = work.Bind(Ordered(plan.First), parallel);
+        plan.First.Clear();
         var selected = choose?.Invoke(first) ?? (_ => true);
         foreach (var s in first)
         {
@@ -401,6 +424,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         Drop(work, busDocument);
         if (group.File is { } file) work.Drop(file.FullPath);
         early.Clear();
+        // Nor do its files wait for the run to end.
+        group.Motors.Clear();
+        group.Motors.TrimExcess();
         return kept;
     }
 

@@ -33,13 +33,14 @@ internal static class QuickScan
         Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => FileBytes.CopyInto(read(f), max, ref buffer), maxBytes, parallel);
 
     /// <summary>The same, each file read through a source into a buffer that each thread keeps (no array per file).</summary>
+    /// <param name="withTags">Whether to collect the tags (a full run has no use for them; else they are empty).</param>
     public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
-        string root, IReadOnlyList<DiscoveredFile> files, IFileSource source, long maxBytes, bool parallel) =>
-        Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => source.ReadInto(f.FullPath, f.RelativePath, max, ref buffer), maxBytes, parallel);
+        string root, IReadOnlyList<DiscoveredFile> files, IFileSource source, long maxBytes, bool parallel, bool withTags = true) =>
+        Read(root, files, (DiscoveredFile f, long max, ref byte[] buffer) => source.ReadInto(f.FullPath, f.RelativePath, max, ref buffer), maxBytes, parallel, withTags);
 
     /// <summary>The same, with the files read by <paramref name="read"/>.</summary>
     public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
-        string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel)
+        string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel, bool withTags = true)
     {
         var found = new ConcurrentBag<Written>();
         var uncertain = new ConcurrentBag<string>();
@@ -50,7 +51,7 @@ internal static class QuickScan
             if (length < 0 || length > maxBytes || !TryScan(buffer.AsSpan(0, (int)length), out var scanned)) uncertain.Add(f.RelativePath);
             else
             {
-                if (scanned.Tag is { } tag) tags.Add(KeyValuePair.Create(f.RelativePath, tag));
+                if (withTags && scanned.Tag is { } tag) tags.Add(KeyValuePair.Create(f.RelativePath, tag));
                 if (scanned.IsMotor) found.Add(new Written(f, scanned.Bus!, scanned.RelayModel));
             }
             return buffer;
