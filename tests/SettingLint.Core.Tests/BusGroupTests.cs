@@ -223,6 +223,20 @@ public sealed class BusGroupTests
         Assert.Contains(result.Findings, f => f.RuleId == "SL951");
     }
 
+    [Fact]
+    public void A_finished_groups_tags_are_not_kept_as_values_of_their_documents()
+    {
+        using var repo = Repository();
+        var tags = new ConcurrentBag<WeakReference>();
+        var probe = new Probe(new RuleSet(Rules()), tags);
+        var result = new Checker(probe) { OnDropped = d => { if (d["tag"] is TextValue t) tags.Add(new WeakReference(t)); } }.Run(new CheckOptions([repo.Root], Parallel: false));
+
+        // The run keeps each file's tag as text and place, for the rule that a tag names one piece of equipment (SL012).
+        Assert.True(tags.Count >= 30, "tags dropped: " + tags.Count);
+        Assert.All(probe.AliveAtEachGroup, n => Assert.Equal(0, n));
+        Assert.Contains(result.Findings, f => f.RuleId == EngineRules.DuplicateTag);
+    }
+
     /// <summary>A disk source that holds each file it discovers weakly, by its root-relative path.</summary>
     private sealed class WatchedSource(DiskSource inner, ConcurrentDictionary<string, WeakReference> discovered) : IFileSource
     {

@@ -83,23 +83,45 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
     /// <summary>
     /// What a run keeps of a reported file once its group is done, until the end (the output is sorted, and SARIF and JSON
-    /// are written whole): its findings, its tag (tags are compared across the repository) and its acceptance comments.
+    /// are written whole): its path, its tag (tags are compared across the repository) and, of the few files that have
+    /// them, its findings, checks not run and acceptance comments. A value in one list, not an object per file: at
+    /// 100,000 motors a run kept some 120 bytes for each in objects all over the heap (Kept and its tag's TextValue).
     /// </summary>
-    private sealed class Kept(FileState s)
+    private readonly struct Kept
     {
-        public string RelativePath { get; } = s.RelativePath;
+        private readonly Notes? _notes;
 
-        public IReadOnlyList<Finding> Findings { get; } = s.LoadFindings.Count + s.Findings.Findings.Count == 0 ? [] : [.. s.LoadFindings, .. s.Findings.Findings];
+        public Kept(FileState s)
+        {
+            RelativePath = s.RelativePath;
+            Motor = s.Motor?.Tag;
+            Tag = TagOf(s);
+            var findings = s.LoadFindings.Count + s.Findings.Findings.Count;
+            if (findings + s.Findings.NotRun.Count + s.Acceptances.Length == 0) return;
+            _notes = new Notes(
+                findings == 0 ? [] : [.. s.LoadFindings, .. s.Findings.Findings],
+                s.Findings.NotRun.Count == 0 ? [] : [.. s.Findings.NotRun],
+                s.Acceptances);
+        }
 
-        public IReadOnlyList<CheckNotRun> NotRun { get; } = s.Findings.NotRun.Count == 0 ? [] : [.. s.Findings.NotRun];
-
-        public ImmutableArray<AcceptComment> Acceptances { get; } = s.Acceptances;
-
-        public TextValue? Tag { get; } = s.Document?["tag"] as TextValue;
+        public string RelativePath { get; }
 
         /// <summary>The motor's name (its tag, else its file name) when the file is a motor.</summary>
-        public string? Motor { get; } = s.Motor?.Tag;
+        public string? Motor { get; }
+
+        public FileTag? Tag { get; }
+
+        public IReadOnlyList<Finding> Findings => _notes?.Findings ?? [];
+
+        public IReadOnlyList<CheckNotRun> NotRun => _notes?.NotRun ?? [];
+
+        public ImmutableArray<AcceptComment> Acceptances => _notes?.Acceptances ?? [];
+
+        private sealed record Notes(IReadOnlyList<Finding> Findings, IReadOnlyList<CheckNotRun> NotRun, ImmutableArray<AcceptComment> Acceptances);
     }
+
+    /// <summary>A setting file's tag as written, for the rule that a tag names one piece of equipment in the repository.</summary>
+    private readonly record struct FileTag(string File, string Tag, SourceSpan Span);
 
     /// <summary>The work of one run on its files, shared by its ways of dividing them.</summary>
     private sealed class Work(Checker checker, CheckOptions options, IFileSource source, ConcurrentBag<Notification> notifications)
@@ -176,7 +198,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         }
         var work = new Work(this, options, source, notifications);
         List<Kept> kept;
-        IEnumerable<(string File, TextValue Tag)> tags;
+        IEnumerable<FileTag> tags;
         IReadOnlyList<string>? planned = null;
         var dependants = ImmutableSortedSet<string>.Empty;
         IReadOnlyList<Finding> discoveryFindings;
@@ -206,7 +228,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 (selected, dependants) = changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList());
                 var reported = settingFiles.Where(s => selected.Contains(s.RelativePath)).ToArray();
                 // A reported file that the quick read was not sure of may have the tag of a file the plan left unread.
-                if (planned is not null && UnreadTagMate(reported.Select(s => s.Document?["tag"] as TextValue), planned, quickTags)) return Run(options, usePlan: false);
+                if (planned is not null && UnreadTagMate(reported.Select(TagOf), planned, quickTags)) return Run(options, usePlan: false);
                 work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
                 kept = [.. reported.Select(s => new Kept(s))];
                 // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
@@ -222,7 +244,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                     var buses = changes.TouchedBuses(root, [.. ahead.Where(s => s.Motor is not null && changes.Changed.Contains(s.RelativePath)).Select(s => ChangeSet.ReferencesOf(root, s.Motor!))]);
                     return s => s.IsChecked && (changes.Changed.Contains(s.RelativePath) || (s.Motor is { } m && changes.Selects(ChangeSet.ReferencesOf(root, m), buses)));
                 }
-                var bound = new ConcurrentBag<(string, TextValue)>();
+                var bound = new ConcurrentBag<FileTag>();
                 kept = ByBus(work, BusGroups.Of(toLoad, refs, [.. unsure.Concat(changedMotors)]), options.Parallel, Choose, bound);
                 tags = bound;
                 selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Select(k => k.RelativePath));
@@ -314,11 +336,11 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         return [.. work.Bind(Ordered(files), parallel).Where(s => s.IsChecked)];
     }
 
-    private static IEnumerable<(string File, TextValue Tag)> TagsOf(IEnumerable<Kept> files) =>
-        files.Where(k => k.Tag is not null).Select(k => (k.RelativePath, k.Tag!));
+    private static IEnumerable<FileTag> TagsOf(IEnumerable<Kept> files) => files.Select(k => k.Tag).OfType<FileTag>();
 
-    private static IEnumerable<(string File, TextValue Tag)> TagsOf(IEnumerable<FileState> files) =>
-        files.Where(s => s.Document?["tag"] is TextValue).Select(s => (s.RelativePath, (TextValue)s.Document!["tag"]!));
+    private static IEnumerable<FileTag> TagsOf(IEnumerable<FileState> files) => files.Select(TagOf).OfType<FileTag>();
+
+    private static FileTag? TagOf(FileState s) => s.Document?["tag"] is TextValue tag ? new FileTag(s.RelativePath, tag.Value, tag.Span) : null;
 
     /// <summary>
     /// A full run, bus by bus. The files the quick read is not sure of are bound first, to learn their bus; the files that
@@ -333,7 +355,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// report; null reports every file.
     /// </param>
     /// <param name="tags">Receives the tag of every setting file bound, reported or not, when <paramref name="choose"/> is given.</param>
-    private List<Kept> ByBus(Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose = null, ConcurrentBag<(string, TextValue)>? tags = null)
+    private List<Kept> ByBus(Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose = null, ConcurrentBag<FileTag>? tags = null)
     {
         var (kept, early, selected) = Ahead(work, plan, parallel, choose, tags);
         var gate = new Lock();
@@ -350,10 +372,12 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// shared bus. What the run keeps of them, and the motors bound ahead by the bus they name.
     /// </summary>
     private (List<Kept> Kept, Dictionary<string, List<FileState>> Early, Func<FileState, bool> Selected) Ahead(
-        Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose, ConcurrentBag<(string, TextValue)>? tags)
+        Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose, ConcurrentBag<FileTag>? tags)
     {
         // Every file but the motors of a sure bus is entered now, so that a motor bound early, or any motor that names a
         // relay model, shares the reported state of what it names instead of loading it unreported.
+        // The list of what is kept is made once, as long as every file (else its growing would leave its old arrays behind).
+        var kept = new List<Kept>(plan.First.Count + plan.Others.Count + plan.Buses.Values.Sum(g => g.Motors.Count + 1));
         foreach (var f in plan.First.Concat(plan.Others)) work.Enter(f);
         foreach (var g in plan.Buses.Values)
         {
@@ -385,19 +409,19 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         work.Evaluate(Ordered(loners.Where(selected).ToArray()), new RepositoryIndex(loners.Select(s => s.Motor!)), parallel);
         var done = alone.Concat(work.Bind(Ordered(plan.Others), parallel)).Where(s => s.IsChecked && s.Reported).ToList();
         Tags(done, tags);
-        var kept = done.Where(selected).Select(s => new Kept(s)).ToList();
+        kept.AddRange(done.Where(selected).Select(s => new Kept(s)));
         foreach (var s in loners) Drop(work, s.Document);
         return (kept, early, selected);
     }
 
-    private static void Tags(IEnumerable<FileState> files, ConcurrentBag<(string, TextValue)>? tags)
+    private static void Tags(IEnumerable<FileState> files, ConcurrentBag<FileTag>? tags)
     {
         if (tags is null) return;
         foreach (var t in TagsOf(files)) tags.Add(t);
     }
 
     /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
-    private List<Kept> Group(Work work, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<(string, TextValue)>? tags)
+    private List<Kept> Group(Work work, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags)
     {
         foreach (var f in group.Motors) work.Enter(f);
         List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. group.Motors] : group.Motors;
@@ -445,9 +469,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>Whether a reported file has the tag of a file that the plan left unread (the quick read of a reported file may not have been sure of its tag).</summary>
-    private static bool UnreadTagMate(IEnumerable<TextValue?> reportedTags, IReadOnlyList<string> planned, IReadOnlyDictionary<string, string> quickTags)
+    private static bool UnreadTagMate(IEnumerable<FileTag?> reportedTags, IReadOnlyList<string> planned, IReadOnlyDictionary<string, string> quickTags)
     {
-        var tags = reportedTags.OfType<TextValue>().Select(t => t.Value).ToHashSet(StringComparer.Ordinal);
+        var tags = reportedTags.OfType<FileTag>().Select(t => t.Tag).ToHashSet(StringComparer.Ordinal);
         if (tags.Count == 0) return false;
         var loaded = planned.ToHashSet(StringComparer.Ordinal);
         return quickTags.Any(t => tags.Contains(t.Value) && !loaded.Contains(t.Key));
@@ -458,17 +482,25 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
     /// <summary>A tag names one piece of equipment in the repository: every later file that reuses one is told where it is taken.</summary>
     /// <returns>The findings of the files that reuse a tag, by file.</returns>
-    private static Dictionary<string, FindingBuilder> DuplicateTags(IEnumerable<(string File, TextValue Tag)> files)
+    private static Dictionary<string, FindingBuilder> DuplicateTags(IEnumerable<FileTag> tags)
     {
-        var found = new Dictionary<string, FindingBuilder>(StringComparer.Ordinal);
-        foreach (var group in files.GroupBy(f => f.Tag.Value, StringComparer.Ordinal))
+        // The first file of each tag, in path order, found in one pass and the others told in a second: no group per tag.
+        var first = new Dictionary<string, (string File, bool Passed)>(StringComparer.Ordinal);
+        foreach (var t in tags)
         {
-            var ordered = group.OrderBy(f => f.File, StringComparer.Ordinal).ToList();
-            foreach (var later in ordered.Skip(1))
+            if (!first.TryGetValue(t.Tag, out var f) || string.CompareOrdinal(t.File, f.File) < 0) first[t.Tag] = (t.File, false);
+        }
+        var found = new Dictionary<string, FindingBuilder>(StringComparer.Ordinal);
+        foreach (var t in tags)
+        {
+            var f = first[t.Tag];
+            if (t.File == f.File && !f.Passed)
             {
-                var builder = found.TryGetValue(later.File, out var b) ? b : found[later.File] = new FindingBuilder(later.File);
-                builder.Add(EngineMessages.TagAlreadyUsedBy, later.Tag.Span, "tag", ("tag", group.Key), ("other", ordered[0].File));
+                first[t.Tag] = (f.File, true);
+                continue;
             }
+            var builder = found.TryGetValue(t.File, out var b) ? b : found[t.File] = new FindingBuilder(t.File);
+            builder.Add(EngineMessages.TagAlreadyUsedBy, t.Span, "tag", ("tag", t.Tag), ("other", f.File));
         }
         return found;
     }
