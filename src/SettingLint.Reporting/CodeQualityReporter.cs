@@ -20,7 +20,7 @@ public sealed class CodeQualityReporter : IReporter
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(context);
         ArgumentNullException.ThrowIfNull(output);
-        output.Write(JsonOutput.Render(json => WriteIssues(json, result)));
+        JsonOutput.Write(output, json => WriteIssues(json, result));
     }
 
     /// <summary>The severity of a finding's level: GitLab's scale is info, minor, major, critical, blocker.</summary>

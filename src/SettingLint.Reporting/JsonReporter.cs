@@ -13,7 +13,7 @@ public sealed class JsonReporter : IReporter
         ArgumentNullException.ThrowIfNull(context);
         ArgumentNullException.ThrowIfNull(output);
 
-        output.Write(JsonOutput.Render(json => WriteReport(json, result, context)));
+        JsonOutput.Write(output, json => WriteReport(json, result, context));
     }
 
     private static void WriteReport(Utf8JsonWriter json, CheckResult result, ReportContext context)

@@ -34,7 +34,7 @@ public sealed class SarifReporter : IReporter
         ArgumentNullException.ThrowIfNull(context);
         ArgumentNullException.ThrowIfNull(output);
 
-        output.Write(JsonOutput.Render(json => WriteLog(json, result, context)));
+        JsonOutput.Write(output, json => WriteLog(json, result, context));
     }
 
     private static void WriteLog(Utf8JsonWriter json, CheckResult result, ReportContext context)
