@@ -42,9 +42,13 @@ internal static class QuickScan
     public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
         string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel, bool withTags = true)
     {
-        var found = new ConcurrentBag<Written>();
+        var found = new ConcurrentBag<MotorReferences>();
         var uncertain = new ConcurrentBag<string>();
         var tags = new ConcurrentBag<KeyValuePair<string, string>>();
+        // The references are resolved once per folder and value written (a bus has many motors in one folder), as each file
+        // is read: the values as written are let go with the file, before a collection can keep them for the run.
+        var resolved = new ConcurrentDictionary<(string Dir, string Value), string?>();
+        string? Resolve(string dir, string value) => resolved.GetOrAdd((dir, value), static (k, root) => ChangeSet.Resolve(root, k.Dir, k.Value), root);
         byte[] One(DiscoveredFile f, byte[] buffer)
         {
             var length = SafeRead(read, f, maxBytes, ref buffer);
@@ -52,7 +56,13 @@ internal static class QuickScan
             else
             {
                 if (withTags && scanned.Tag is { } tag) tags.Add(KeyValuePair.Create(f.RelativePath, tag));
-                if (scanned.IsMotor) found.Add(new Written(f, scanned.Bus!, scanned.RelayModel));
+                if (scanned.IsMotor)
+                {
+                    var dir = Path.GetDirectoryName(f.FullPath) ?? root;
+                    // An empty value is an inline bus mapping: the motor's own, shared with no other motor.
+                    found.Add(new MotorReferences(f.RelativePath, scanned.Bus!.Length == 0 ? null : Resolve(dir, scanned.Bus),
+                        scanned.RelayModel is null ? null : Resolve(dir, scanned.RelayModel)));
+                }
             }
             return buffer;
         }
@@ -63,26 +73,10 @@ internal static class QuickScan
             var buffer = new byte[BufferBytes];
             foreach (var f in files) buffer = One(f, buffer);
         }
-        // The references are resolved once per folder and value written (a bus has many motors in one folder).
-        var resolved = new Dictionary<(string Dir, string Value), string?>();
-        string? Resolve(string dir, string value)
-        {
-            if (!resolved.TryGetValue((dir, value), out var rel)) resolved[(dir, value)] = rel = ChangeSet.Resolve(root, dir, value);
-            return rel;
-        }
-        var motors = found.OrderBy(m => m.File.RelativePath, StringComparer.Ordinal).Select(m =>
-        {
-            var dir = Path.GetDirectoryName(m.File.FullPath) ?? root;
-            // An empty value is an inline bus mapping: the motor's own, shared with no other motor.
-            return new MotorReferences(m.File.RelativePath, m.Bus.Length == 0 ? null : Resolve(dir, m.Bus), m.RelayModel is null ? null : Resolve(dir, m.RelayModel));
-        });
-        return ([.. motors], [.. uncertain.Order(StringComparer.Ordinal)], new Dictionary<string, string>(tags, StringComparer.Ordinal));
+        return ([.. found.OrderBy(m => m.File, StringComparer.Ordinal)], [.. uncertain.Order(StringComparer.Ordinal)], new Dictionary<string, string>(tags, StringComparer.Ordinal));
     }
 
     private const int BufferBytes = 64 * 1024;
-
-    // A motor file's bus and relay model as written (relay model null when absent).
-    private sealed record Written(DiscoveredFile File, string Bus, string? RelayModel);
 
     // What the quick read found in a setting file: its tag, and of a motor its bus ("" for an inline one) and relay model as written.
     private readonly record struct Scanned(bool IsMotor, string? Tag, string? Bus, string? RelayModel);
