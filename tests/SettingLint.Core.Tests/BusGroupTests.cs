@@ -1,6 +1,7 @@
 using System.Collections.Concurrent;
 using System.Collections.Immutable;
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using System.Text;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Discovery;
@@ -221,6 +222,32 @@ public sealed class BusGroupTests
         Assert.True(probe.AliveAtEachGroup.Count >= 5, "groups: " + probe.AliveAtEachGroup.Count);
         Assert.All(probe.AliveAtEachGroup, n => Assert.Equal(0, n));
         Assert.Contains(result.Findings, f => f.RuleId == "SL951");
+    }
+
+    // In a frame of its own, so that no temporary of the test holds the discovered files.
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private static (BusGroups Plan, List<WeakReference> Motors) Divide(string root)
+    {
+        List<DiscoveredFile> files = [.. Enumerable.Range(0, 40).Select(i => new DiscoveredFile(Path.Combine(root, "motors", $"m-{i:D2}.yaml"), $"motors/m-{i:D2}.yaml"))];
+        files.Add(new DiscoveredFile(Path.Combine(root, "buses", "bus-1.yaml"), "buses/bus-1.yaml"));
+        // Discovered at a path other than the root joined with the relative one (as a link or a case-blind file system can give).
+        files.Add(new DiscoveredFile("/elsewhere/motors/odd.yaml", "motors/odd.yaml"));
+        ImmutableArray<MotorReferences> refs = [.. files.Where(f => f.RelativePath.StartsWith("motors/", StringComparison.Ordinal)).Select(f => new MotorReferences(f.RelativePath, "buses/bus-1.yaml", null))];
+        return (BusGroups.Of(root, files, refs, []), [.. files.Where(f => f.RelativePath.StartsWith("motors/", StringComparison.Ordinal)).Select(f => new WeakReference(f))]);
+    }
+
+    [Fact]
+    public void The_plan_of_a_full_run_holds_its_motors_by_relative_path_and_gives_each_as_discovered()
+    {
+        var root = Path.Combine(Path.GetTempPath(), "plan-root");
+        var (plan, motors) = Divide(root);
+
+        Assert.Equal(0, Heap.Alive(motors));
+        var group = Assert.Single(plan.Buses.Values);
+        Assert.Equal(41, group.Motors.Count);
+        Assert.Equal("buses/bus-1.yaml", group.File?.RelativePath);
+        Assert.Equal(new DiscoveredFile(Path.Combine(root, "motors", "m-07.yaml"), "motors/m-07.yaml"), plan.Motor("motors/m-07.yaml"));
+        Assert.Equal(new DiscoveredFile("/elsewhere/motors/odd.yaml", "motors/odd.yaml"), plan.Motor("motors/odd.yaml"));
     }
 
     [Fact]

@@ -245,7 +245,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                     return s => s.IsChecked && (changes.Changed.Contains(s.RelativePath) || (s.Motor is { } m && changes.Selects(ChangeSet.ReferencesOf(root, m), buses)));
                 }
                 var bound = new ConcurrentBag<FileTag>();
-                kept = ByBus(work, BusGroups.Of(toLoad, refs, [.. unsure.Concat(changedMotors)]), options.Parallel, Choose, bound);
+                kept = ByBus(work, BusGroups.Of(root, toLoad, refs, [.. unsure.Concat(changedMotors)]), options.Parallel, Choose, bound);
                 tags = bound;
                 selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Select(k => k.RelativePath));
                 if (UnreadTagMate(kept.Select(k => k.Tag), planned, quickTags)) return Run(options, usePlan: false);
@@ -326,7 +326,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     {
         var discovery = Discover(source, paths, shown, options, notifications);
         var (refs, unsure, _) = QuickScan.Read(source.Root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel, withTags: false);
-        return (BusGroups.Of(discovery.Files, refs, unsure), discovery.Findings);
+        return (BusGroups.Of(source.Root, discovery.Files, refs, unsure), discovery.Findings);
     }
 
     /// <summary>Enters and binds every one of these files; the setting files among them.</summary>
@@ -361,7 +361,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var gate = new Lock();
         ForEach(parallel, Ordered(plan.Buses.Values.ToArray()), group =>
         {
-            var done = Group(work, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags);
+            var done = Group(work, plan, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags);
             lock (gate) kept.AddRange(done);
         });
         return kept;
@@ -421,10 +421,11 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
-    private List<Kept> Group(Work work, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags)
+    private List<Kept> Group(Work work, BusGroups plan, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags)
     {
-        foreach (var f in group.Motors) work.Enter(f);
-        List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. group.Motors] : group.Motors;
+        var motorFiles = group.Motors.Select(plan.Motor).ToList();
+        foreach (var f in motorFiles) work.Enter(f);
+        List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. motorFiles] : motorFiles;
         // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many.
         var parallel = group.Motors.Count >= 64;
         var states = work.Bind(Ordered(files), parallel).Concat(early).ToArray();
