@@ -30,6 +30,10 @@ internal static class JsonOutput
     }
 
     /// <summary>A buffer that hands each piece the JSON writer finishes to a text writer, decoded, and is then used again.</summary>
+    /// <remarks>
+    /// At 100,000 motors (a 3.5 MB SARIF log) rendering whole held some 18 MB at the end of the run; the peak RSS of that run
+    /// comes earlier, while groups are checked, and did not move (169 MiB before and after, native, --no-suggest).
+    /// </remarks>
     private sealed class TextBufferWriter(TextWriter output) : IBufferWriter<byte>
     {
         private const int PieceBytes = 16 * 1024;

@@ -48,7 +48,7 @@ internal sealed record BusGroups(Dictionary<string, BusGroup> Buses, List<Discov
             else if (bus is not null)
             {
                 // A group holds its motors' relative paths only (kept for the result anyway), not their full paths too: at
-                // 100,000 motors those were 17 MB held until the group ran.
+                // 100,000 motors those were 17 MB held until the group ran (peak RSS, native, --no-suggest: 136-140 MiB, 130-134 without).
                 (buses.TryGetValue(bus, out var g) ? g : buses[bus] = new BusGroup(bus, null, [])).Motors.Add(f.RelativePath);
                 if (f.FullPath != SourcePaths.Full(root, f.RelativePath)) elsewhere[f.RelativePath] = f.FullPath;
             }

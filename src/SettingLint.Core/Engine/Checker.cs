@@ -269,7 +269,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         else
         {
             // Only the groups hold the discovered files, each letting its own go when it is done: the run keeps no entry
-            // (two paths) per file to its end.
+            // (two paths) per file to its end. Peak RSS at 100,000 motors, native, --no-suggest: 219-230 MiB with, 173 without.
             (var plan, discoveryFindings) = Plan(source, paths, shown, options, notifications);
             kept = ByBus(work, plan, options.Parallel);
             tags = TagsOf(kept);

@@ -47,6 +47,7 @@ internal static class QuickScan
         var tags = new ConcurrentBag<KeyValuePair<string, string>>();
         // The references are resolved once per folder and value written (a bus has many motors in one folder), as each file
         // is read: the values as written are let go with the file, before a collection can keep them for the run.
+        // Peak RSS at 100,000 motors, native, --no-suggest: 169-175 MiB resolved after the scan, 136-140 as each file is read.
         var resolved = new ConcurrentDictionary<(string Dir, string Value), string?>();
         string? Resolve(string dir, string value) => resolved.GetOrAdd((dir, value), static (k, root) => ChangeSet.Resolve(root, k.Dir, k.Value), root);
         byte[] One(DiscoveredFile f, byte[] buffer)
