@@ -3,7 +3,6 @@ using System.Text;
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Gate;
-using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Sources;
@@ -106,8 +105,8 @@ public sealed record SourceText(string Text, bool Bom)
 }
 
 /// <summary>
-/// Works out the fixes of a check's findings from the same check's rule outcomes and motors: derives the setting windows
-/// of the motors with a finding on a setting, makes a value for each, and keeps only the values that a second check of
+/// Works out the fixes of a check's findings from the settings' windows and facts that the same check took of its motors
+/// (<see cref="SettingFacts"/>): makes a value for each setting with a finding, and keeps only the values that a second check of
 /// the changed files confirms (no finding left on the setting, none gained in the file). The second check reads through
 /// the first's file source (the staged contents, an editor's buffers) and reaches the other motors of the bus, as the first did.
 /// </summary>
@@ -120,22 +119,20 @@ internal static class FixFinder
     /// <param name="findings">The check's findings.</param>
     /// <param name="onlyRules">Fix only findings of these rules; empty for all.</param>
     /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
-    /// <param name="outcomes">Every rule outcome of the check.</param>
-    /// <param name="motors">The motors the check bound, by root-relative file.</param>
+    /// <param name="settings">The windows and facts the check took of the settings that a rule failed on (<see cref="SettingFacts.Of"/>).</param>
     /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is confirmed under its folder's rules.</param>
     /// <param name="within">
     /// The files the check read when it read fewer than all (<see cref="CheckResult.LoadedFiles"/>): the confirming runs
     /// read only these, not every file of the repository again; null reads the repository.
     /// </param>
     public static SuggestionSet Compute(RuleSet rules, IFileSource source, Func<string, bool>? include, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules,
-        Func<string, string?>? electricalCode, IEnumerable<RuleOutcome> outcomes, IReadOnlyDictionary<string, MotorProtection> motors, Configuration.ConfigScopes? scopes = null,
+        Func<string, string?>? electricalCode, IEnumerable<SettingFacts> settings, Configuration.ConfigScopes? scopes = null,
         IReadOnlyList<string>? within = null)
     {
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(source);
         ArgumentNullException.ThrowIfNull(onlyRules);
-        ArgumentNullException.ThrowIfNull(outcomes);
-        ArgumentNullException.ThrowIfNull(motors);
+        ArgumentNullException.ThrowIfNull(settings);
         var fixable = FixPlanner.Fixable(findings, onlyRules);
         if (fixable.Count == 0) return SuggestionSet.None;
 
@@ -150,11 +147,10 @@ internal static class FixFinder
             texts[rel] = text;
             return text.Text;
         }
-        // Only the settings that have a finding get a window (the planner takes no other): at 10,000 motors, each with a
-        // finding on one setting, deriving every setting's window took some 11 % of a check's CPU (perf, native build).
-        var windows = SettingWindows.Derive(outcomes.Where(o => fixable.Contains((o.MotorFile, o.Subject))));
+        // By file, then setting, so that the files are read in an order that does not depend on the order of work.
+        var ordered = settings.OrderBy(s => s.MotorFile, StringComparer.Ordinal).ThenBy(s => s.Setting, StringComparer.Ordinal);
         var preferences = rules.Rules.Where(r => r.Prefer is not null).ToDictionary(r => r.Id, r => r.Prefer!, StringComparer.Ordinal);
-        var plan = FixPlanner.Plan(fixable, windows, motors, Read, preferences);
+        var plan = FixPlanner.Plan(fixable, ordered, Read, preferences);
         var refused = plan.Where(f => !f.HasValue).Select(f => (f, f.Reason!)).ToList();
         var fixes = plan.Where(f => f.HasValue).ToList();
         var known = findings.Select(f => (f.File, f.RuleId, f.KeyPath)).ToHashSet();

@@ -1,9 +1,6 @@
 using System.Globalization;
-using SettingLint.Core.Binding;
-using SettingLint.Core.Model;
 using SettingLint.Core.Quantities;
 using SettingLint.Core.Rules;
-using SettingLint.Core.Documents;
 
 namespace SettingLint.Core.Fixes;
 
@@ -18,33 +15,32 @@ internal static class FixMaker
     private const int MaxExtraDigits = 3;
 
     /// <summary>The fix of a window the present value lies outside of; null when the value already satisfies every bound.</summary>
-    /// <param name="window">The setting's window, derived from the rule outcomes of the same check.</param>
-    /// <param name="motor">The bound motor the window is of.</param>
+    /// <param name="setting">The setting's window, derived from the rule outcomes of the same check, with what the fix needs of its motor.</param>
     /// <param name="fileText">The motor file's text, to find the number as written.</param>
     /// <param name="prefer">The side the rules on the setting prefer and why; null for the least change from the present value.</param>
-    public static SettingFix? For(SettingWindow window, MotorProtection motor, string fileText, (PreferredSide Side, string Why)? prefer = null)
+    public static SettingFix? For(SettingFacts setting, string fileText, (PreferredSide Side, string Why)? prefer = null)
     {
-        ArgumentNullException.ThrowIfNull(window);
-        ArgumentNullException.ThrowIfNull(motor);
-        var value = motor.Document.Measure(window.Setting);
-        var range = RangeOf(motor, window.Setting);
+        ArgumentNullException.ThrowIfNull(setting);
+        var window = setting.Window;
+        var value = setting.Value;
+        var range = setting.Range;
         var offStep = range is { Step: > 0 } g && value is not null && !OnStep(value.Value, g.Min, g.Step);
         if (window.Holds && !offStep) return null;
         var located = value is null ? null : ValueText.NumberAt(fileText, value.Span);
         if (value is null || located is not { } at)
         {
-            return None(window, motor, value, "", "", "the value is not written as a number with a unit");
+            return None(setting, "", "", "the value is not written as a number with a unit");
         }
         var oldText = fileText.Substring(at.Start, at.Length);
         if (!double.TryParse(oldText, NumberStyles.Float, CultureInfo.InvariantCulture, out var written) || written == 0 || value.Value == 0)
         {
-            return None(window, motor, value, oldText, at.Unit, "the present value is zero, so its unit's scale is unknown");
+            return None(setting, oldText, at.Unit, "the present value is zero, so its unit's scale is unknown");
         }
         // SI per unit as written: A sec carries the CT ratio, xFLC the motor's FLC, % the rated voltage.
         var perUnit = value.Value / written;
         if (window.IsEmpty)
         {
-            return None(window, motor, value, oldText, at.Unit, Conflict(window));
+            return None(setting, oldText, at.Unit, Conflict(window));
         }
         var lower = window.TightestLower;
         var upper = window.TightestUpper;
@@ -79,7 +75,7 @@ internal static class FixMaker
                 si = candidate;
                 text = Plain(candidate / perUnit);
             }
-            if (text is null) return None(window, motor, value, oldText, at.Unit, "no step of the relay model's range lies inside the window " + Describe(window));
+            if (text is null) return None(setting, oldText, at.Unit, "no step of the relay model's range lies inside the window " + Describe(window));
         }
         else
         {
@@ -98,18 +94,17 @@ internal static class FixMaker
                     text = n.ToString("F" + d.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
                 }
             }
-            if (text is null) return None(window, motor, value, oldText, at.Unit, "the window " + Describe(window) + " is narrower than the value's last digit");
+            if (text is null) return None(setting, oldText, at.Unit, "the window " + Describe(window) + " is narrower than the value's last digit");
         }
-        return new SettingFix(motor.Document.RelativePath, motor.Tag, window.Setting, value.Span, oldText, text, at.Unit, value.Value, si,
-            SettingTerms.For(motor, window.Setting, value), window, null)
+        return new SettingFix(setting.MotorFile, setting.Motor, window.Setting, value.Span, oldText, text, at.Unit, value.Value, si, setting.Terms, window, null)
         {
             Preference = side == 0 ? null : prefer!.Value.Why,
         };
     }
 
-    private static SettingFix None(SettingWindow window, MotorProtection motor, MeasureValue? value, string oldText, string unit, string reason) =>
-        new(motor.Document.RelativePath, motor.Tag, window.Setting, value?.Span ?? motor.Document.SpanOf(window.Setting), oldText, null, unit,
-            value?.Value ?? window.Actual, double.NaN, SettingTerms.For(motor, window.Setting, value), window, reason);
+    private static SettingFix None(SettingFacts setting, string oldText, string unit, string reason) =>
+        new(setting.MotorFile, setting.Motor, setting.Setting, setting.Span, oldText, null, unit,
+            setting.Value?.Value ?? setting.Window.Actual, double.NaN, setting.Terms, setting.Window, reason);
 
     /// <summary>Which rules leave no value between them, and their bounds.</summary>
     public static string Conflict(SettingWindow window)
@@ -148,18 +143,4 @@ internal static class FixMaker
 
     // A step's multiple written without float noise: 0.30000000000000004 becomes 0.3.
     private static string Plain(double v) => Math.Round(v, 9).ToString("0.#########", CultureInfo.InvariantCulture);
-
-    /// <summary>The relay model's range of a setting converted to SI for this motor, when it has one.</summary>
-    private static (double Min, double Max, double Step)? RangeOf(MotorProtection motor, string setting)
-    {
-        const string prefix = SchemaPaths.Motor.ProtectionPrefix;
-        if (motor.RelayModel is not { } model || !setting.StartsWith(prefix, StringComparison.Ordinal)) return null;
-        if (model.RangeOf(setting[prefix.Length..]) is not { } range) return null;
-        var voltage = range.Min.Quantity.Unit.Dimension == Dimension.Voltage;
-        var connection = motor.Document.Text(SchemaPaths.Motor.GroundCtConnection);
-        var refs = SettingReferences.For(new SettingReferences.DocumentNumbers(motor.Document), connection, setting, voltage);
-        if (range.Min.Quantity.ToSi(refs) is not { } min || range.Max.Quantity.ToSi(refs) is not { } max) return null;
-        var step = range.Step?.Quantity.ToSi(refs) ?? 0;
-        return (min, max, step);
-    }
 }

@@ -1,6 +1,5 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Findings;
-using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Documents;
 
@@ -34,31 +33,27 @@ internal static class FixPlanner
 
     /// <summary>The fixes of a check, sorted by file and line; those without a value say why.</summary>
     /// <param name="fixable">The settings to fix (<see cref="Fixable"/>).</param>
-    /// <param name="windows">The windows derived from the same check's rule outcomes.</param>
-    /// <param name="motors">The bound motors of that check, by root-relative file.</param>
+    /// <param name="settings">The settings' windows, derived from the same check's rule outcomes, with what a fix needs of their motors.</param>
     /// <param name="readText">Reads a root-relative file's text as the check saw it.</param>
     /// <param name="preferences">The preferred side of the rules that state one (rule.yaml's `prefer`), by rule id; null for none.</param>
     public static ImmutableArray<SettingFix> Plan(
         IReadOnlySet<(string File, string KeyPath)> fixable,
-        IEnumerable<SettingWindow> windows,
-        IReadOnlyDictionary<string, MotorProtection> motors,
+        IEnumerable<SettingFacts> settings,
         Func<string, string?> readText,
         IReadOnlyDictionary<string, FixPreference>? preferences = null)
     {
         ArgumentNullException.ThrowIfNull(fixable);
-        ArgumentNullException.ThrowIfNull(windows);
-        ArgumentNullException.ThrowIfNull(motors);
+        ArgumentNullException.ThrowIfNull(settings);
         ArgumentNullException.ThrowIfNull(readText);
         var texts = new Dictionary<string, string?>(StringComparer.Ordinal);
         var fixes = ImmutableArray.CreateBuilder<SettingFix>();
-        foreach (var window in windows)
+        foreach (var setting in settings)
         {
             // Only settings (Fixable): a rule on the motor's data (a stall time, a CT rating) asks for the data to be checked, not rewritten.
-            if (!fixable.Contains((window.MotorFile, window.Setting))) continue;
-            if (!motors.TryGetValue(window.MotorFile, out var motor)) continue;
-            if (!texts.TryGetValue(window.MotorFile, out var text)) texts[window.MotorFile] = text = readText(window.MotorFile);
+            if (!fixable.Contains((setting.MotorFile, setting.Setting))) continue;
+            if (!texts.TryGetValue(setting.MotorFile, out var text)) texts[setting.MotorFile] = text = readText(setting.MotorFile);
             if (text is null) continue;
-            if (FixMaker.For(window, motor, text, Preferred(window, preferences)) is { } fix) fixes.Add(fix);
+            if (FixMaker.For(setting, text, Preferred(setting.Window, preferences)) is { } fix) fixes.Add(fix);
         }
         return [.. fixes.OrderBy(f => f.MotorFile, StringComparer.Ordinal).ThenBy(f => f.Span.StartLine).ThenBy(f => f.Span.StartColumn)];
     }

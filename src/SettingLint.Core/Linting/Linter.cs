@@ -56,43 +56,36 @@ public static class Linter
         if (collector is null || !result.Notifications.IsEmpty) return result;
         // Confirmed by a check of the changed files in memory, over the files as this run read them (the index with --staged).
         var set = FixFinder.Compute(ruleSet, view, session.Includes, result.Findings, request.SuggestRules, session.ElectricalCodeOf,
-            collector.Outcomes, collector.Motors, session.Scopes, result.LoadedFiles);
+            collector.Settings, session.Scopes, result.LoadedFiles);
         foreach (var o in request.Observers) o.OnFixes(set);
         return set.ApplyTo(result);
     }
 
     /// <summary>
-    /// Keeps, for a run's suggestions, the motors that failed a rule with all their outcomes: a suggestion is made only for a
-    /// finding, and its window needs every rule's outcome on that motor. A motor that passes every rule is let go with its
-    /// outcomes, so that a run keeps neither every motor's document nor every rule's outcome on every motor.
+    /// Keeps, for a run's suggestions, the windows and facts of the settings that failed a rule (<see cref="SettingFacts"/>):
+    /// a suggestion is made only for a finding, and its window needs every rule's outcome on that setting. They are taken
+    /// when a motor's outcomes are all in, and the motor and its outcomes are let go, so that a run keeps neither a
+    /// failing motor's document, bus and relay model nor its outcomes until the suggestions are made.
     /// </summary>
     /// <remarks>
     /// A rule set calls <see cref="OnMotor"/> and then each of the motor's outcomes on one thread, one motor after the
-    /// other: each thread's current motor is held until its next one (or the end) tells whether it is kept.
+    /// other: each thread's current motor is held until its next one (or the end) tells that its outcomes are all in.
+    /// Keeping the failing motors and their outcomes to the end instead cost some 45 KB per failing motor: peak RSS of a
+    /// check with suggestions fell from 89 to 77 MiB at 10,000 generated motors and from 383 to 296 MiB at 100,000 (2,000
+    /// failing; medians of 4-5 runs, native build, 2026-12-05; without suggestions 72-75 and 219-235 MiB).
     /// </remarks>
     private sealed class FixCollector : ICheckObserver, IDisposable
     {
-        private readonly ConcurrentQueue<RuleOutcome> _outcomes = new();
-        private readonly ConcurrentDictionary<string, MotorProtection> _motors = new(StringComparer.Ordinal);
+        private readonly ConcurrentDictionary<(string File, string Setting), SettingFacts> _settings = new();
         private readonly ThreadLocal<Current> _current = new(() => new Current(), trackAllValues: true);
 
-        /// <summary>Every outcome of the kept motors; read once the run is over.</summary>
-        public IEnumerable<RuleOutcome> Outcomes
+        /// <summary>The kept settings; read once the run is over.</summary>
+        public IEnumerable<SettingFacts> Settings
         {
             get
             {
-                FlushAll();
-                return _outcomes;
-            }
-        }
-
-        /// <summary>The kept motors by file; read once the run is over.</summary>
-        public IReadOnlyDictionary<string, MotorProtection> Motors
-        {
-            get
-            {
-                FlushAll();
-                return _motors;
+                foreach (var current in _current.Values) Flush(current);
+                return _settings.Values;
             }
         }
 
@@ -104,12 +97,15 @@ public static class Linter
         }
 
         // Only an outcome that bounds its own subject can make a window (SettingWindows.Derive reads no other). With the
-        // windows derived only for settings with a finding (FixFinder), peak RSS at 10,000 motors fell from 721 to 563 MiB
-        // and CPU from 8.1 x to 6.7 x the parse-only floor's (docs/performance.md, 2026-12-05, third measurement).
+        // windows derived only for settings with a finding (now: that a rule failed on, SettingFacts.Of), peak RSS at
+        // 10,000 motors fell from 721 to 563 MiB and CPU from 8.1 x to 6.7 x the parse-only floor's (docs/performance.md,
+        // 2026-12-05, third measurement).
         public void OnOutcome(RuleOutcome outcome)
         {
             var current = _current.Value!;
-            current.Failed |= !outcome.Passed;
+            // Every subject a rule failed on, bounding it or not: a finding's setting gets a fix from the window other rules
+            // leave it (a value off the relay's step, say) even when the failing rule's own check bounds nothing.
+            if (!outcome.Passed) current.Failed.Add(outcome.Subject);
             foreach (var b in outcome.Bounds)
             {
                 if (b.Path == outcome.Subject && (b.IsLower || b.IsUpper))
@@ -122,31 +118,26 @@ public static class Linter
 
         public void Dispose() => _current.Dispose();
 
-        private void FlushAll()
-        {
-            foreach (var current in _current.Values) Flush(current);
-        }
-
         private void Flush(Current current)
         {
-            if (current.Failed)
+            if (current.Failed.Count > 0 && current.Motor is { } motor)
             {
-                if (current.Motor is { } motor) _motors.TryAdd(motor.Document.RelativePath, motor);
-                foreach (var o in current.Outcomes) _outcomes.Enqueue(o);
+                // One entry per setting, as the plan makes one fix per setting.
+                foreach (var s in SettingFacts.Of(motor, current.Outcomes, current.Failed)) _settings.TryAdd((s.MotorFile, s.Setting), s);
             }
             current.Motor = null;
             current.Outcomes.Clear();
-            current.Failed = false;
+            current.Failed.Clear();
         }
 
-        /// <summary>A thread's motor under evaluation and its outcomes so far.</summary>
+        /// <summary>A thread's motor under evaluation, its outcomes that bound their subject so far, and the subjects of its failed outcomes.</summary>
         private sealed class Current
         {
             public MotorProtection? Motor { get; set; }
 
             public List<RuleOutcome> Outcomes { get; } = [];
 
-            public bool Failed { get; set; }
+            public HashSet<string> Failed { get; } = new(StringComparer.Ordinal);
         }
     }
 

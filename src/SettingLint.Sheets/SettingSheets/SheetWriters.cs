@@ -1,13 +1,10 @@
 using System.Net;
 using System.Text;
-using DocumentFormat.OpenXml;
-using DocumentFormat.OpenXml.Packaging;
-using DocumentFormat.OpenXml.Spreadsheet;
 using nietras.SeparatedValues;
 
 namespace SettingLint.Sheets.SettingSheets;
 
-/// <summary>Writes tables of text and numbers as CSV (Sep), XLSX (Open XML SDK) or an HTML page.</summary>
+/// <summary>Writes tables of text and numbers as CSV (Sep), XLSX (<see cref="XlsxWriter"/>) or an HTML page.</summary>
 public static class SheetWriters
 {
     /// <summary>The formats by file extension.</summary>
@@ -49,31 +46,13 @@ public static class SheetWriters
 
     private static void Xlsx(string path, string? caution, IReadOnlyList<string> header, IEnumerable<IReadOnlyList<SheetColumns.Cell>> rows, string title)
     {
-        using var doc = SpreadsheetDocument.Create(path, SpreadsheetDocumentType.Workbook);
-        var book = doc.AddWorkbookPart();
-        book.Workbook = new Workbook();
-        var part = book.AddNewPart<WorksheetPart>();
-        var data = new SheetData();
-        uint r = 0;
-        void Row(IEnumerable<SheetColumns.Cell> cells)
+        IEnumerable<IReadOnlyList<SheetColumns.Cell>> Lines()
         {
-            var row = new Row { RowIndex = ++r };
-            var c = 0;
-            foreach (var cell in cells)
-            {
-                c++;
-                var reference = Tables.SheetCell.ColumnLetters(c) + r.ToString(System.Globalization.CultureInfo.InvariantCulture);
-                if (cell.Number is { } n) row.Append(new Cell { CellReference = reference, DataType = CellValues.Number, CellValue = new CellValue(n) });
-                else if (cell.Text.Length > 0) row.Append(new Cell { CellReference = reference, DataType = CellValues.InlineString, InlineString = new InlineString(new Text(cell.Text) { Space = SpaceProcessingModeValues.Preserve }) });
-            }
-            data.Append(row);
+            if (caution is not null) yield return [new SheetColumns.Cell(caution)];
+            yield return [.. header.Select(h => new SheetColumns.Cell(h))];
+            foreach (var cells in rows) yield return cells;
         }
-        if (caution is not null) Row([new SheetColumns.Cell(caution)]);
-        Row(header.Select(h => new SheetColumns.Cell(h)));
-        foreach (var cells in rows) Row(cells);
-        part.Worksheet = new Worksheet(data);
-        var sheets = book.Workbook.AppendChild(new DocumentFormat.OpenXml.Spreadsheet.Sheets());
-        sheets.Append(new Sheet { Id = book.GetIdOfPart(part), SheetId = 1, Name = title.Length > 31 ? title[..31] : title });
+        XlsxWriter.Write(path, Lines(), title);
     }
 
     private static string Html(string? caution, IReadOnlyList<string> header, IEnumerable<IReadOnlyList<SheetColumns.Cell>> rows, string title)
