@@ -97,6 +97,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             RelativePath = s.RelativePath;
             Motor = s.Motor?.Tag;
+            if (s.Motor?.Bus is { } bus && bus.Document.Path != s.Path) Bus = bus.Document.RelativePath;
             if (s.Document?["tag"] is TextValue tag) (_tag, _tagSpan) = (tag.Value, tag.Span);
             var findings = s.LoadFindings.Count + s.Findings.Findings.Count;
             if (findings + s.Findings.NotRun.Count + s.Acceptances.Length == 0) return;
@@ -110,6 +111,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
         /// <summary>The motor's name (its tag, else its file name) when the file is a motor.</summary>
         public string? Motor { get; }
+
+        /// <summary>The root-relative bus file a motor is on; null for an inline bus or none.</summary>
+        public string? Bus { get; }
 
         // Made when asked: a FileTag held here made each value 64 bytes instead of 48 (the path again, a nullable's flag).
         public FileTag? Tag => _tag is null ? null : new FileTag(RelativePath, _tag, _tagSpan);
@@ -293,7 +297,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             .Concat(kept.SelectMany(Own))
             .OrderBy(f => f, Finding.Order)
             .ToImmutableArray();
-        var motorFiles = kept.Where(s => s.Motor is not null).ToArray();
+        var motorFiles = kept.Where(s => s.Motor is not null).OrderBy(s => s.RelativePath, StringComparer.Ordinal).ToArray();
         return new CheckResult(
             root,
             findings,
@@ -305,7 +309,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         {
             CheckedFiles = [.. kept.Select(s => s.RelativePath).Order(StringComparer.Ordinal)],
             NotRun = [.. kept.SelectMany(s => s.NotRun).Order(CheckNotRun.Order)],
-            MotorFiles = [.. motorFiles.Select(s => (s.RelativePath, s.Motor!)).OrderBy(m => m.RelativePath, StringComparer.Ordinal)],
+            MotorFiles = [.. motorFiles.Select(s => (s.RelativePath, s.Motor!))],
+            MotorBuses = [.. motorFiles.Select(s => s.Bus)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
             LoadedFiles = planned,
         };

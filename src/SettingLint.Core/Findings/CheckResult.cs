@@ -53,6 +53,12 @@ public sealed record CheckResult(
     /// <summary>The motors checked, each as its root-relative file and its tag (the file again when it has none), sorted by file.</summary>
     public ImmutableArray<(string File, string Tag)> MotorFiles { get; init; } = [];
 
+    /// <summary>
+    /// The bus file of each motor of <see cref="MotorFiles"/> (the same order), root-relative; null for a motor with an
+    /// inline bus or none.
+    /// </summary>
+    public ImmutableArray<string?> MotorBuses { get; init; } = [];
+
     /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
     public ChangeScope? Scope { get; init; }
 

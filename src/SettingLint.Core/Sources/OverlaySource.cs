@@ -68,7 +68,9 @@ public sealed class OverlaySource : IFileSource
         for (var i = 0; i < paths.Count; i++)
         {
             var rel = RepositoryRoot.Relative(Root, paths[i]);
-            IEnumerable<string> under = Contents.ContainsKey(rel) ? [rel] : SourcePaths.YamlUnder(Root, paths[i], Contents.Keys);
+            // A path the source below found as a file has nothing under it. Without this test, a run over 40,000 named files
+            // (the suggestions' confirming run at 100,000 motors) looked through the 2,000 buffers for each: 5-10 s of CPU.
+            IEnumerable<string> under = Contents.ContainsKey(rel) ? [rel] : files.ContainsKey(rel) ? [] : SourcePaths.YamlUnder(Root, paths[i], Contents.Keys);
             foreach (var f in under)
             {
                 found.Add(shown[i]);
