@@ -17,25 +17,14 @@ namespace SettingLint.Core.Tests;
 public sealed class SuggestionMemoryTests
 {
     // SL201 and SL202 both bound the 50P pickup, one from below and one from above.
-    private static readonly Lazy<RuleSet> Pickup = new(() =>
-    {
-        var loaded = new RuleLoader(SchemaSet.Shared).Load(RuleLoader.BuiltIn());
-        Assert.Empty(loaded.Problems);
-        return new RuleSet([.. loaded.Rules.Where(r => r.Id is "SL201" or "SL202")]);
-    });
+    private static readonly Lazy<RuleSet> Pickup = new(() => BuiltInRules.Load(r => r.Id is "SL201" or "SL202"));
 
     // The highest steady voltage raises the start current (SL201); the weakest source bounds the pickup from above (SL202).
     private static string Bus(string tag) => Samples.Replace(Samples.Bus, "tag: BUS-1", "tag: " + tag) + "max_voltage: 4370 V\nfault_current_min: 3 kA\n";
 
     // A relay whose 50P steps (2.1 xCT + k x 0.2 xCT, 75:5 CT) do not fall on the value the written form alone would give.
-    private const string Relay = """
-        kind: relay-model
-        format: 1
-        tag: RELAY-B
-        ranges:
-          short_circuit.pickup: { min: 2.1 xCT, max: 20 xCT, step: 0.2 xCT }
-
-        """;
+    private static readonly string Relay = Samples.Replace(Samples.Replace(Samples.RelayModel, "tag: RELAY-A", "tag: RELAY-B"),
+        "{ min: 2 xCT, max: 20 xCT, step: 0.1 xCT }", "{ min: 2.1 xCT, max: 20 xCT, step: 0.2 xCT }");
 
     private static string Motor(string tag, string bus) => Samples.Replace(
         Samples.MotorWith("pickup: 7.2 A sec", "pickup: 150 A sec"),
