@@ -82,8 +82,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>
-    /// What a run keeps of a reported file once its group is done, until the end (the output is sorted, and SARIF and JSON
-    /// are written whole): its path, its tag (tags are compared across the repository) and, of the few files that have
+    /// What a run keeps of a reported file once its group is done, until the end (the output is sorted): its path, its
+    /// motor's name and bus (the suggestions' confirming run reads the fixed motors' groups), its tag (tags are compared
+    /// across the repository) and, of the few files that have
     /// them, its findings, checks not run and acceptance comments. A value in one list, not an object per file: at
     /// 100,000 motors a run kept some 120 bytes for each in objects all over the heap (Kept and its tag's TextValue).
     /// </summary>
@@ -115,7 +116,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         /// <summary>The root-relative bus file a motor is on; null for an inline bus or none.</summary>
         public string? Bus { get; }
 
-        // Made when asked: a FileTag held here made each value 64 bytes instead of 48 (the path again, a nullable's flag).
+        // Made when asked: a FileTag held here would add the path again and a nullable's flag to every value (64 bytes
+        // instead of 48 when measured, before the bus was kept too).
         public FileTag? Tag => _tag is null ? null : new FileTag(RelativePath, _tag, _tagSpan);
 
         public IReadOnlyList<Finding> Findings => _notes?.Findings ?? [];
