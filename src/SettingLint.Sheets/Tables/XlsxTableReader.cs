@@ -51,19 +51,19 @@ public static class XlsxTableReader
         // The package's relationships name the workbook part (Part 2, 9.3); xl/workbook.xml is where every writer puts it.
         var workbookPart = Relationships(zip, "").FirstOrDefault(r => r.Type.EndsWith(RelationshipsTypePrefix + "officeDocument", StringComparison.Ordinal)).Target
             ?? "xl/workbook.xml";
-        if (zip.GetEntry(workbookPart) is null) throw new SheetReadException($"{path} has no workbook part.");
+        if (Entry(zip, workbookPart) is null) throw new SheetReadException($"{path} has no workbook part.");
         var sheets = Sheets(zip, workbookPart);
         var at = sheetName is not null ? sheets.FindIndex(s => s.Name == sheetName) : sheets.Count > 0 ? 0 : -1;
         var parts = Relationships(zip, workbookPart);
         var sheetPart = at < 0 ? null : parts.FirstOrDefault(r => r.Id == sheets[at].RelationshipId).Target;
-        if (sheetPart is null || zip.GetEntry(sheetPart) is not { } sheetEntry)
+        if (sheetPart is null || Entry(zip, sheetPart) is not { } sheetEntry)
         {
             throw new SheetReadException(sheetName is null
                 ? $"{path} has no sheet."
                 : $"{path} has no sheet named '{sheetName}'; its sheets are: {string.Join(", ", sheets.Select(s => "'" + s.Name + "'"))}.");
         }
         var sharedPart = parts.FirstOrDefault(r => r.Type.EndsWith(RelationshipsTypePrefix + "sharedStrings", StringComparison.Ordinal)).Target;
-        var shared = sharedPart is not null && zip.GetEntry(sharedPart) is { } sharedEntry ? SharedStrings(sharedEntry) : [];
+        var shared = sharedPart is not null && Entry(zip, sharedPart) is { } sharedEntry ? SharedStrings(sharedEntry) : [];
         return new SheetTable(path, Cells(sheetEntry, shared));
     }
 
@@ -73,7 +73,7 @@ public static class XlsxTableReader
         var folder = part.Contains('/', StringComparison.Ordinal) ? part[..(part.LastIndexOf('/') + 1)] : "";
         var name = folder + "_rels/" + part[folder.Length..] + ".rels";
         var found = new List<(string, string, string?)>();
-        if (zip.GetEntry(name) is not { } entry) return found;
+        if (Entry(zip, name) is not { } entry) return found;
         using var xml = Open(entry);
         while (xml.Read())
         {
@@ -102,7 +102,7 @@ public static class XlsxTableReader
     private static List<(string Name, string RelationshipId)> Sheets(ZipArchive zip, string workbookPart)
     {
         var sheets = new List<(string, string)>();
-        using var xml = Open(zip.GetEntry(workbookPart)!);
+        using var xml = Open(Entry(zip, workbookPart)!);
         while (xml.Read())
         {
             if (xml.NodeType != XmlNodeType.Element || xml.LocalName != "sheet") continue;
@@ -245,6 +245,13 @@ public static class XlsxTableReader
         }
         return sb.ToString();
     }
+
+    /// <summary>
+    /// A part by name. Part names compare without regard to ASCII case (ECMA-376 Part 2, 9.1.1.1; from memory), and a
+    /// relationship may name "xl/Workbook.xml" for the entry "xl/workbook.xml".
+    /// </summary>
+    private static ZipArchiveEntry? Entry(ZipArchive zip, string name) =>
+        zip.GetEntry(name) ?? zip.Entries.FirstOrDefault(e => string.Equals(e.FullName, name, StringComparison.OrdinalIgnoreCase));
 
     // No DTD (a workbook has none, and one could expand without bound), no comments.
     private static XmlReader Open(ZipArchiveEntry entry) =>

@@ -112,7 +112,8 @@ public sealed class XlsxTests
             // 18.4.8 si: plain text; rich text runs (18.4.4 r) whose texts join; a phonetic run (18.4.6 rPh) that is not shown.
             ["book/strings.xml"] = $"<sst xmlns=\"{main}\"><si><t>tag</t></si><si><r><rPr><b/></rPr><t>P-</t></r><r><t xml:space=\"preserve\">101 </t></r></si>"
                 + "<si><t>Pump</t><rPh sb=\"0\" eb=\"1\"><t>PHONETIC</t></rPh></si><si/></sst>",
-            ["book/sheets/one.xml"] = $"<worksheet xmlns=\"{main}\"><sheetData><row r=\"1\"><c r=\"A1\"><v>1</v></c></row></sheetData></worksheet>",
+            // A relationship may name a part in another case than its entry (part names compare without regard to case).
+            ["book/sheets/One.xml"] = $"<worksheet xmlns=\"{main}\"><sheetData><row r=\"1\"><c r=\"A1\"><v>1</v></c></row></sheetData></worksheet>",
             // 18.3.1.73 row and 18.3.1.4 c: references may be left out; t is s, inlineStr, b, str (a formula's text), e or n.
             ["book/sheets/two.xml"] = $"<worksheet xmlns=\"{main}\"><sheetData>"
                 + "<row r=\"2\"><c t=\"s\"><v>0</v></c><c t=\"s\"><v>1</v></c><c t=\"s\"><v>2</v></c><c t=\"s\"><v>3</v></c></row>"
