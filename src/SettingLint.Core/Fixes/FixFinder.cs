@@ -122,12 +122,13 @@ internal static class FixFinder
     /// <param name="settings">The windows and facts the check took of the settings that a rule failed on (<see cref="SettingFacts.Of"/>).</param>
     /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is confirmed under its folder's rules.</param>
     /// <param name="within">
-    /// The files the check read when it read fewer than all (<see cref="CheckResult.LoadedFiles"/>): the confirming runs
-    /// read only these, not every file of the repository again; null reads the repository.
+    /// Given fixed files, the files a confirming run of them reads: those the check read when it read fewer than all
+    /// (<see cref="CheckResult.LoadedFiles"/>), or their groups (<see cref="Reach"/>); null, or a null answer, reads the
+    /// repository.
     /// </param>
     public static SuggestionSet Compute(RuleSet rules, IFileSource source, Func<string, bool>? include, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules,
         Func<string, string?>? electricalCode, IEnumerable<SettingFacts> settings, Configuration.ConfigScopes? scopes = null,
-        IReadOnlyList<string>? within = null)
+        Func<IReadOnlyCollection<string>, IReadOnlyList<string>?>? within = null)
     {
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(source);
@@ -159,7 +160,15 @@ internal static class FixFinder
             var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
                 .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
             var merged = new OverlaySource(source, contents);
-            var after = Run(confirming, root, include, merged, [.. contents.Keys], electricalCode, within).Findings;
+            // A few hundred fixed files at a time: a run holds the groups of its files, and all of them at once were most of
+            // a default check's peak at 100,000 generated motors (2,000 fixes; docs/performance.md). Each file's findings
+            // come from the run it is changed in (it may be another piece's dependant); the overlay holds every fix.
+            var after = new List<Finding>();
+            foreach (var piece in contents.Keys.Order(StringComparer.Ordinal).Chunk(ConfirmPiece))
+            {
+                var files = ImmutableSortedSet.Create(StringComparer.Ordinal, piece);
+                after.AddRange(Run(confirming, root, include, merged, files, electricalCode, within?.Invoke(files)).Findings.Where(f => files.Contains(f.File)));
+            }
             // By file: a search of every finding for every fix grows with the square of the motors (10,000 by 10,000).
             var afterByFile = after.Where(f => f.Suppression is null).ToLookup(f => f.File, StringComparer.Ordinal);
             var bad = new List<(SettingFix, string)>();
@@ -210,6 +219,8 @@ internal static class FixFinder
         }
         return reach;
     }
+
+    private const int ConfirmPiece = 250;
 
     // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
     private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode, IReadOnlyList<string>? within)
