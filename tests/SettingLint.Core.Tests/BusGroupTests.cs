@@ -11,6 +11,7 @@ using SettingLint.Core.Model;
 using SettingLint.Core.Rules;
 using SettingLint.Core.Sources;
 using SettingLint.Core.Validation;
+using SettingLint.Tests.Shared;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Core.Tests;
@@ -22,14 +23,7 @@ namespace SettingLint.Core.Tests;
 /// </summary>
 public sealed class BusGroupTests
 {
-    private static readonly string RepoRoot = FindRoot();
-
-    private static string FindRoot()
-    {
-        var dir = AppContext.BaseDirectory;
-        while (!File.Exists(Path.Combine(dir, "SettingLint.sln"))) dir = Path.GetDirectoryName(dir)!;
-        return dir;
-    }
+    private static readonly string RepoRoot = RepositoryPaths.Root();
 
     private static string Rule(string id, string summary, string severity, string tag, string body) => $"""
         id: {id}

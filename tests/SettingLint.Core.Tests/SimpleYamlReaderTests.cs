@@ -13,16 +13,7 @@ namespace SettingLint.Core.Tests;
 /// </summary>
 public sealed class SimpleYamlReaderTests
 {
-    private static readonly string RepoRoot = FindRoot();
-
-    private static string FindRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("repository root not found");
-    }
+    private static readonly string RepoRoot = RepositoryPaths.Root();
 
     private static LoadedFile Load(byte[] bytes, bool simple, LoadLimits? limits = null) =>
         YamlLoader.Load(bytes, "/repo/x.yaml", "x.yaml", limits ?? LoadLimits.Default, simple);

@@ -1,4 +1,5 @@
 using SettingLint.Core.Rules;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests.Rules;
 
@@ -10,18 +11,9 @@ namespace SettingLint.Core.Tests.Rules;
 /// </summary>
 public sealed class FunctionReferenceTableTests
 {
-    private static string RepoRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("repository root not found");
-    }
-
     private static string DocsTable()
     {
-        var doc = File.ReadAllText(Path.Combine(RepoRoot(), "docs", "rule-language.md")).ReplaceLineEndings("\n");
+        var doc = File.ReadAllText(Path.Combine(RepositoryPaths.Root(), "docs", "rule-language.md")).ReplaceLineEndings("\n");
         var start = doc.IndexOf("| function | result | meaning | defined for |", StringComparison.Ordinal);
         Assert.True(start >= 0, "docs/rule-language.md has no function table; print it with `settinglint rules functions`.");
         var end = doc.IndexOf("\n\n", start, StringComparison.Ordinal);

@@ -8,14 +8,7 @@ namespace SettingLint.Reporting.Tests.Html;
 /// <summary>Where this source tree is, a throw-away folder, and the demo report rendered once.</summary>
 internal static class HtmlTestSupport
 {
-    public static string SourceRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("SettingLint.sln not found above the test assembly.");
-    }
+    public static string SourceRoot() => SettingLint.Tests.Shared.RepositoryPaths.Root();
 
     public static string Examples => Path.Combine(SourceRoot(), "examples");
 

@@ -1,7 +1,7 @@
-namespace SettingLint.Cli.Tests;
+namespace SettingLint.Tests.Shared;
 
 /// <summary>Where this source tree is, found from the test assembly upward.</summary>
-internal static class RepositoryPaths
+public static class RepositoryPaths
 {
     public static string Root()
     {
