@@ -65,6 +65,10 @@ public static class RepositoryRoot
         return true;
     }
 
+    /// <summary>The absolute path of a root-relative one ("" is the root).</summary>
+    public static string Full(string root, string relativePath) =>
+        relativePath.Length == 0 ? root : Path.Combine(root, relativePath.Replace('/', Path.DirectorySeparatorChar));
+
     /// <summary>A path relative to the root with forward slashes.</summary>
     public static string Relative(string root, string fullPath) =>
         Path.GetRelativePath(root, fullPath).Replace('\\', '/');

@@ -26,7 +26,7 @@ internal sealed record BusGroups(Dictionary<string, BusGroup> Buses, List<Discov
 {
     /// <summary>A motor of a group as discovered, its full path made again from the root.</summary>
     public DiscoveredFile Motor(string relativePath) =>
-        new(Elsewhere.TryGetValue(relativePath, out var full) ? full : SourcePaths.Full(Root, relativePath), relativePath);
+        Elsewhere.TryGetValue(relativePath, out var full) ? new(full, relativePath) : DiscoveredFile.Under(Root, relativePath);
 
     /// <summary>Divides the files by what the quick read found.</summary>
     /// <param name="root">The repository root (absolute).</param>

@@ -104,7 +104,7 @@ public sealed class GitRevisionSource : IFileSource
             if (Probe(full) == EntryKind.Missing) missing.Add(shown[i]);
             foreach (var f in files)
             {
-                if (included is null || included(f)) found.TryAdd(f, new DiscoveredFile(SourcePaths.Full(Root, f), f));
+                if (included is null || included(f)) found.TryAdd(f, DiscoveredFile.Under(Root, f));
             }
         }
         return new DiscoveryResult([.. found.Values], [], missing) { Outside = outside };

@@ -74,7 +74,7 @@ public sealed class OverlaySource : IFileSource
             foreach (var f in under)
             {
                 found.Add(shown[i]);
-                if (!files.ContainsKey(f) && (included?.Invoke(f) ?? true)) files[f] = new DiscoveredFile(SourcePaths.Full(Root, f), f);
+                if (!files.ContainsKey(f) && (included?.Invoke(f) ?? true)) files[f] = DiscoveredFile.Under(Root, f);
             }
         }
         return below with

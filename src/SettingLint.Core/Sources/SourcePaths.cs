@@ -6,8 +6,7 @@ namespace SettingLint.Core.Sources;
 public static class SourcePaths
 {
     /// <summary>The absolute path of a root-relative one ("" is the root).</summary>
-    public static string Full(string root, string relativePath) =>
-        relativePath.Length == 0 ? root : Path.Combine(root, relativePath.Replace('/', Path.DirectorySeparatorChar));
+    public static string Full(string root, string relativePath) => RepositoryRoot.Full(root, relativePath);
 
     /// <summary>
     /// A path as the user gave it made absolute against a working folder that the caller names; the process's current
