@@ -1,12 +1,14 @@
+using System.Collections.Immutable;
 using SettingLint.Core.Fixes;
 using SettingLint.Core.Linting;
+using SettingLint.Core.Sources;
 using SettingLint.Tests.Support;
 
 namespace SettingLint.Core.Tests;
 
 /// <summary>
 /// The files the confirming run of the suggestions reads (<see cref="FixFinder.Reach"/>): the fixed motors, the other motors
-/// on their buses and the files that are not motors, as the check divided them; never the motors of other buses.
+/// on their buses and those buses' files, as the check divided them; never the motors or files of other buses.
 /// </summary>
 public sealed class FixReachTests
 {
@@ -14,7 +16,7 @@ public sealed class FixReachTests
         "tag: M-1\ntitle: Test pump\nbus: ../buses/bus-1.yaml\n", $"tag: {tag}\ntitle: Test pump\nbus: {bus}\n");
 
     [Fact]
-    public void A_fix_reads_its_motor_the_motors_on_its_bus_and_the_files_that_are_not_motors()
+    public void A_fix_reads_its_motor_and_the_motors_and_file_of_its_bus()
     {
         using var repo = new TempRepo();
         repo.Write(".settinglint.yaml", "packs: []\n");
@@ -30,9 +32,41 @@ public sealed class FixReachTests
 
         Assert.Equal(["motors/a/m-1.yaml", "motors/m-2.yaml", "motors/m-3.yaml", "motors/m-4.yaml"], result.MotorFiles.Select(m => m.File));
         Assert.Equal("buses/bus-1.yaml buses/bus-2.yaml buses/bus-1.yaml (inline)", string.Join(" ", result.MotorBuses.Select(b => b ?? "(inline)")));
-        Assert.Equal(["buses/bus-1.yaml", "buses/bus-2.yaml", "motors/a/m-1.yaml", "motors/m-3.yaml"], FixFinder.Reach(result, ["motors/a/m-1.yaml"]));
-        Assert.Equal(["buses/bus-1.yaml", "buses/bus-2.yaml", "motors/m-2.yaml"], FixFinder.Reach(result, ["motors/m-2.yaml"]));
-        Assert.Equal(["buses/bus-1.yaml", "buses/bus-2.yaml", "motors/m-4.yaml"], FixFinder.Reach(result, ["motors/m-4.yaml"]));
-        Assert.Equal(["buses/bus-1.yaml", "buses/bus-2.yaml"], FixFinder.Reach(result, []));
+        Assert.Equal(["buses/bus-1.yaml", "motors/a/m-1.yaml", "motors/m-3.yaml"], FixFinder.Reach(result, ["motors/a/m-1.yaml"]));
+        Assert.Equal(["buses/bus-2.yaml", "motors/m-2.yaml"], FixFinder.Reach(result, ["motors/m-2.yaml"]));
+        Assert.Equal(["motors/m-4.yaml"], FixFinder.Reach(result, ["motors/m-4.yaml"]));
+        Assert.Equal(["buses/bus-1.yaml", "buses/bus-2.yaml", "motors/a/m-1.yaml", "motors/m-2.yaml", "motors/m-3.yaml"], FixFinder.Reach(result, ["motors/m-2.yaml", "motors/m-3.yaml"]));
+        Assert.Empty(FixFinder.Reach(result, [])!);
+
+        // The fixed files are confirmed a bus at a time: a piece's overlay holds its own fixes, and no other piece reads a
+        // motor of its buses. Buses in path order (the inline one is its motor's own), whole buses up to the size.
+        string[] fixing = ["motors/m-4.yaml", "motors/m-3.yaml", "motors/m-2.yaml", "motors/a/m-1.yaml"];
+        Assert.Equal("motors/a/m-1.yaml motors/m-3.yaml motors/m-2.yaml motors/m-4.yaml", Shown(FixFinder.Pieces(fixing, result)));
+        Assert.Equal("motors/a/m-1.yaml motors/m-3.yaml | motors/m-2.yaml motors/m-4.yaml", Shown(FixFinder.Pieces(fixing, result, 2)));
+        Assert.Equal("motors/a/m-1.yaml motors/m-3.yaml | motors/m-2.yaml | motors/m-4.yaml", Shown(FixFinder.Pieces(fixing, result, 1)));
+        Assert.Equal("motors/m-2.yaml motors/m-3.yaml", Shown(FixFinder.Pieces(["motors/m-3.yaml", "motors/m-2.yaml"], null, 1)));
+    }
+
+    private static string Shown(List<List<string>> pieces) => string.Join(" | ", pieces.Select(p => string.Join(" ", p)));
+
+    [Fact]
+    public void A_confirming_run_reads_the_relay_model_its_motor_names_though_the_reach_leaves_it_out()
+    {
+        using var repo = new TempRepo();
+        repo.Write("buses/bus-1.yaml", Samples.Bus);
+        repo.Write("models/relay-a.yaml", Samples.RelayModel);
+        // 12.25 A sec is 2.45 x the 5 A CT secondary, between the sample relay's 50P steps of 0.1 xCT from 2 xCT: only a run
+        // that reads the relay model finds SL108 (rule SL108's own fixtures hold the same arithmetic).
+        repo.Write("motors/m-1.yaml", Samples.Replace(Samples.MotorWith("pickup: 7.2 A sec", "pickup: 12.25 A sec"),
+            "bus: ../buses/bus-1.yaml\n", "bus: ../buses/bus-1.yaml\nrelay_model: ../models/relay-a.yaml\n"));
+        var result = Linter.Check(new CheckRequest(repo.Root, []) { Parallel = false, Suggest = false });
+        var expected = result.Findings.Where(f => f.File == "motors/m-1.yaml").Select(f => f.RuleId + " " + f.KeyPath).ToArray();
+        Assert.Contains("SL108 protection.short_circuit.pickup", expected);
+
+        var within = FixFinder.Reach(result, ["motors/m-1.yaml"]);
+        Assert.Equal(["buses/bus-1.yaml", "motors/m-1.yaml"], within);
+        var confirmed = FixFinder.Run(BuiltInRules.Load(), repo.Root, null, new DiskSource(repo.Root),
+            ImmutableSortedSet.Create(StringComparer.Ordinal, "motors/m-1.yaml"), null, within);
+        Assert.Equal(expected, confirmed.Findings.Where(f => f.File == "motors/m-1.yaml").Select(f => f.RuleId + " " + f.KeyPath));
     }
 }

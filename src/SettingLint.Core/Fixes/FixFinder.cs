@@ -77,23 +77,32 @@ public sealed record SuggestionSet(ImmutableArray<SettingFix> Applied, Immutable
 }
 
 /// <summary>A file's text and whether it began with a byte order mark, so that it can be written back byte for byte apart from the edits.</summary>
-public sealed record SourceText(string Text, bool Bom)
+public sealed class SourceText
 {
     private static readonly UTF8Encoding Utf8 = new(false, true);
 
-    /// <summary>Decodes a file's bytes; null when they are not UTF-8.</summary>
+    // The bytes as read, decoded when asked: a suggestion set holds the text of every file it fixes, and UTF-16 strings of
+    // them were twice the size (2,000 files at 100,000 generated motors, docs/performance.md).
+    private readonly byte[] _bytes;
+
+    private SourceText(byte[] bytes, bool bom)
+    {
+        _bytes = bytes;
+        Bom = bom;
+    }
+
+    /// <summary>The text, without the byte order mark.</summary>
+    public string Text => Utf8.GetString(_bytes, Bom ? 3 : 0, _bytes.Length - (Bom ? 3 : 0));
+
+    /// <summary>Whether the file began with a byte order mark.</summary>
+    public bool Bom { get; }
+
+    /// <summary>Decodes a file's bytes (they are kept, not copied: the caller does not change them); null when they are not UTF-8.</summary>
     public static SourceText? Decode(byte[]? bytes)
     {
         if (bytes is null) return null;
         var bom = bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF;
-        try
-        {
-            return new SourceText(Utf8.GetString(bytes, bom ? 3 : 0, bytes.Length - (bom ? 3 : 0)), bom);
-        }
-        catch (DecoderFallbackException)
-        {
-            return null;
-        }
+        return System.Text.Unicode.Utf8.IsValid(bytes.AsSpan(bom ? 3 : 0)) ? new SourceText(bytes, bom) : null;
     }
 
     /// <summary>Another text of the same file, encoded as this one was.</summary>
@@ -121,14 +130,13 @@ internal static class FixFinder
     /// <param name="electricalCode">The electrical code the configuration declares per file, as the check had it.</param>
     /// <param name="settings">The windows and facts the check took of the settings that a rule failed on (<see cref="SettingFacts.Of"/>).</param>
     /// <param name="scopes">The folders' configurations, as the check had them: each motor's fix is confirmed under its folder's rules.</param>
-    /// <param name="within">
-    /// Given fixed files, the files a confirming run of them reads: those the check read when it read fewer than all
-    /// (<see cref="CheckResult.LoadedFiles"/>), or their groups (<see cref="Reach"/>); null, or a null answer, reads the
-    /// repository.
+    /// <param name="check">
+    /// The check whose findings these are: its division of the motors by bus tells what a confirming run of some fixed
+    /// files reads (the files it read when it read fewer than all, <see cref="CheckResult.LoadedFiles"/>, else
+    /// <see cref="Reach"/>) and which files are confirmed together. Null confirms every fix in one run over the repository.
     /// </param>
     public static SuggestionSet Compute(RuleSet rules, IFileSource source, Func<string, bool>? include, ImmutableArray<Finding> findings, IReadOnlySet<string> onlyRules,
-        Func<string, string?>? electricalCode, IEnumerable<SettingFacts> settings, Configuration.ConfigScopes? scopes = null,
-        Func<IReadOnlyCollection<string>, IReadOnlyList<string>?>? within = null)
+        Func<string, string?>? electricalCode, IEnumerable<SettingFacts> settings, Configuration.ConfigScopes? scopes = null, CheckResult? check = null)
     {
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(source);
@@ -157,17 +165,18 @@ internal static class FixFinder
         var known = findings.Select(f => (f.File, f.RuleId, f.KeyPath)).ToHashSet();
         for (var round = 0; round < 3 && fixes.Count > 0; round++)
         {
-            var contents = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal)
-                .ToImmutableDictionary(g => g.Key, g => texts[g.Key].Encode(FixPlanner.Apply(texts[g.Key].Text, g)), StringComparer.Ordinal);
-            var merged = new OverlaySource(source, contents);
-            // A few hundred fixed files at a time: a run holds the groups of its files, and all of them at once were most of
-            // a default check's peak at 100,000 generated motors (2,000 fixes; docs/performance.md). Each file's findings
-            // come from the run it is changed in (it may be another piece's dependant); the overlay holds every fix.
+            var byFile = fixes.GroupBy(f => f.MotorFile, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.ToList(), StringComparer.Ordinal);
+            // Whole buses at a time, a few hundred fixed files each: a run holds the groups of its files, and all of them at
+            // once were most of a default check's peak at 100,000 generated motors (2,000 fixes; docs/performance.md). A fix
+            // changes only its file's findings and those of the other motors on its bus (the rules over a bus compare them),
+            // so a piece's overlay holds its own fixes only, and the new texts of the others are not made until their turn.
             var after = new List<Finding>();
-            foreach (var piece in contents.Keys.Order(StringComparer.Ordinal).Chunk(ConfirmPiece))
+            foreach (var piece in Pieces(byFile.Keys, check))
             {
-                var files = ImmutableSortedSet.Create(StringComparer.Ordinal, piece);
-                after.AddRange(Run(confirming, root, include, merged, files, electricalCode, within?.Invoke(files)).Findings.Where(f => files.Contains(f.File)));
+                var contents = piece.ToImmutableDictionary(f => f, f => texts[f].Encode(FixPlanner.Apply(texts[f].Text, byFile[f])), StringComparer.Ordinal);
+                var files = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, piece);
+                var within = check is null ? null : check.LoadedFiles ?? Reach(check, files);
+                after.AddRange(Run(confirming, root, include, new OverlaySource(source, contents), files, electricalCode, within).Findings.Where(f => files.Contains(f.File)));
             }
             // By file: a search of every finding for every fix grows with the square of the motors (10,000 by 10,000).
             var afterByFile = after.Where(f => f.Suppression is null).ToLookup(f => f.File, StringComparer.Ordinal);
@@ -190,11 +199,13 @@ internal static class FixFinder
 
     /// <summary>
     /// What a confirming run must read to check fixes in these motor files, from the check that found them: the files, the
-    /// other motors on their buses (the rules over a bus compare them), and every setting file that is not a motor (buses
-    /// and relay models: few, and named by the motors). A fix changes a setting's value, never a tag or a bus, so the
-    /// check's own division of the motors by bus holds for the fixed files. Without it the confirming run discovered and
-    /// quick-read the whole repository again while the check's result was alive: peak RSS of a default check at 100,000
-    /// generated motors (2,000 with a fix) was 142 MiB, against 77-79 MiB with no suggestions (docs/performance.md).
+    /// other motors on their buses (the rules over a bus compare them) and those buses' files. A relay model is read when a
+    /// motor names it, as any reference is. A fix changes a setting's value, never a tag or a bus, so the check's own
+    /// division of the motors by bus holds for the fixed files. Without it the confirming run discovered and quick-read the
+    /// whole repository again while the check's result was alive: peak RSS of a default check at 100,000 generated motors
+    /// (2,000 with a fix) was 142 MiB, against 77-79 MiB with no suggestions. It read every bus and relay model as well
+    /// until 2026-12-05 (5,002 files in each piece of 250 fixes, every bus bound for the whole piece): the check of 100,000
+    /// generated motors took 22 s instead of 18 (docs/performance.md).
     /// </summary>
     /// <returns>Root-relative files, sorted; null when the check reported no motor (a run over other files).</returns>
     public static IReadOnlyList<string>? Reach(CheckResult result, IEnumerable<string> files)
@@ -208,22 +219,46 @@ internal static class FixFinder
         {
             if (fixing.Contains(result.MotorFiles[i].File) && result.MotorBuses[i] is { } bus) buses.Add(bus);
         }
-        // CheckedFiles and MotorFiles are both sorted by path: one walk tells the motors from the other files.
         var reach = new List<string>();
-        var m = 0;
-        foreach (var file in result.CheckedFiles)
+        for (var i = 0; i < result.MotorFiles.Length; i++)
         {
-            while (m < result.MotorFiles.Length && string.CompareOrdinal(result.MotorFiles[m].File, file) < 0) m++;
-            var isMotor = m < result.MotorFiles.Length && result.MotorFiles[m].File == file;
-            if (!isMotor || fixing.Contains(file) || (result.MotorBuses[m] is { } bus && buses.Contains(bus))) reach.Add(file);
+            var file = result.MotorFiles[i].File;
+            if (fixing.Contains(file) || (result.MotorBuses[i] is { } bus && buses.Contains(bus))) reach.Add(file);
         }
+        reach.AddRange(buses.Where(b => result.CheckedFiles.BinarySearch(b, StringComparer.Ordinal) >= 0));
+        reach.Sort(StringComparer.Ordinal);
         return reach;
     }
 
     private const int ConfirmPiece = 250;
 
-    // The files as if they had changed: they and the other motors of their buses are loaded, only they are reported.
-    private static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode, IReadOnlyList<string>? within)
+    /// <summary>
+    /// The fixed files divided for their confirming runs: each bus's fixed motors together (a motor with its bus inline, or
+    /// none, alone), whole buses taken in order up to <paramref name="size"/> files (a bus with more is a piece of its own).
+    /// Without the check, one piece.
+    /// </summary>
+    internal static List<List<string>> Pieces(IEnumerable<string> files, CheckResult? check, int size = ConfirmPiece)
+    {
+        string BusOf(string file)
+        {
+            if (check is null) return "";
+            var i = check.MotorFiles.BinarySearch((file, ""), FileOrder);
+            return i >= 0 && i < check.MotorBuses.Length && check.MotorBuses[i] is { } bus ? bus : file;
+        }
+        var pieces = new List<List<string>>();
+        foreach (var bus in files.GroupBy(BusOf, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal))
+        {
+            var count = bus.Count();
+            if (pieces.Count == 0 || (pieces[^1].Count > 0 && pieces[^1].Count + count > size)) pieces.Add([]);
+            pieces[^1].AddRange(bus.Order(StringComparer.Ordinal));
+        }
+        return pieces;
+    }
+
+    private static readonly Comparer<(string File, string Tag)> FileOrder = Comparer<(string File, string Tag)>.Create((a, b) => string.CompareOrdinal(a.File, b.File));
+
+    /// <summary>A confirming run: the files as if they had changed, read with what <paramref name="within"/> names (all when null); only they are reported.</summary>
+    internal static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode, IReadOnlyList<string>? within)
     {
         var changes = new ChangeSet("fix", null, false, files, [], null, ImmutableDictionary<string, byte[]>.Empty);
         IReadOnlyList<string> paths = within is null ? [root] : [.. within.Select(rel => SourcePaths.Full(root, rel))];

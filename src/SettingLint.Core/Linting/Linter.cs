@@ -56,7 +56,7 @@ public static class Linter
         if (collector is null || !result.Notifications.IsEmpty) return result;
         // Confirmed by a check of the changed files in memory, over the files as this run read them (the index with --staged).
         var set = FixFinder.Compute(ruleSet, view, session.Includes, result.Findings, request.SuggestRules, session.ElectricalCodeOf,
-            collector.Settings, session.Scopes, files => result.LoadedFiles ?? FixFinder.Reach(result, files));
+            collector.Settings, session.Scopes, result);
         foreach (var o in request.Observers) o.OnFixes(set);
         return set.ApplyTo(result);
     }
