@@ -477,8 +477,17 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. motorFiles] : motorFiles;
         // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many.
         var parallel = group.Motors.Count >= 64;
-        var states = work.Bind(Ordered(files), parallel).Concat(early).ToArray();
-        var motors = states.Where(s => s.Motor is not null).ToArray();
+        // Plain loops, not LINQ: the two crashes of the native build seen at 100,000 motors (an access violation, cause not
+        // found; docs/performance.md) were both inside the size-optimized Where iterator that NativeAOT's LINQ uses, here.
+        List<FileState> states = [.. work.Bind(Ordered(files), parallel), .. early];
+        var motors = new List<FileState>(states.Count);
+        var evaluated = new List<FileState>(states.Count);
+        foreach (var s in states)
+        {
+            if (s.Motor is null) continue;
+            motors.Add(s);
+            if (selected(s)) evaluated.Add(s);
+        }
         foreach (var s in motors)
         {
             // The quick read is sure of the bus, and the group's other motors are those the rules over the bus compare with.
@@ -489,10 +498,18 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                     s.RelativePath));
             }
         }
-        work.Evaluate(Ordered(motors.Where(selected).ToArray()), new RepositoryIndex(motors.Select(s => s.Motor!)), parallel);
-        var done = states.Where(s => s.IsChecked && s.Reported).ToList();
+        work.Evaluate(Ordered(evaluated), new RepositoryIndex(motors.Select(s => s.Motor!)), parallel);
+        var done = new List<FileState>(states.Count);
+        foreach (var s in states)
+        {
+            if (s.IsChecked && s.Reported) done.Add(s);
+        }
         Tags(done, tags);
-        var kept = done.Where(selected).Select(s => new Kept(s)).ToList();
+        var kept = new List<Kept>(done.Count);
+        foreach (var s in done)
+        {
+            if (selected(s)) kept.Add(new Kept(s));
+        }
         var busDocument = motors.Select(s => s.Motor!.Bus?.Document).FirstOrDefault(d => d?.RelativePath == group.Bus);
         foreach (var s in motors) Drop(work, s.Document);
         Drop(work, busDocument);
