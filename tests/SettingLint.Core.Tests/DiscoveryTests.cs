@@ -33,6 +33,27 @@ public sealed class DiscoveryTests
         Assert.Empty(result.Missing);
     }
 
+    [Fact]
+    public void A_walked_file_s_full_path_is_made_from_the_root_and_a_named_file_keeps_its_own()
+    {
+        using var repo = new TempRepo();
+        repo.Write("motors/a/m-1.yaml", "kind: bus\n");
+        repo.Write("top.yaml", "kind: bus\n");
+        var walked = FileDiscovery.Find(repo.Root, [Path.Combine(repo.Root, "motors")]).Files.Concat(FileDiscovery.Find(repo.Root, [repo.Root]).Files).ToArray();
+        Assert.Equal(["motors/a/m-1.yaml", "motors/a/m-1.yaml", "top.yaml"], walked.Select(f => f.RelativePath));
+        Assert.Equal([repo.PathOf("motors/a/m-1.yaml"), repo.PathOf("motors/a/m-1.yaml"), repo.PathOf("top.yaml")], walked.Select(f => f.FullPath));
+        Assert.All(walked, f => Assert.True(File.Exists(f.FullPath)));
+
+        // Named with a "." in it: the full path as normalised, the same file as the walk's (equal, whatever way each was made).
+        var named = Assert.Single(FileDiscovery.Find(repo.Root, [Path.Combine(repo.Root, "motors", ".", "a", "m-1.yaml")]).Files);
+        Assert.Equal((repo.PathOf("motors/a/m-1.yaml"), "motors/a/m-1.yaml"), (named.FullPath, named.RelativePath));
+        Assert.Equal(walked[0], named);
+        Assert.Equal(walked[0].GetHashCode(), named.GetHashCode());
+        Assert.Equal(DiscoveredFile.Under(repo.Root, "top.yaml"), new DiscoveredFile(repo.PathOf("top.yaml"), "top.yaml"));
+        Assert.NotEqual(DiscoveredFile.Under(repo.Root, "top.yaml"), new DiscoveredFile("/elsewhere/top.yaml", "top.yaml"));
+        Assert.Equal("DiscoveredFile { FullPath = " + repo.PathOf("top.yaml") + ", RelativePath = top.yaml }", DiscoveredFile.Under(repo.Root, "top.yaml").ToString());
+    }
+
     // Common practice for CI tools: output order must not depend on the file system's enumeration order.
     [Fact]
     public void The_order_is_ordinal_by_relative_path_and_repeatable()

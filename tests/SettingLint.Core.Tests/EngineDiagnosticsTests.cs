@@ -1,6 +1,7 @@
 using SettingLint.Core.Findings;
 using SettingLint.Core.Linting;
 using SettingLint.Tests.Support;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -49,8 +50,7 @@ public sealed class EngineDiagnosticsTests
     [Fact]
     public void The_caution_is_worded_in_one_place_of_the_source()
     {
-        var root = AppContext.BaseDirectory;
-        while (!File.Exists(Path.Combine(root, "SettingLint.sln"))) root = Path.GetDirectoryName(root)!;
+        var root = RepositoryPaths.Root();
         var holders = Directory.GetFiles(Path.Combine(root, "src"), "*.cs", SearchOption.AllDirectories)
             .Where(f => !f.Contains(Path.DirectorySeparatorChar + "obj" + Path.DirectorySeparatorChar, StringComparison.Ordinal))
             .Where(f => File.ReadAllText(f).Contains("do not replace a protection study", StringComparison.Ordinal))

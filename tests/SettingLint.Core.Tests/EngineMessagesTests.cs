@@ -2,6 +2,7 @@ using System.Text.RegularExpressions;
 using SettingLint.Core.Findings;
 using SettingLint.Core.Linting;
 using SettingLint.Tests.Support;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -53,8 +54,7 @@ public sealed partial class EngineMessagesTests
     [Fact]
     public void No_engine_finding_is_made_with_a_template_outside_EngineMessages()
     {
-        var root = AppContext.BaseDirectory;
-        while (!File.Exists(Path.Combine(root, "SettingLint.sln"))) root = Path.GetDirectoryName(root)!;
+        var root = RepositoryPaths.Root();
         var sep = Path.DirectorySeparatorChar;
         var files = Directory.GetFiles(Path.Combine(root, "src"), "*.cs", SearchOption.AllDirectories)
             .Where(f => !f.Contains($"{sep}obj{sep}", StringComparison.Ordinal) && !f.Contains($"{sep}bin{sep}", StringComparison.Ordinal)).ToList();

@@ -2,6 +2,7 @@ using System.Reflection;
 using System.Reflection.Emit;
 using System.Text.RegularExpressions;
 using SettingLint.Core.Linting;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -24,7 +25,7 @@ public sealed partial class LayeringTests
         "Discovery", "Loading", "Sources", "Validation", "Binding", "Rules", "Configuration", "Engine", "Gate", "Fixes", "Linting",
     ];
 
-    private static readonly string CoreFolder = Path.Combine(FindRoot(), "src", "SettingLint.Core");
+    private static readonly string CoreFolder = Path.Combine(RepositoryPaths.Root(), "src", "SettingLint.Core");
 
     private static readonly Assembly Core = typeof(Linter).Assembly;
 
@@ -138,15 +139,6 @@ public sealed partial class LayeringTests
             .Order(StringComparer.Ordinal);
 
     private static string FolderOf(string file) => Path.GetRelativePath(CoreFolder, file).Split(Path.DirectorySeparatorChar)[0];
-
-    internal static string FindRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("repository root not found");
-    }
 
     private const BindingFlags Declared = BindingFlags.DeclaredOnly | BindingFlags.Public | BindingFlags.NonPublic | BindingFlags.Instance | BindingFlags.Static;
 

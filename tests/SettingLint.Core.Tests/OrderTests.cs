@@ -1,5 +1,6 @@
 using SettingLint.Core.Engine;
 using SettingLint.Core.Findings;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -10,14 +11,7 @@ namespace SettingLint.Core.Tests;
 /// </summary>
 public sealed class OrderTests
 {
-    private static string Examples()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return Path.Combine(d, "examples");
-        }
-        throw new InvalidOperationException("repository root not found");
-    }
+    private static string Examples() => Path.Combine(RepositoryPaths.Root(), "examples");
 
     private static CheckResult Run(bool parallel, bool reversed)
     {

@@ -1,6 +1,7 @@
 using System.Reflection;
 using System.Text.RegularExpressions;
 using SettingLint.Core.Linting;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -17,7 +18,7 @@ public sealed partial class PublicSurfaceTests
     [Fact]
     public void Every_public_type_of_Core_is_named_by_a_front_end_or_exposed_by_one_that_is()
     {
-        var root = LayeringTests.FindRoot();
+        var root = RepositoryPaths.Root();
         var words = new HashSet<string>(StringComparer.Ordinal);
         foreach (var project in FrontEnds)
         {

@@ -1,6 +1,7 @@
 using SettingLint.Core.Findings;
 using SettingLint.Core.Linting;
 using SettingLint.Tests.Support;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -172,17 +173,10 @@ public sealed class RulePackPrefixTests
     [Fact]
     public void The_demo_s_company_pack_loads_with_its_prefix_and_its_fixtures_pass()
     {
-        var pack = Path.Combine(RepositoryRoot(), "examples", "firm-rules");
+        var pack = Path.Combine(RepositoryPaths.Root(), "examples", "firm-rules");
         var (results, problems) = FixtureRunner.Run(pack);
         Assert.Empty(problems);
         Assert.Equal(["TWE101"], results.Select(r => r.RuleId));
         Assert.All(results, r => Assert.True(r.Passed));
-    }
-
-    private static string RepositoryRoot()
-    {
-        var dir = AppContext.BaseDirectory;
-        while (!File.Exists(Path.Combine(dir, "SettingLint.sln"))) dir = Path.GetDirectoryName(dir)!;
-        return dir;
     }
 }

@@ -17,7 +17,7 @@ namespace SettingLint.Core.Tests;
 /// </summary>
 public sealed class SchemaConformanceTests
 {
-    private static readonly string RepoRoot = FindRoot();
+    private static readonly string RepoRoot = RepositoryPaths.Root();
 
     private static readonly ImmutableArray<(string Schema, YMapping Root, string File)> Corpus = LoadCorpus();
 
@@ -25,15 +25,6 @@ public sealed class SchemaConformanceTests
         .ToImmutableDictionary(n => n, n => NJ.JsonSchema.FromJsonAsync(SchemaSet.Text(n)).GetAwaiter().GetResult());
 
     private static string[] SchemaNames() => [SchemaSet.MotorProtection, SchemaSet.Bus, SchemaSet.RelayModel, SchemaSet.Config, SchemaSet.Rule];
-
-    private static string FindRoot()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return d;
-        }
-        throw new InvalidOperationException("repository root not found");
-    }
 
     private static ImmutableArray<(string, YMapping, string)> LoadCorpus()
     {

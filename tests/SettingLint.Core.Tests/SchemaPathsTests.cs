@@ -2,6 +2,7 @@ using System.Reflection;
 using System.Text.RegularExpressions;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Validation;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -53,8 +54,7 @@ public sealed partial class SchemaPathsTests
     [Fact]
     public void No_key_path_literal_is_written_outside_SchemaPaths()
     {
-        var root = AppContext.BaseDirectory;
-        while (!File.Exists(Path.Combine(root, "SettingLint.sln"))) root = Path.GetDirectoryName(root)!;
+        var root = RepositoryPaths.Root();
         // Bus keys of one plain word (grounding, frequency, upstream) are also words of other meanings (a dimension, a CSS
         // class), so only the paths with a dot or an underscore are looked for as they are.
         var values = Constants(typeof(SchemaPaths.Motor)).Concat(Constants(typeof(SchemaPaths.Bus))).Select(c => c.Path)

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Documents;
 using SettingLint.Core.Findings;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Reporting.Tests;
 
@@ -34,14 +35,7 @@ public sealed class MarkdownReporterTests
     private static string Render(CheckResult result, string? linkBase = null) =>
         Samples.Render(new MarkdownReporter { LinkBase = linkBase }, result, Samples.Context());
 
-    private static string GoldenPath()
-    {
-        for (var d = AppContext.BaseDirectory; d is not null; d = Path.GetDirectoryName(d))
-        {
-            if (File.Exists(Path.Combine(d, "SettingLint.sln"))) return Path.Combine(d, "tests", "SettingLint.Reporting.Tests", "golden", "markdown-summary.md");
-        }
-        throw new InvalidOperationException("SettingLint.sln not found above the test assembly.");
-    }
+    private static string GoldenPath() => Path.Combine(RepositoryPaths.Root(), "tests", "SettingLint.Reporting.Tests", "golden", "markdown-summary.md");
 
     [Fact]
     public void The_summary_of_a_known_case_matches_the_golden_file()

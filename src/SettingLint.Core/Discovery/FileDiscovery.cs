@@ -17,20 +17,19 @@ public sealed record DiscoveredFile
     /// <param name="fullPath">Absolute path (the link's own path for a refused link).</param>
     /// <param name="relativePath">Relative to the repository root, forward slashes.</param>
     public DiscoveredFile(string fullPath, string relativePath)
+        : this(null, fullPath, relativePath)
     {
+    }
+
+    private DiscoveredFile(string? root, string? fullPath, string relativePath)
+    {
+        _root = root;
         _fullPath = fullPath;
         RelativePath = relativePath;
     }
 
-    private DiscoveredFile(string root, string relativePath, bool underRoot)
-    {
-        _ = underRoot;
-        _root = root;
-        RelativePath = relativePath;
-    }
-
     /// <summary>A file whose full path is the root joined with its relative path (<see cref="RepositoryRoot.Full"/>).</summary>
-    public static DiscoveredFile Under(string root, string relativePath) => new(root, relativePath, underRoot: true);
+    public static DiscoveredFile Under(string root, string relativePath) => new(root, null, relativePath);
 
     /// <summary>Absolute path (the link's own path for a refused link).</summary>
     public string FullPath => _fullPath ?? RepositoryRoot.Full(_root!, RelativePath);
