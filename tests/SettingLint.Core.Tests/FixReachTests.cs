@@ -69,4 +69,52 @@ public sealed class FixReachTests
             ImmutableSortedSet.Create(StringComparer.Ordinal, "motors/m-1.yaml"), null, within);
         Assert.Equal(expected, confirmed.Findings.Where(f => f.File == "motors/m-1.yaml").Select(f => f.RuleId + " " + f.KeyPath));
     }
+
+    private sealed class Fixes : ICheckObserver
+    {
+        public SuggestionSet? Set { get; private set; }
+
+        public void OnFixes(SuggestionSet fixes) => Set = fixes;
+    }
+
+    private static string Rule(string id, string when, string check, string subject) => $"""
+        id: {id}
+        title: A test rule
+        summary: A rule written for this test only.
+        rationale: |
+          Made up to steer a fix: not a rule of practice.
+        basis:
+          - none (a test)
+        severity: error
+        tags: [test]
+        applies_to: motor-protection
+        {when}check: {check}
+        subject: {subject}
+        message: "{id} fails."
+
+        """;
+
+    // The confirming run is what refuses a value the windows alone would give: TST101 bounds the 50P pickup to at most 600 A
+    // pri (40 A sec on the 75:5 CT), and TST102, which never bounds the pickup, asks for a delay once the pickup is below
+    // 1,000 A pri. The fix to 40 A sec passes TST101 and makes TST102 fail on the delay: it is refused, with that reason.
+    [Fact]
+    public void A_fix_that_would_make_another_rule_fail_in_its_file_is_refused_by_the_confirming_run()
+    {
+        using var repo = new TempRepo();
+        repo.Write(".settinglint.yaml", "packs: [house]\n");
+        repo.Write("house/pack.yaml", "prefix: TST\ntitle: Test rules\n");
+        repo.Write("house/TST101/rule.yaml", Rule("TST101", "", "protection.short_circuit.pickup <= 600 A", "protection.short_circuit.pickup"));
+        repo.Write("house/TST102/rule.yaml", Rule("TST102", "when: protection.short_circuit.pickup < 1000 A\n", "protection.short_circuit.delay >= 0.05 s", "protection.short_circuit.delay"));
+        repo.Write("buses/bus-1.yaml", Samples.Bus);
+        repo.Write("motors/m-1.yaml", Samples.MotorWith("pickup: 7.2 A sec", "pickup: 150 A sec\n    delay: 0 s"));
+        var fixes = new Fixes();
+        var result = Linter.Check(new CheckRequest(repo.Root, []) { Parallel = false, Suggest = true, Observers = [fixes] });
+
+        Assert.Equal(["TST101 protection.short_circuit.pickup"], result.Findings.Select(f => f.RuleId + " " + f.KeyPath));
+        Assert.Empty(fixes.Set!.Applied);
+        var (fix, why) = Assert.Single(fixes.Set.Refused);
+        Assert.Equal(("motors/m-1.yaml", "protection.short_circuit.pickup", "40"), (fix.MotorFile, fix.Setting, fix.NewText));
+        Assert.StartsWith("the file would gain TST102 at protection.short_circuit.delay: ", why, StringComparison.Ordinal);
+        Assert.Null(Assert.Single(result.Findings).Fix);
+    }
 }
