@@ -410,7 +410,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         var gate = new Lock();
         ForEach(parallel, Ordered(plan.Buses.Values.ToArray()), group =>
         {
-            var done = Group(work, plan, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags);
+            var done = Group(work, plan, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags, parallel);
             lock (gate) kept.AddRange(done);
         });
         return kept;
@@ -470,13 +470,14 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
-    private List<Kept> Group(Work work, BusGroups plan, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags)
+    private List<Kept> Group(Work work, BusGroups plan, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags, bool runParallel)
     {
         var motorFiles = group.Motors.Select(plan.Motor).ToList();
         foreach (var f in motorFiles) work.Enter(f);
         List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. motorFiles] : motorFiles;
-        // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many.
-        var parallel = group.Motors.Count >= 64;
+        // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many; a run asked
+        // to work in sequence never goes parallel.
+        var parallel = runParallel && group.Motors.Count >= 64;
         // Plain loops, not LINQ: the two crashes of the native build seen at 100,000 motors (an access violation, cause not
         // found; docs/performance.md) were both inside the size-optimized Where iterator that NativeAOT's LINQ uses, here.
         List<FileState> states = [.. work.Bind(Ordered(files), parallel), .. early];
