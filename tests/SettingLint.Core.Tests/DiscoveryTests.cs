@@ -51,6 +51,8 @@ public sealed class DiscoveryTests
         Assert.Equal(walked[0].GetHashCode(), named.GetHashCode());
         Assert.Equal(DiscoveredFile.Under(repo.Root, "top.yaml"), new DiscoveredFile(repo.PathOf("top.yaml"), "top.yaml"));
         Assert.NotEqual(DiscoveredFile.Under(repo.Root, "top.yaml"), new DiscoveredFile("/elsewhere/top.yaml", "top.yaml"));
+        Assert.Equal((true, true, false, false), (walked[2].IsUnder(repo.Root), named.IsUnder(repo.Root),
+            new DiscoveredFile("/elsewhere/top.yaml", "top.yaml").IsUnder(repo.Root), walked[2].IsUnder("/elsewhere")));
         Assert.Equal("DiscoveredFile { FullPath = " + repo.PathOf("top.yaml") + ", RelativePath = top.yaml }", DiscoveredFile.Under(repo.Root, "top.yaml").ToString());
     }
 

@@ -34,6 +34,9 @@ public sealed record DiscoveredFile
     /// <summary>Absolute path (the link's own path for a refused link).</summary>
     public string FullPath => _fullPath ?? RepositoryRoot.Full(_root!, RelativePath);
 
+    /// <summary>Whether the full path is the root joined with the relative path; for a file made by <see cref="Under"/> that root, without making either path.</summary>
+    internal bool IsUnder(string root) => _fullPath is null ? _root == root : _fullPath == RepositoryRoot.Full(root, RelativePath);
+
     /// <summary>Relative to the repository root, forward slashes.</summary>
     public string RelativePath { get; }
 

@@ -1,6 +1,5 @@
 using System.Collections.Immutable;
 using SettingLint.Core.Discovery;
-using SettingLint.Core.Sources;
 
 namespace SettingLint.Core.Engine;
 
@@ -50,7 +49,7 @@ internal sealed record BusGroups(Dictionary<string, BusGroup> Buses, List<Discov
                 // A group holds its motors' relative paths only (kept for the result anyway), not their full paths too: at
                 // 100,000 motors those were 17 MB held until the group ran (peak RSS, native, --no-suggest: 136-140 MiB, 130-134 without).
                 (buses.TryGetValue(bus, out var g) ? g : buses[bus] = new BusGroup(bus, null, [])).Motors.Add(f.RelativePath);
-                if (f.FullPath != SourcePaths.Full(root, f.RelativePath)) elsewhere[f.RelativePath] = f.FullPath;
+                if (!f.IsUnder(root)) elsewhere[f.RelativePath] = f.FullPath;
             }
         }
         foreach (var f in files)

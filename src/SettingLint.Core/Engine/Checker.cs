@@ -100,7 +100,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             RelativePath = s.RelativePath;
             Motor = s.Motor?.Tag;
             if (s.Motor?.Bus is { } bus && bus.Document.Path != s.Path) Bus = bus.Document.RelativePath;
-            if (s.Document?["tag"] is TextValue tag) (_tag, _tagSpan) = (tag.Value, tag.Span);
+            if (TagOf(s) is { } tag) (_tag, _tagSpan) = (tag.Tag, tag.Span);
             var findings = s.LoadFindings.Count + s.Findings.Findings.Count;
             if (findings + s.Findings.NotRun.Count + s.Acceptances.Length == 0) return;
             _notes = new Notes(
@@ -478,8 +478,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many; a run asked
         // to work in sequence never goes parallel.
         var parallel = runParallel && group.Motors.Count >= 64;
-        // Plain loops, not LINQ: the two crashes of the native build seen at 100,000 motors (an access violation, cause not
-        // found; docs/performance.md) were both inside the size-optimized Where iterator that NativeAOT's LINQ uses, here.
+        // Plain loops: each list is made once at its size. (They replaced LINQ chains when two crashes of the native build
+        // were seen inside LINQ's Where iterator here; a later crash came with these loops too, so they were not the cure:
+        // docs/performance.md, "The crash".)
         List<FileState> states = [.. work.Bind(Ordered(files), parallel), .. early];
         var motors = new List<FileState>(states.Count);
         var evaluated = new List<FileState>(states.Count);
