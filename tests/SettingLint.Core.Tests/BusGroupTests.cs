@@ -231,7 +231,7 @@ public sealed class BusGroupTests
     }
 
     [Fact]
-    public void The_plan_of_a_full_run_holds_its_motors_by_relative_path_and_gives_each_as_discovered()
+    public void The_plan_of_a_full_run_holds_its_motors_by_number_and_gives_each_as_discovered()
     {
         var root = Path.Combine(Path.GetTempPath(), "plan-root");
         var (plan, motors) = Divide(root);
@@ -240,8 +240,10 @@ public sealed class BusGroupTests
         var group = Assert.Single(plan.Buses.Values);
         Assert.Equal(41, group.Motors.Count);
         Assert.Equal("buses/bus-1.yaml", group.File?.RelativePath);
-        Assert.Equal(new DiscoveredFile(Path.Combine(root, "motors", "m-07.yaml"), "motors/m-07.yaml"), plan.Motor("motors/m-07.yaml"));
-        Assert.Equal(new DiscoveredFile("/elsewhere/motors/odd.yaml", "motors/odd.yaml"), plan.Motor("motors/odd.yaml"));
+        // By number, in discovery order: the 40 motors, then the one discovered elsewhere.
+        Assert.Equal(new DiscoveredFile(Path.Combine(root, "motors", "m-07.yaml"), "motors/m-07.yaml"), plan.Motor(group.Motors[7]));
+        Assert.Equal(new DiscoveredFile("/elsewhere/motors/odd.yaml", "motors/odd.yaml"), plan.Motor(group.Motors[40]));
+        Assert.Equal(41, group.Motors.Select(plan.Motor).Distinct().Count());
     }
 
     [Fact]

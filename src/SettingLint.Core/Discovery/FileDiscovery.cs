@@ -53,6 +53,78 @@ public sealed record DiscoveredFile
     }
 }
 
+/// <summary>
+/// The files discovery found, sorted by relative path (ordinal), without duplicates: their relative paths packed, each
+/// file made when asked (a new <see cref="DiscoveredFile"/> each time, equal to the last).
+/// </summary>
+/// <remarks>
+/// A list of 100,000 files as objects held some 12 MB (the file, its path) from discovery through the quick read:
+/// docs/performance.md, 2026-12-05, "Packed paths and tags".
+/// </remarks>
+internal sealed class DiscoveredFiles : IReadOnlyList<DiscoveredFile>
+{
+    private readonly string _root;
+    private readonly PackedStrings _paths;
+    private readonly Dictionary<int, string> _own;
+
+    private DiscoveredFiles(string root, PackedStrings paths, Dictionary<int, string> own) => (_root, _paths, _own) = (root, paths, own);
+
+    public int Count => _paths.Count;
+
+    public DiscoveredFile this[int index] => _own.TryGetValue(index, out var full) ? new(full, _paths.GetString(index)) : DiscoveredFile.Under(_root, _paths.GetString(index));
+
+    /// <summary>A file's relative path, without making the file.</summary>
+    public string RelativePath(int index) => _paths.GetString(index);
+
+    public IEnumerator<DiscoveredFile> GetEnumerator()
+    {
+        for (var i = 0; i < Count; i++) yield return this[i];
+    }
+
+    System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
+
+    /// <summary>Gathers files in any order; sorted, the first of two with one relative path is kept.</summary>
+    /// <param name="root">The repository root (absolute); a file added without a full path of its own lies at the root joined with its relative path.</param>
+    public sealed class Builder(string root)
+    {
+        private readonly PackedStrings _paths = new();
+        private readonly Dictionary<int, string> _own = [];
+
+        /// <summary>Adds a file by its relative path (<paramref name="prefix"/> then <paramref name="rest"/>), with its own full path or none.</summary>
+        /// <returns>Its number in the list that <see cref="Build"/> makes unsorted.</returns>
+        public int Add(ReadOnlySpan<char> prefix, ReadOnlySpan<char> rest, string? fullPath = null)
+        {
+            var i = _paths.Add(prefix, rest);
+            if (fullPath is not null) _own[i] = fullPath;
+            return i;
+        }
+
+        /// <summary>The list: sorted, without duplicates; or, unsorted, every file in the order of adding.</summary>
+        public DiscoveredFiles Build(bool sorted = true)
+        {
+            if (!sorted)
+            {
+                _paths.Trim();
+                return new DiscoveredFiles(root, _paths, _own);
+            }
+            var order = new int[_paths.Count];
+            for (var i = 0; i < order.Length; i++) order[i] = i;
+            // By path, then the order of adding, so that the first added of two equal paths comes first and is kept.
+            Array.Sort(order, (a, b) => _paths.Compare(a, b) is var c and not 0 ? c : a.CompareTo(b));
+            var paths = new PackedStrings(order.Length);
+            var own = new Dictionary<int, string>();
+            for (var i = 0; i < order.Length; i++)
+            {
+                if (i > 0 && _paths.Compare(order[i], order[i - 1]) == 0) continue;
+                var n = paths.Add(_paths[order[i]]);
+                if (_own.TryGetValue(order[i], out var full)) own[n] = full;
+            }
+            paths.Trim();
+            return new DiscoveredFiles(root, paths, own);
+        }
+    }
+}
+
 /// <summary>What discovery found: files to load in a fixed order, and findings for links it would not follow.</summary>
 public sealed record DiscoveryResult(IReadOnlyList<DiscoveredFile> Files, IReadOnlyList<Finding> Findings, IReadOnlyList<string> Missing)
 {
@@ -74,14 +146,14 @@ public static class FileDiscovery
     /// <param name="shown">How each path is named in messages, by position (the path itself when not given).</param>
     public static DiscoveryResult Find(string root, IEnumerable<string> paths, Func<string, bool>? included = null, IReadOnlyList<string>? shown = null)
     {
-        var files = new Dictionary<string, DiscoveredFile>(StringComparer.Ordinal);
+        var files = new DiscoveredFiles.Builder(root);
         var findings = new List<Finding>();
         var missing = new List<string>();
         var outside = new List<string>();
         var listed = new List<(string RelativePath, bool MaybeLink)>();
         void Add((DiscoveredFile? File, IReadOnlyList<Finding> Findings) considered)
         {
-            if (considered.File is { } f) files.TryAdd(f.RelativePath, f);
+            if (considered.File is { } f) files.Add(f.RelativePath, "", f.FullPath);
             findings.AddRange(considered.Findings);
         }
         var position = 0;
@@ -107,11 +179,15 @@ public static class FileDiscovery
             else missing.Add(named);
         }
         // The configuration's globs are matched against every listed file: thousands of them go faster in parallel.
-        var considered = new (DiscoveredFile?, IReadOnlyList<Finding>)[listed.Count];
+        var considered = new (bool Keep, IReadOnlyList<Finding> Findings)[listed.Count];
         if (listed.Count >= ParallelFrom) Parallel.For(0, listed.Count, i => considered[i] = Consider(root, listed[i].RelativePath, included, listed[i].MaybeLink));
         else for (var i = 0; i < listed.Count; i++) considered[i] = Consider(root, listed[i].RelativePath, included, listed[i].MaybeLink);
-        foreach (var c in considered) Add(c);
-        return new DiscoveryResult([.. files.Values.OrderBy(f => f.RelativePath, StringComparer.Ordinal)], findings.OrderBy(f => f, Finding.Order).ToList(), missing) { Outside = outside };
+        for (var i = 0; i < considered.Length; i++)
+        {
+            if (considered[i].Keep) files.Add(listed[i].RelativePath, "");
+            findings.AddRange(considered[i].Findings);
+        }
+        return new DiscoveryResult(files.Build(), findings.OrderBy(f => f, Finding.Order).ToList(), missing) { Outside = outside };
     }
 
     private const int ParallelFrom = 256;
@@ -198,11 +274,11 @@ public static class FileDiscovery
 
     /// <summary>A YAML file listed under a walked folder, by its relative path: to check, or a link refused, or nothing (not included).</summary>
     /// <param name="maybeLink">False when the listing showed the file is no link, so that it needs no call to the file system.</param>
-    private static (DiscoveredFile? File, IReadOnlyList<Finding> Findings) Consider(string root, string rel, Func<string, bool>? included, bool maybeLink)
+    private static (bool Keep, IReadOnlyList<Finding> Findings) Consider(string root, string rel, Func<string, bool>? included, bool maybeLink)
     {
-        if (included is not null && !included(rel)) return (null, []);
-        if (maybeLink && RefusedLink(root, RepositoryRoot.Full(root, rel), rel) is { } refused) return (null, refused);
-        return (DiscoveredFile.Under(root, rel), []);
+        if (included is not null && !included(rel)) return (false, []);
+        if (maybeLink && RefusedLink(root, RepositoryRoot.Full(root, rel), rel) is { } refused) return (false, refused);
+        return (true, []);
     }
 
     /// <summary>The finding of a file that is a link out of the root or to no file; null when it is no such link.</summary>

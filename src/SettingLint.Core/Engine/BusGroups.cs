@@ -6,8 +6,8 @@ namespace SettingLint.Core.Engine;
 /// <summary>One bus with the motors the quick read finds on it: what a full run loads, evaluates and lets go together.</summary>
 /// <param name="Bus">The bus file's root-relative path, as the motors' references resolve it.</param>
 /// <param name="File">The bus file when it was discovered and is not a motor (else it is loaded through the motors' references).</param>
-/// <param name="Motors">The motor files that name it, in discovery order, root-relative (<see cref="BusGroups.Motor"/> gives each as discovered).</param>
-internal sealed record BusGroup(string Bus, DiscoveredFile? File, List<string> Motors);
+/// <param name="Motors">The motor files that name it, in discovery order, by number (<see cref="BusGroups.Motor"/> gives each as discovered).</param>
+internal sealed record BusGroup(string Bus, DiscoveredFile? File, List<int> Motors);
 
 /// <summary>
 /// How a full run divides the discovered files, from a quick read of their references (<see cref="QuickScan"/>), before
@@ -19,15 +19,13 @@ internal sealed record BusGroup(string Bus, DiscoveredFile? File, List<string> M
 /// reference it would not follow. A motor among them then joins the group of the bus it names, or is evaluated alone.
 /// </param>
 /// <param name="Others">Every other file: relay models, buses that no motor names, files of no kind. Loaded once and kept for the run.</param>
-/// <param name="Root">The repository root (absolute).</param>
-/// <param name="Elsewhere">The full path of each motor of a group that discovery did not find at the root joined with its relative path.</param>
-internal sealed record BusGroups(Dictionary<string, BusGroup> Buses, List<DiscoveredFile> First, List<DiscoveredFile> Others, string Root, Dictionary<string, string> Elsewhere)
+/// <param name="Motors">The motors of the groups, their paths packed, by the numbers the groups hold.</param>
+internal sealed record BusGroups(Dictionary<string, BusGroup> Buses, List<DiscoveredFile> First, List<DiscoveredFile> Others, DiscoveredFiles Motors)
 {
-    /// <summary>A motor of a group as discovered, its full path made again from the root.</summary>
-    public DiscoveredFile Motor(string relativePath) =>
-        Elsewhere.TryGetValue(relativePath, out var full) ? new(full, relativePath) : DiscoveredFile.Under(Root, relativePath);
+    /// <summary>A motor of a group as discovered.</summary>
+    public DiscoveredFile Motor(int number) => Motors[number];
 
-    /// <summary>Divides the files by what the quick read found.</summary>
+    /// <summary>Divides the files by what the quick read found (<see cref="QuickScan.Read(string, IReadOnlyList{DiscoveredFile}, QuickScan.Reader, long, bool, bool)"/>).</summary>
     /// <param name="root">The repository root (absolute).</param>
     /// <param name="files">The discovered files.</param>
     /// <param name="motors">The quick read's references of the motors among them.</param>
@@ -37,27 +35,44 @@ internal sealed record BusGroups(Dictionary<string, BusGroup> Buses, List<Discov
         var busOf = new Dictionary<string, string?>(motors.Length, StringComparer.Ordinal);
         foreach (var m in motors) busOf[m.File] = m.Bus;
         var unsure = uncertain.ToHashSet(StringComparer.Ordinal);
+        var scanned = new QuickScan.Scanned[files.Count];
+        for (var i = 0; i < files.Count; i++)
+        {
+            var rel = files[i].RelativePath;
+            scanned[i] = new QuickScan.Scanned(unsure.Contains(rel), busOf.TryGetValue(rel, out var bus), bus, null, null);
+        }
+        return Of(root, files, scanned);
+    }
+
+    /// <summary>Divides the files by what the quick read found in each (<see cref="QuickScan.Scan"/>, in the files' order).</summary>
+    public static BusGroups Of(string root, IReadOnlyList<DiscoveredFile> files, QuickScan.Scanned[] scanned)
+    {
         var buses = new Dictionary<string, BusGroup>(StringComparer.Ordinal);
         var first = new List<DiscoveredFile>();
         var others = new List<DiscoveredFile>();
-        var elsewhere = new Dictionary<string, string>(StringComparer.Ordinal);
-        foreach (var f in files)
+        // A group holds its motors by number, their paths packed: at 100,000 motors their full paths were 17 MB held until
+        // the group ran (peak RSS, native, --no-suggest: 136-140 MiB, 130-134 without), and their relative paths as strings
+        // 6 MB more (docs/performance.md, 2026-12-05, "Packed paths and tags").
+        var motors = new DiscoveredFiles.Builder(root);
+        for (var i = 0; i < files.Count; i++)
         {
-            if (unsure.Contains(f.RelativePath) || (busOf.TryGetValue(f.RelativePath, out var bus) && bus is null)) first.Add(f);
-            else if (bus is not null)
+            var s = scanned[i];
+            if (s.Unsure || (s.IsMotor && s.Bus is null)) first.Add(files[i]);
+            else if (s.Bus is { } bus)
             {
-                // A group holds its motors' relative paths only (kept for the result anyway), not their full paths too: at
-                // 100,000 motors those were 17 MB held until the group ran (peak RSS, native, --no-suggest: 136-140 MiB, 130-134 without).
-                (buses.TryGetValue(bus, out var g) ? g : buses[bus] = new BusGroup(bus, null, [])).Motors.Add(f.RelativePath);
-                if (!f.IsUnder(root)) elsewhere[f.RelativePath] = f.FullPath;
+                var f = files[i];
+                var number = motors.Add(f.RelativePath, "", f.IsUnder(root) ? null : f.FullPath);
+                (buses.TryGetValue(bus, out var g) ? g : buses[bus] = new BusGroup(bus, null, [])).Motors.Add(number);
             }
         }
-        foreach (var f in files)
+        for (var i = 0; i < files.Count; i++)
         {
-            if (unsure.Contains(f.RelativePath) || busOf.ContainsKey(f.RelativePath)) continue;
+            var s = scanned[i];
+            if (s.Unsure || s.IsMotor) continue;
+            var f = files[i];
             if (buses.TryGetValue(f.RelativePath, out var g)) buses[f.RelativePath] = g with { File = f };
             else others.Add(f);
         }
-        return new BusGroups(buses, first, others, root, elsewhere);
+        return new BusGroups(buses, first, others, motors.Build(sorted: false));
     }
 }

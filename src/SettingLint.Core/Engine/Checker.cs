@@ -361,8 +361,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         IFileSource source, string[] paths, IReadOnlyList<string> shown, CheckOptions options, ConcurrentBag<Notification> notifications)
     {
         var discovery = Discover(source, paths, shown, options, notifications);
-        var (refs, unsure, _) = QuickScan.Read(source.Root, discovery.Files, source, options.EffectiveLimits.MaxFileBytes, options.Parallel, withTags: false);
-        return (BusGroups.Of(source.Root, discovery.Files, refs, unsure), discovery.Findings);
+        var scanned = QuickScan.Scan(source.Root, discovery.Files, (DiscoveredFile f, long max, ref byte[] buffer) => source.ReadInto(f.FullPath, f.RelativePath, max, ref buffer),
+            options.EffectiveLimits.MaxFileBytes, options.Parallel, withTags: false);
+        return (BusGroups.Of(source.Root, discovery.Files, scanned), discovery.Findings);
     }
 
     /// <summary>Enters and binds every one of these files; the setting files among them.</summary>
@@ -472,7 +473,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
     private List<Kept> Group(Work work, BusGroups plan, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags, bool runParallel)
     {
-        var motorFiles = group.Motors.Select(plan.Motor).ToList();
+        var motorFiles = new List<DiscoveredFile>(group.Motors.Count);
+        foreach (var number in group.Motors) motorFiles.Add(plan.Motor(number));
         foreach (var f in motorFiles) work.Enter(f);
         List<DiscoveredFile> files = group.File is { } busFile ? [busFile, .. motorFiles] : motorFiles;
         // One bus's motors are evaluated in sequence (the groups run in parallel), unless the bus has very many; a run asked

@@ -42,45 +42,75 @@ internal static class QuickScan
     public static (ImmutableArray<MotorReferences> Motors, ImmutableArray<string> Uncertain, IReadOnlyDictionary<string, string> Tags) Read(
         string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel, bool withTags = true)
     {
-        var found = new ConcurrentBag<MotorReferences>();
-        var uncertain = new ConcurrentBag<string>();
-        var tags = new ConcurrentBag<KeyValuePair<string, string>>();
+        var scanned = Scan(root, files, read, maxBytes, parallel, withTags);
+        var found = new List<MotorReferences>();
+        var uncertain = new List<string>();
+        var tags = new Dictionary<string, string>(StringComparer.Ordinal);
+        for (var i = 0; i < scanned.Length; i++)
+        {
+            var s = scanned[i];
+            if (!s.Unsure && !s.IsMotor && s.Tag is null) continue;
+            var rel = files[i].RelativePath;
+            if (s.Unsure) uncertain.Add(rel);
+            if (s.Tag is { } tag) tags[rel] = tag;
+            if (s.IsMotor) found.Add(new MotorReferences(rel, s.Bus, s.RelayModel));
+        }
+        return ([.. found.OrderBy(m => m.File, StringComparer.Ordinal)], [.. uncertain.Order(StringComparer.Ordinal)], tags);
+    }
+
+    /// <summary>What the quick read found in one file.</summary>
+    /// <param name="Unsure">The file could not be read for certain (or at all): it is loaded to learn what it is.</param>
+    /// <param name="IsMotor">A motor file.</param>
+    /// <param name="Bus">A motor's bus file, root-relative; null for an inline bus or a reference it would not follow.</param>
+    /// <param name="RelayModel">A motor's relay-model file, root-relative; null when none is named or it would not follow it.</param>
+    /// <param name="Tag">The file's tag when asked for and written.</param>
+    internal readonly record struct Scanned(bool Unsure, bool IsMotor, string? Bus, string? RelayModel, string? Tag);
+
+    /// <summary>
+    /// What the quick read finds in each file, in the order of <paramref name="files"/>: one value per file, so that a
+    /// full run keeps no path of its own for any (<see cref="BusGroups"/>).
+    /// </summary>
+    internal static Scanned[] Scan(string root, IReadOnlyList<DiscoveredFile> files, Reader read, long maxBytes, bool parallel, bool withTags)
+    {
+        var scanned = new Scanned[files.Count];
         // The references are resolved once per folder and value written (a bus has many motors in one folder), as each file
         // is read: the values as written are let go with the file, before a collection can keep them for the run.
         // Peak RSS at 100,000 motors, native, --no-suggest: 169-175 MiB resolved after the scan, 136-140 as each file is read.
         var resolved = new ConcurrentDictionary<(string Dir, string Value), string?>();
         string? Resolve(string dir, string value) => resolved.GetOrAdd((dir, value), static (k, root) => ChangeSet.Resolve(root, k.Dir, k.Value), root);
-        byte[] One(DiscoveredFile f, byte[] buffer)
+        byte[] One(int i, byte[] buffer)
         {
+            var f = files[i];
             var length = SafeRead(read, f, maxBytes, ref buffer);
-            if (length < 0 || length > maxBytes || !TryScan(buffer.AsSpan(0, (int)length), out var scanned)) uncertain.Add(f.RelativePath);
+            if (length < 0 || length > maxBytes || !TryScan(buffer.AsSpan(0, (int)length), out var found)) scanned[i] = new Scanned(true, false, null, null, null);
             else
             {
-                if (withTags && scanned.Tag is { } tag) tags.Add(KeyValuePair.Create(f.RelativePath, tag));
-                if (scanned.IsMotor)
+                var tag = withTags ? found.Tag : null;
+                if (!found.IsMotor) scanned[i] = new Scanned(false, false, null, null, tag);
+                else
                 {
                     var dir = Path.GetDirectoryName(f.FullPath) ?? root;
                     // An empty value is an inline bus mapping: the motor's own, shared with no other motor.
-                    found.Add(new MotorReferences(f.RelativePath, scanned.Bus!.Length == 0 ? null : Resolve(dir, scanned.Bus),
-                        scanned.RelayModel is null ? null : Resolve(dir, scanned.RelayModel)));
+                    scanned[i] = new Scanned(false, true, found.Bus!.Length == 0 ? null : Resolve(dir, found.Bus),
+                        found.RelayModel is null ? null : Resolve(dir, found.RelayModel), tag);
                 }
             }
             return buffer;
         }
         // Most setting files are a few KB: one buffer per thread, grown for a larger file.
-        if (parallel && files.Count > 1) Parallel.ForEach(files, () => new byte[BufferBytes], (f, _, buffer) => One(f, buffer), _ => { });
+        if (parallel && files.Count > 1) Parallel.For(0, files.Count, () => new byte[BufferBytes], (i, _, buffer) => One(i, buffer), _ => { });
         else
         {
             var buffer = new byte[BufferBytes];
-            foreach (var f in files) buffer = One(f, buffer);
+            for (var i = 0; i < files.Count; i++) buffer = One(i, buffer);
         }
-        return ([.. found.OrderBy(m => m.File, StringComparer.Ordinal)], [.. uncertain.Order(StringComparer.Ordinal)], new Dictionary<string, string>(tags, StringComparer.Ordinal));
+        return scanned;
     }
 
     private const int BufferBytes = 64 * 1024;
 
     // What the quick read found in a setting file: its tag, and of a motor its bus ("" for an inline one) and relay model as written.
-    private readonly record struct Scanned(bool IsMotor, string? Tag, string? Bus, string? RelayModel);
+    private readonly record struct Found(bool IsMotor, string? Tag, string? Bus, string? RelayModel);
 
     private static long SafeRead(Reader read, DiscoveredFile f, long maxBytes, ref byte[] buffer)
     {
@@ -96,7 +126,7 @@ internal static class QuickScan
 
     // False when unsure; else what the file is, with the values as written. It reads the bytes line by line and decodes
     // only the values of the four keys it looks for: every file of the repository passes through here.
-    private static bool TryScan(ReadOnlySpan<byte> bytes, out Scanned scanned)
+    private static bool TryScan(ReadOnlySpan<byte> bytes, out Found scanned)
     {
         scanned = default;
         if (!Utf8.IsValid(bytes)) return false;
@@ -133,11 +163,11 @@ internal static class QuickScan
         if (kind is null) return false;
         if (kind != "motor-protection")
         {
-            scanned = new Scanned(false, tag, null, null);
+            scanned = new Found(false, tag, null, null);
             return true;
         }
         if (!hasBus || (hasRelay && relay!.Length == 0)) return false;
-        scanned = new Scanned(true, tag, bus, relay);
+        scanned = new Found(true, tag, bus, relay);
         return true;
     }
 

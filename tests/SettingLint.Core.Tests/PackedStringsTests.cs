@@ -1,0 +1,77 @@
+using SettingLint.Core.Discovery;
+using SettingLint.Core.Documents;
+
+namespace SettingLint.Core.Tests;
+
+/// <summary>Paths and tags kept packed give back what was put in, in the order strings sort (ordinal).</summary>
+public sealed class PackedStringsTests
+{
+    [Fact]
+    public void Entries_come_back_whole_across_blocks_and_longer_than_a_block()
+    {
+        var packed = new PackedStrings();
+        var written = new List<string>();
+        // 5,000 entries of 1-40 characters fill several 16,384-character blocks; one of 20,000 is kept on its own.
+        for (var i = 0; i < 5_000; i++) written.Add(new string((char)('a' + (i % 26)), 1 + (i % 40)) + i);
+        written.Insert(2_500, new string('x', 20_000));
+        var numbers = written.Select(w => packed.Add(w)).ToList();
+
+        Assert.Equal(Enumerable.Range(0, written.Count), numbers);
+        Assert.Equal(written, numbers.Select(packed.GetString));
+        Assert.Equal(20_000, packed[2_500].Length);
+    }
+
+    [Fact]
+    public void Two_parts_make_one_entry()
+    {
+        var packed = new PackedStrings();
+        var n = packed.Add("motors/", "p-1.yaml");
+        Assert.Equal("motors/p-1.yaml", packed.GetString(n));
+        Assert.Equal("", packed.GetString(packed.Add("")));
+    }
+
+    [Fact]
+    public void Entries_compare_as_ordinal_strings_do()
+    {
+        // U+FF21 (fullwidth A) sorts after a surrogate pair in UTF-16 order (0xD83D < 0xFF21), though its code point is lower:
+        // the order of string.CompareOrdinal, which the output's order is, not that of code points or of UTF-8 bytes.
+        string[] words = ["b", "a", "\uFF21", "\U0001F600", "ab", "", "B", "a/b", "a-b"];
+        var packed = new PackedStrings();
+        foreach (var w in words) packed.Add(w);
+        for (var i = 0; i < words.Length; i++)
+        {
+            for (var j = 0; j < words.Length; j++)
+            {
+                Assert.Equal(Math.Sign(string.CompareOrdinal(words[i], words[j])), Math.Sign(packed.Compare(i, j)));
+                Assert.Equal(Math.Sign(string.CompareOrdinal(words[i], words[j])), Math.Sign(packed.Compare(i, words[j])));
+            }
+        }
+    }
+
+    [Fact]
+    public void A_sorted_list_of_files_keeps_the_first_of_two_equal_paths_and_each_ones_full_path()
+    {
+        var builder = new DiscoveredFiles.Builder("/r");
+        builder.Add("motors/b.yaml", "", "/elsewhere/motors/b.yaml");
+        builder.Add("motors/", "a.yaml");
+        builder.Add("motors/", "b.yaml");
+        builder.Add("buses/x.yaml", "");
+        var files = builder.Build();
+
+        Assert.Equal(["buses/x.yaml", "motors/a.yaml", "motors/b.yaml"], files.Select(f => f.RelativePath));
+        Assert.Equal("/elsewhere/motors/b.yaml", files[2].FullPath);
+        Assert.Equal(Path.Combine("/r", "motors", "a.yaml"), files[1].FullPath);
+        Assert.Equal(files[1], files[1]);
+        Assert.Equal("motors/a.yaml", files.RelativePath(1));
+    }
+
+    [Fact]
+    public void An_unsorted_list_keeps_every_file_in_the_order_of_adding()
+    {
+        var builder = new DiscoveredFiles.Builder("/r");
+        Assert.Equal(0, builder.Add("z.yaml", ""));
+        Assert.Equal(1, builder.Add("a.yaml", ""));
+        Assert.Equal(2, builder.Add("a.yaml", ""));
+        Assert.Equal(["z.yaml", "a.yaml", "a.yaml"], builder.Build(sorted: false).Select(f => f.RelativePath));
+    }
+}
