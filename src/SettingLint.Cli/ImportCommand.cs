@@ -55,7 +55,7 @@ public static class ImportCommand
             return ExitCodes.Usage;
         }
         var context = new ReportContext(Directory.GetCurrentDirectory(), false, false, ToolInfo.ForVersion(CheckCommand.Version));
-        var problems = new CheckResult(plan.Root, [.. plan.Problems.Order(Finding.Order)], EngineRules.All, [], 0, [], Level.Error);
+        var problems = new CheckResult(plan.Root, [.. plan.Problems.Order(Finding.Order)], EngineRules.All, [], 0, Level.Error);
         if (plan.Files.IsEmpty)
         {
             Report(problems, format, output, context, stdout);

@@ -74,8 +74,9 @@ public sealed class JUnitReporter : IReporter
         string CaseName(string id) => titles.TryGetValue(id, out var title) ? id + " " + title : id;
 
         var motorFiles = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var (file, tag) in result.MotorFiles)
+        for (var m = 0; m < result.Files.MotorCount; m++)
         {
+            var (file, tag) = (result.Files.MotorFile(m), result.Files.MotorName(m));
             motorFiles.Add(file);
             var mine = byFile.GetValueOrDefault(file) ?? [];
             var suite = new Suite(tag, file, []);

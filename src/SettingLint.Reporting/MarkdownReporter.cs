@@ -51,7 +51,7 @@ public sealed class MarkdownReporter : IReporter
         var open = findings.Where(f => f.Suppression is null && f.BaselineState != BaselineState.Unchanged).ToList();
         var failing = open.Count(result.Fails);
         var notRun = result.NotRun.IsEmpty ? "" : "; " + Count(result.NotRun.Length, "check") + " not run for missing data";
-        md.Append(Invariant($"{Count(failing, "finding")} at or above fail-on level {FailOnToken(result.FailOn)}; {Count(result.FilesChecked, "setting file")} checked ({Count(result.Motors.Length, "motor")}){notRun}; exit code {exit}.\n\n"));
+        md.Append(Invariant($"{Count(failing, "finding")} at or above fail-on level {FailOnToken(result.FailOn)}; {Count(result.FilesChecked, "setting file")} checked ({Count(result.MotorCount, "motor")}){notRun}; exit code {exit}.\n\n"));
 
         md.Append(baseline ? "| level | new | in the baseline | accepted in source |\n|---|---:|---:|---:|\n" : "| level | found | accepted in source |\n|---|---:|---:|\n");
         foreach (var level in (Level[])[Level.Error, Level.Warning, Level.Note])
@@ -125,13 +125,13 @@ public sealed class MarkdownReporter : IReporter
         if (result.Scope is { } scope) md.Append(Inline(TextReporter.ScopeLine(scope))).Append("\n\n");
 
         var motors = string.Join(", ", result.Motors.Select(Inline));
-        if (result.Motors.Length > 20)
+        if (result.MotorCount > 20)
         {
-            md.Append(Invariant($"<details><summary>Motors checked ({result.Motors.Length})</summary>\n\n{motors}\n\n</details>\n\n"));
+            md.Append(Invariant($"<details><summary>Motors checked ({result.MotorCount})</summary>\n\n{motors}\n\n</details>\n\n"));
         }
         else
         {
-            md.Append(Invariant($"**Motors checked ({result.Motors.Length}):** {(motors.Length == 0 ? "none" : motors)}\n\n"));
+            md.Append(Invariant($"**Motors checked ({result.MotorCount}):** {(motors.Length == 0 ? "none" : motors)}\n\n"));
         }
 
         md.Append("> ").Append(Caution).Append('\n');

@@ -41,7 +41,7 @@ public sealed record ReportSummary(
         }
         var configuration = result.Notifications.Count(static n => n.Kind == NotificationKind.Configuration);
         var internalErrors = result.Notifications.Count(static n => n.Kind == NotificationKind.Internal);
-        return new ReportSummary(errors, warnings, notes, suppressed, result.FilesChecked, result.Motors.Length, configuration, internalErrors)
+        return new ReportSummary(errors, warnings, notes, suppressed, result.FilesChecked, result.MotorCount, configuration, internalErrors)
         {
             NotRun = result.NotRun.Length,
         };

@@ -96,7 +96,7 @@ public sealed class TextReporter : IReporter
         ArgumentNullException.ThrowIfNull(result);
         var listed = result.Findings.Where(f => f.Suppression is null && f.BaselineState != BaselineState.Unchanged && f.RuleId != EngineRules.GateChange).ToList();
         var text = string.Create(CultureInfo.InvariantCulture,
-            $"{Plural(listed.Count(f => f.Level == Level.Error), "error")}, {Plural(listed.Count(f => f.Level == Level.Warning), "warning")}, {Plural(listed.Count(f => f.Level == Level.Note), "note")} in {Plural(result.FilesChecked, "file")} ({Plural(result.Motors.Length, "motor")})");
+            $"{Plural(listed.Count(f => f.Level == Level.Error), "error")}, {Plural(listed.Count(f => f.Level == Level.Warning), "warning")}, {Plural(listed.Count(f => f.Level == Level.Note), "note")} in {Plural(result.FilesChecked, "file")} ({Plural(result.MotorCount, "motor")})");
         var inBaseline = result.Findings.Count(f => f.BaselineState == BaselineState.Unchanged && f.Suppression is null);
         if (inBaseline > 0) text += "; " + inBaseline.ToString(CultureInfo.InvariantCulture) + " in the baseline (not listed)";
         var accepted = result.Findings.Count(f => f.Suppression is not null);

@@ -30,8 +30,8 @@ public sealed class FixReachTests
             "tag: M-4\ntitle: Test pump\nbus:\n  tag: BUS-4\n  nominal_voltage: 4160 V\n  frequency: 60 Hz\n"));
         var result = Linter.Check(new CheckRequest(repo.Root, []) { Parallel = false });
 
-        Assert.Equal(["motors/a/m-1.yaml", "motors/m-2.yaml", "motors/m-3.yaml", "motors/m-4.yaml"], result.MotorFiles.Select(m => m.File));
-        Assert.Equal("buses/bus-1.yaml buses/bus-2.yaml buses/bus-1.yaml (inline)", string.Join(" ", result.MotorBuses.Select(b => b ?? "(inline)")));
+        Assert.Equal(["motors/a/m-1.yaml", "motors/m-2.yaml", "motors/m-3.yaml", "motors/m-4.yaml"], Enumerable.Range(0, result.Files.MotorCount).Select(result.Files.MotorFile));
+        Assert.Equal("buses/bus-1.yaml buses/bus-2.yaml buses/bus-1.yaml (inline)", string.Join(" ", Enumerable.Range(0, result.Files.MotorCount).Select(m => result.Files.MotorBus(m) ?? "(inline)")));
         Assert.Equal(["buses/bus-1.yaml", "motors/a/m-1.yaml", "motors/m-3.yaml"], FixFinder.Reach(result, ["motors/a/m-1.yaml"]));
         Assert.Equal(["buses/bus-2.yaml", "motors/m-2.yaml"], FixFinder.Reach(result, ["motors/m-2.yaml"]));
         Assert.Equal(["motors/m-4.yaml"], FixFinder.Reach(result, ["motors/m-4.yaml"]));

@@ -12,7 +12,7 @@ public sealed class GateBaselineTests
         new(rule, level, file, SourceSpan.At(line, 5), keyPath, message, ImmutableSortedDictionary<string, FindingValue>.Empty);
 
     private static CheckResult Result(params Finding[] findings) =>
-        new("/r", [.. findings], [], [], 2, ["M-1"], Level.Error) { CheckedFiles = ["motors/m-1.yaml", "motors/m-2.yaml"] };
+        new("/r", [.. findings], [], [], 2, Level.Error) { Files = RunFiles.Of(["motors/m-1.yaml", "motors/m-2.yaml"], [("motors/m-1.yaml", "M-1", null)]) };
 
     private static Baseline Read(string text)
     {

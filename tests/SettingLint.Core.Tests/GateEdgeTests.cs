@@ -19,7 +19,7 @@ public sealed class GateEdgeTests
         new(rule, level, file, SourceSpan.At(line, 5), keyPath, message, ImmutableSortedDictionary<string, FindingValue>.Empty);
 
     private static CheckResult Result(params Finding[] findings) =>
-        new("/r", [.. findings], [], [], 1, ["M-1"], Level.Error) { CheckedFiles = ["motors/m-1.yaml"] };
+        new("/r", [.. findings], [], [], 1, Level.Error) { Files = RunFiles.Of(["motors/m-1.yaml"], [("motors/m-1.yaml", "M-1", null)]) };
 
     private static Baseline Read(string text)
     {

@@ -11,14 +11,25 @@ public sealed class PackedStringsTests
     {
         var packed = new PackedStrings();
         var written = new List<string>();
-        // 5,000 entries of 1-40 characters fill several 16,384-character blocks; one of 20,000 is kept on its own.
+        // 5,000 entries of 1-40 characters fill several 32 KB blocks; one of 20,000 characters is kept as a string.
         for (var i = 0; i < 5_000; i++) written.Add(new string((char)('a' + (i % 26)), 1 + (i % 40)) + i);
         written.Insert(2_500, new string('x', 20_000));
         var numbers = written.Select(w => packed.Add(w)).ToList();
 
         Assert.Equal(Enumerable.Range(0, written.Count), numbers);
         Assert.Equal(written, numbers.Select(packed.GetString));
-        Assert.Equal(20_000, packed[2_500].Length);
+        Assert.Equal(20_000, packed.Length(2_500));
+    }
+
+    [Fact]
+    public void An_entry_copied_from_another_comes_back_the_same()
+    {
+        var from = new PackedStrings();
+        string[] words = ["motors/p-1.yaml", "tag \u00e9", new string('y', 300)];
+        foreach (var w in words) from.Add(w);
+        var to = new PackedStrings();
+        to.Add("first");
+        Assert.Equal(words, Enumerable.Range(0, words.Length).Select(i => to.GetString(to.Add(from, i))));
     }
 
     [Fact]
@@ -35,7 +46,7 @@ public sealed class PackedStringsTests
     {
         // U+FF21 (fullwidth A) sorts after a surrogate pair in UTF-16 order (0xD83D < 0xFF21), though its code point is lower:
         // the order of string.CompareOrdinal, which the output's order is, not that of code points or of UTF-8 bytes.
-        string[] words = ["b", "a", "\uFF21", "\U0001F600", "ab", "", "B", "a/b", "a-b"];
+        string[] words = ["b", "a", "\uFF21", "\U0001F600", "ab", "", "B", "a/b", "a-b", "a\u00e9", "a\u007f", new string('a', 300), new string('a', 255)];
         var packed = new PackedStrings();
         foreach (var w in words) packed.Add(w);
         for (var i = 0; i < words.Length; i++)

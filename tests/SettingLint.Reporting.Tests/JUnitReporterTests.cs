@@ -96,7 +96,7 @@ public sealed class JUnitReporterTests
 
     private static CheckResult WithMotors(CheckResult result) => result with
     {
-        MotorFiles = [("motors/K-201.yaml", "K-201"), ("motors/P-101A.yaml", "P-101A"), ("motors/P-102 spare.yaml", "P-102")],
+        Files = RunFiles.Of([], [("motors/K-201.yaml", "K-201", null), ("motors/P-101A.yaml", "P-101A", null), ("motors/P-102 spare.yaml", "P-102", null)]),
     };
 
     private static XDocument Render(CheckResult result, bool omitSuppressed = false)

@@ -23,11 +23,11 @@ public sealed class MarkdownReporterTests
         var gate = new Finding(EngineRules.GateChange, Level.Warning, ".settinglint.yaml", SourceSpan.At(3, 10), "rules.SL110",
             "SL110 is switched off (it was note): it no longer reports anything.", ImmutableSortedDictionary<string, FindingValue>.Empty)
         { BaselineState = BaselineState.New };
-        return new CheckResult(Samples.Root, [gate, sc, accepted, note], Samples.Rules, [], 4, ["K-201", "P-101A", "P-102"], Level.Error)
+        return new CheckResult(Samples.Root, [gate, sc, accepted, note], Samples.Rules, [], 4, Level.Error)
         {
             BaselineFile = "settinglint.baseline",
             Absent = [new AbsentResult("SL305", "motors/P-102 spare.yaml", "protection.27.pickup", Fingerprints.Of("motors/P-102 spare.yaml", "SL305", "protection.27.pickup"), "old note", 12)],
-            CheckedFiles = ["motors/K-201.yaml", "motors/P-101A.yaml", "motors/P-102 spare.yaml"],
+            Files = RunFiles.Of([], [("motors/K-201.yaml", "K-201", null), ("motors/P-101A.yaml", "P-101A", null), ("motors/P-102 spare.yaml", "P-102", null)]),
             Scope = new ChangeScope("origin/main", false, ["buses/B-1.yaml", ".settinglint.yaml"], [], ["motors/K-201.yaml"], null),
         };
     }
@@ -115,8 +115,8 @@ public sealed class MarkdownReporterTests
     {
         var findings = Enumerable.Range(1, MarkdownReporter.MaxRows + 5)
             .Select(i => Samples.Pickup with { Span = SourceSpan.At(i, 1) }).ToImmutableArray();
-        var motors = Enumerable.Range(1, 30).Select(i => "P-" + i.ToString("D3", System.Globalization.CultureInfo.InvariantCulture)).ToImmutableArray();
-        var md = Render(new CheckResult(Samples.Root, findings, Samples.Rules, [], 30, motors, Level.Error));
+        var motors = Enumerable.Range(1, 30).Select(i => "P-" + i.ToString("D3", System.Globalization.CultureInfo.InvariantCulture)).Select(m => ("motors/" + m + ".yaml", m, (string?)null));
+        var md = Render(new CheckResult(Samples.Root, findings, Samples.Rules, [], 30, Level.Error) { Files = RunFiles.Of([], motors) });
         Assert.Equal(MarkdownReporter.MaxRows, md.Split('\n').Count(l => l.StartsWith("| error | SL201 |", StringComparison.Ordinal)));
         Assert.Contains("\n5 more not shown; the SARIF or JSON report has them all.\n", md, StringComparison.Ordinal);
         Assert.Contains("<details><summary>Motors checked (30)</summary>", md, StringComparison.Ordinal);

@@ -64,10 +64,12 @@ internal static class Samples
         Rules,
         [.. notifications],
         FilesChecked: 3,
-        Motors: ["K-201", "P-101A", "P-102"],
-        FailOn: Level.Warning);
+        FailOn: Level.Warning)
+    {
+        Files = RunFiles.Of([], [("motors/K-201.yaml", "K-201", null), ("motors/P-101A.yaml", "P-101A", null), ("motors/P-102 spare.yaml", "P-102", null)]),
+    };
 
-    public static CheckResult Clean() => new(Root, [], Rules, [], 1, ["K-201"], Level.Warning);
+    public static CheckResult Clean() => new(Root, [], Rules, [], 1, Level.Warning) { Files = RunFiles.Of([], [("motors/K-201.yaml", "K-201", null)]) };
 
     public static readonly Notification BadConfig = new(
         NotificationKind.Configuration, "unknown rule id SL999 in 'rules'", ".settinglint.yaml", new SourceSpan(3, 5, 3, 10));

@@ -295,8 +295,9 @@ public sealed class SarifReferenceTests
         from start in Time
         from end in Time
         from tool in Tool
-        select (new CheckResult(root, [.. findings], [.. rules], [.. notifications], findings.Length, ["M-1"], failOn)
+        select (new CheckResult(root, [.. findings], [.. rules], [.. notifications], findings.Length, failOn)
             {
+                Files = RunFiles.Of([], [("motors/m-1.yaml", "M-1", null)]),
                 BaselineFile = baselineFile,
                 Absent = [.. absent],
                 NotRun = [.. notRun],

@@ -116,7 +116,7 @@ internal sealed class DiscoveredFiles : IReadOnlyList<DiscoveredFile>
             for (var i = 0; i < order.Length; i++)
             {
                 if (i > 0 && _paths.Compare(order[i], order[i - 1]) == 0) continue;
-                var n = paths.Add(_paths[order[i]]);
+                var n = paths.Add(_paths, order[i]);
                 if (_own.TryGetValue(order[i], out var full)) own[n] = full;
             }
             paths.Trim();

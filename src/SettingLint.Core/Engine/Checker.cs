@@ -82,54 +82,6 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         public ImmutableArray<AcceptComment> Acceptances { get; set; } = [];
     }
 
-    /// <summary>
-    /// What a run keeps of a reported file once its group is done, until the end (the output is sorted): its path, its
-    /// motor's name and bus (the suggestions' confirming run reads the fixed motors' groups), its tag (tags are compared
-    /// across the repository) and, of the few files that have
-    /// them, its findings, checks not run and acceptance comments. A value in one list, not an object per file: at
-    /// 100,000 motors a run kept some 120 bytes for each in objects all over the heap (Kept and its tag's TextValue).
-    /// </summary>
-    private readonly struct Kept
-    {
-        private readonly Notes? _notes;
-        private readonly string? _tag;
-        private readonly SourceSpan _tagSpan;
-
-        public Kept(FileState s)
-        {
-            RelativePath = s.RelativePath;
-            Motor = s.Motor?.Tag;
-            if (s.Motor?.Bus is { } bus && bus.Document.Path != s.Path) Bus = bus.Document.RelativePath;
-            if (TagOf(s) is { } tag) (_tag, _tagSpan) = (tag.Tag, tag.Span);
-            var findings = s.LoadFindings.Count + s.Findings.Findings.Count;
-            if (findings + s.Findings.NotRun.Count + s.Acceptances.Length == 0) return;
-            _notes = new Notes(
-                findings == 0 ? [] : [.. s.LoadFindings, .. s.Findings.Findings],
-                s.Findings.NotRun.Count == 0 ? [] : [.. s.Findings.NotRun],
-                s.Acceptances);
-        }
-
-        public string RelativePath { get; }
-
-        /// <summary>The motor's name (its tag, else its file name) when the file is a motor.</summary>
-        public string? Motor { get; }
-
-        /// <summary>The root-relative bus file a motor is on; null for an inline bus or none.</summary>
-        public string? Bus { get; }
-
-        // Made when asked: a FileTag held here would add the path again and a nullable's flag to every value (64 bytes
-        // instead of 48 when measured, before the bus was kept too).
-        public FileTag? Tag => _tag is null ? null : new FileTag(RelativePath, _tag, _tagSpan);
-
-        public IReadOnlyList<Finding> Findings => _notes?.Findings ?? [];
-
-        public IReadOnlyList<CheckNotRun> NotRun => _notes?.NotRun ?? [];
-
-        public ImmutableArray<AcceptComment> Acceptances => _notes?.Acceptances ?? [];
-
-        private sealed record Notes(IReadOnlyList<Finding> Findings, IReadOnlyList<CheckNotRun> NotRun, ImmutableArray<AcceptComment> Acceptances);
-    }
-
     /// <summary>A setting file's tag as written, for the rule that a tag names one piece of equipment in the repository.</summary>
     private readonly record struct FileTag(string File, string Tag, SourceSpan Span);
 
@@ -204,11 +156,11 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         if (options.Changes is { TouchesSettings: false } untouched)
         {
             // Nothing that can change a finding changed: no need to read the repository at all.
-            return new CheckResult(root, [], descriptors, [], 0, [], options.FailOn) { Scope = Scope(untouched, []) };
+            return new CheckResult(root, [], descriptors, [], 0, options.FailOn) { Scope = Scope(untouched, []) };
         }
         var work = new Work(this, options, source, notifications);
-        List<Kept> kept;
-        IEnumerable<FileTag> tags;
+        KeptFiles kept;
+        TagList tags;
         IReadOnlyList<string>? planned = null;
         var dependants = ImmutableSortedSet<string>.Empty;
         IReadOnlyList<Finding> discoveryFindings;
@@ -238,11 +190,11 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 (selected, dependants) = changes.Select(root, ChangeSet.ReferencesOf(root, index), settingFiles.Select(s => s.RelativePath).ToList());
                 var reported = settingFiles.Where(s => selected.Contains(s.RelativePath)).ToArray();
                 // A reported file that the quick read was not sure of may have the tag of a file the plan left unread.
-                if (planned is not null && UnreadTagMate(reported.Select(TagOf), planned, quickTags)) return Run(options, usePlan: false);
+                if (planned is not null && UnreadTagMate(TagsOf(reported).Select(t => t.Tag), planned, quickTags)) return Run(options, usePlan: false);
                 work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
-                kept = [.. reported.Select(s => new Kept(s))];
+                kept = Keep(reported);
                 // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
-                tags = TagsOf(settingFiles);
+                tags = TagList.Of(TagsOf(settingFiles).Select(t => (t.File, t.Tag, t.Span)));
             }
             else
             {
@@ -262,9 +214,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 }
                 var bound = new ConcurrentBag<FileTag>();
                 kept = ByBus(work, BusGroups.Of(root, toLoad, refs, unsure), options.Parallel, Choose, bound);
-                tags = bound;
-                selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Select(k => k.RelativePath));
-                if (UnreadTagMate(kept.Select(k => k.Tag), planned, quickTags)) return Run(options, usePlan: false);
+                tags = TagList.Of(bound.Select(t => (t.File, t.Tag, t.Span)));
+                selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Paths());
+                if (UnreadTagMate(kept.Tags(), planned, quickTags)) return Run(options, usePlan: false);
                 dependants = selected.Except(changes.Changed);
             }
             discoveryFindings = [.. discovery.Findings.Where(f => selected.Contains(f.File))];
@@ -276,8 +228,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             var settingFiles = BindAll(work, discovery.Files, options.Parallel);
             var motors = settingFiles.Where(s => s.Motor is not null).ToArray();
             work.Evaluate(Ordered(motors), new RepositoryIndex(motors.Select(s => s.Motor!)), options.Parallel);
-            kept = [.. settingFiles.Select(s => new Kept(s))];
-            tags = TagsOf(kept);
+            kept = Keep(settingFiles);
+            tags = kept.TagList();
         }
         else
         {
@@ -286,52 +238,41 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             // them, 173 since.
             (var plan, discoveryFindings) = Plan(source, paths, shown, options, notifications);
             kept = ByBus(work, plan, options.Parallel);
-            tags = TagsOf(kept);
+            tags = kept.TagList();
         }
 
         var known = descriptors.Select(d => d.Id).ToHashSet(StringComparer.Ordinal);
-        var reused = DuplicateTags(tags, kept.Count);
-        IEnumerable<Finding> Own(Kept s)
+        var reused = tags.Reused();
+        // The result lists the files packed and sorted once (KeptFiles.ToRunFiles). Sorted copies of the whole list, lists
+        // grown by doubling and a boxed tag per file had been large objects of 100,000 entries each, and garbage while the
+        // suggestions ran; then the paths and tags as strings were most of what the result held (docs/performance.md).
+        var files = kept.ToRunFiles();
+        var findings = new List<Finding>(discoveryFindings);
+        var notRun = new List<CheckNotRun>();
+        IReadOnlyList<Finding> Accepted(string path, ImmutableArray<AcceptComment> acceptances, IReadOnlyList<Finding> own) =>
+            options.Accept ? Acceptances.Apply(path, acceptances, own, known) : own;
+        foreach (var (i, notes) in kept.WithNotes())
         {
-            IReadOnlyList<Finding> own = reused.TryGetValue(s.RelativePath, out var more) ? [.. s.Findings, .. more.Findings] : s.Findings;
-            return options.Accept ? Acceptances.Apply(s.RelativePath, s.Acceptances, own, known) : own;
+            var path = kept.Path(i);
+            IReadOnlyList<Finding> own = reused.Remove(path, out var more) ? [.. notes.Findings, .. more.Findings] : notes.Findings;
+            findings.AddRange(Accepted(path, notes.Acceptances, own));
+            notRun.AddRange(notes.NotRun);
         }
-        var findings = discoveryFindings
-            .Concat(kept.SelectMany(Own))
-            .OrderBy(f => f, Finding.Order)
-            .ToImmutableArray();
-        // Sorted once, in place, and each list of files read off it into an array of its size. Sorted copies of the whole
-        // list (OrderBy's buffers and keys), collections grown by doubling and a boxed tag per file were large objects of
-        // 100,000 entries each, and garbage while the suggestions ran: peak RSS of a default check of 100,000 generated
-        // motors (native) fell from 90-92 to 76-78 MiB (docs/performance.md, 2026-12-05).
-        kept.Sort(static (a, b) => string.CompareOrdinal(a.RelativePath, b.RelativePath));
-        var checkedFiles = new string[kept.Count];
-        var motorCount = kept.Count(k => k.Motor is not null);
-        var motorFiles = new (string File, string Tag)[motorCount];
-        var motorBuses = new string?[motorCount];
-        var motorNames = new string[motorCount];
-        for (int i = 0, m = 0; i < kept.Count; i++)
+        // A reported file that reuses a tag and has nothing else (a changed-files run's tags include files it did not report).
+        foreach (var (path, more) in reused)
         {
-            var k = kept[i];
-            checkedFiles[i] = k.RelativePath;
-            if (k.Motor is not { } motor) continue;
-            (motorFiles[m], motorBuses[m], motorNames[m]) = ((k.RelativePath, motor), k.Bus, motor);
-            m++;
+            if (files.Contains(path)) findings.AddRange(Accepted(path, [], more.Findings));
         }
-        Array.Sort(motorNames, StringComparer.Ordinal);
         return new CheckResult(
             root,
-            findings,
+            [.. findings.Order(Finding.Order)],
             descriptors,
             [.. notifications.OrderBy(n => n.File ?? "", StringComparer.Ordinal).ThenBy(n => n.Message, StringComparer.Ordinal)],
             kept.Count,
-            ImmutableCollectionsMarshal.AsImmutableArray(motorNames),
             options.FailOn)
         {
-            CheckedFiles = ImmutableCollectionsMarshal.AsImmutableArray(checkedFiles),
-            NotRun = [.. kept.SelectMany(s => s.NotRun).Order(CheckNotRun.Order)],
-            MotorFiles = ImmutableCollectionsMarshal.AsImmutableArray(motorFiles),
-            MotorBuses = ImmutableCollectionsMarshal.AsImmutableArray(motorBuses),
+            Files = files,
+            NotRun = [.. notRun.Order(CheckNotRun.Order)],
             Scope = options.Changes is { } c ? Scope(c, dependants) : null,
             LoadedFiles = planned,
         };
@@ -374,14 +315,6 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     // Loops, not OfType: that boxes each nullable value, two short-lived objects per file.
-    private static IEnumerable<FileTag> TagsOf(IEnumerable<Kept> files)
-    {
-        foreach (var k in files)
-        {
-            if (k.Tag is { } tag) yield return tag;
-        }
-    }
-
     private static IEnumerable<FileTag> TagsOf(IEnumerable<FileState> files)
     {
         foreach (var s in files)
@@ -405,15 +338,10 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// report; null reports every file.
     /// </param>
     /// <param name="tags">Receives the tag of every setting file bound, reported or not, when <paramref name="choose"/> is given.</param>
-    private List<Kept> ByBus(Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose = null, ConcurrentBag<FileTag>? tags = null)
+    private KeptFiles ByBus(Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose = null, ConcurrentBag<FileTag>? tags = null)
     {
         var (kept, early, selected) = Ahead(work, plan, parallel, choose, tags);
-        var gate = new Lock();
-        ForEach(parallel, Ordered(plan.Buses.Values.ToArray()), group =>
-        {
-            var done = Group(work, plan, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags, parallel);
-            lock (gate) kept.AddRange(done);
-        });
+        ForEach(parallel, Ordered(plan.Buses.Values.ToArray()), group => Group(work, plan, group, early.GetValueOrDefault(group.Bus) ?? [], selected, tags, parallel, kept));
         return kept;
     }
 
@@ -421,13 +349,13 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     /// Binds the files the quick read is not sure of, and those that no group holds; evaluates the motors that are on no
     /// shared bus. What the run keeps of them, and the motors bound ahead by the bus they name.
     /// </summary>
-    private (List<Kept> Kept, Dictionary<string, List<FileState>> Early, Func<FileState, bool> Selected) Ahead(
+    private (KeptFiles Kept, Dictionary<string, List<FileState>> Early, Func<FileState, bool> Selected) Ahead(
         Work work, BusGroups plan, bool parallel, Func<IReadOnlyList<FileState>, Func<FileState, bool>>? choose, ConcurrentBag<FileTag>? tags)
     {
         // Every file but the motors of a sure bus is entered now, so that a motor bound early, or any motor that names a
         // relay model, shares the reported state of what it names instead of loading it unreported.
         // The list of what is kept is made once, as long as every file (else its growing would leave its old arrays behind).
-        var kept = new List<Kept>(plan.First.Count + plan.Others.Count + plan.Buses.Values.Sum(g => g.Motors.Count + 1));
+        var kept = new KeptFiles(plan.First.Count + plan.Others.Count + plan.Buses.Values.Sum(g => g.Motors.Count + 1));
         foreach (var f in plan.First.Concat(plan.Others)) work.Enter(f);
         foreach (var g in plan.Buses.Values)
         {
@@ -459,7 +387,10 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         work.Evaluate(Ordered(loners.Where(selected).ToArray()), new RepositoryIndex(loners.Select(s => s.Motor!)), parallel);
         var done = alone.Concat(work.Bind(Ordered(plan.Others), parallel)).Where(s => s.IsChecked && s.Reported).ToList();
         Tags(done, tags);
-        kept.AddRange(done.Where(selected).Select(s => new Kept(s)));
+        foreach (var s in done)
+        {
+            if (selected(s)) Keep(kept, s);
+        }
         foreach (var s in loners) Drop(work, s.Document);
         return (kept, early, selected);
     }
@@ -470,8 +401,8 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         foreach (var t in TagsOf(files)) tags.Add(t);
     }
 
-    /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them.</summary>
-    private List<Kept> Group(Work work, BusGroups plan, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags, bool runParallel)
+    /// <summary>Loads, binds and evaluates a bus with its motors, and lets them go; what the run keeps of them goes to <paramref name="kept"/>.</summary>
+    private void Group(Work work, BusGroups plan, BusGroup group, List<FileState> early, Func<FileState, bool> selected, ConcurrentBag<FileTag>? tags, bool runParallel, KeptFiles kept)
     {
         var motorFiles = new List<DiscoveredFile>(group.Motors.Count);
         foreach (var number in group.Motors) motorFiles.Add(plan.Motor(number));
@@ -509,10 +440,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
             if (s.IsChecked && s.Reported) done.Add(s);
         }
         Tags(done, tags);
-        var kept = new List<Kept>(done.Count);
         foreach (var s in done)
         {
-            if (selected(s)) kept.Add(new Kept(s));
+            if (selected(s)) Keep(kept, s);
         }
         var busDocument = motors.Select(s => s.Motor!.Bus?.Document).FirstOrDefault(d => d?.RelativePath == group.Bus);
         foreach (var s in motors) Drop(work, s.Document);
@@ -522,7 +452,26 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         // Nor do its files wait for the run to end.
         group.Motors.Clear();
         group.Motors.TrimExcess();
+    }
+
+    /// <summary>What the run keeps of reported files (<see cref="KeptFiles"/>).</summary>
+    private static KeptFiles Keep(IReadOnlyCollection<FileState> files)
+    {
+        var kept = new KeptFiles(files.Count);
+        foreach (var s in files) Keep(kept, s);
         return kept;
+    }
+
+    /// <summary>Keeps a reported file: its path, motor name, bus and tag, and its findings, checks not run and acceptances when it has any.</summary>
+    private static void Keep(KeptFiles kept, FileState s)
+    {
+        var findings = s.LoadFindings.Count + s.Findings.Findings.Count;
+        var notes = findings + s.Findings.NotRun.Count + s.Acceptances.Length == 0 ? null : new KeptFiles.Notes(
+            findings == 0 ? [] : [.. s.LoadFindings, .. s.Findings.Findings],
+            s.Findings.NotRun.Count == 0 ? [] : [.. s.Findings.NotRun],
+            s.Acceptances);
+        var bus = s.Motor?.Bus is { } b && b.Document.Path != s.Path ? b.Document.RelativePath : null;
+        kept.Add(s.RelativePath, s.Motor?.Tag, bus, TagOf(s) is { } tag ? (tag.Tag, tag.Span) : null, notes);
     }
 
     private void Drop(Work work, BoundDocument? doc)
@@ -540,9 +489,9 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
     }
 
     /// <summary>Whether a reported file has the tag of a file that the plan left unread (the quick read of a reported file may not have been sure of its tag).</summary>
-    private static bool UnreadTagMate(IEnumerable<FileTag?> reportedTags, IReadOnlyList<string> planned, IReadOnlyDictionary<string, string> quickTags)
+    private static bool UnreadTagMate(IEnumerable<string> reportedTags, IReadOnlyList<string> planned, IReadOnlyDictionary<string, string> quickTags)
     {
-        var tags = reportedTags.OfType<FileTag>().Select(t => t.Tag).ToHashSet(StringComparer.Ordinal);
+        var tags = reportedTags.ToHashSet(StringComparer.Ordinal);
         if (tags.Count == 0) return false;
         var loaded = planned.ToHashSet(StringComparer.Ordinal);
         return quickTags.Any(t => tags.Contains(t.Value) && !loaded.Contains(t.Key));
@@ -550,33 +499,6 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
 
     private static ChangeScope Scope(ChangeSet changes, ImmutableSortedSet<string> dependants) =>
         new(changes.Revision, changes.Staged, [.. changes.Changed], [.. changes.Deleted], [.. dependants], changes.EverythingBecause);
-
-    /// <summary>A tag names one piece of equipment in the repository: every later file that reuses one is told where it is taken.</summary>
-    /// <returns>The findings of the files that reuse a tag, by file.</returns>
-    /// <param name="tags">The tags, in any order.</param>
-    /// <param name="files">How many tags to expect (the dictionary of first files is made at that size, not grown).</param>
-    private static Dictionary<string, FindingBuilder> DuplicateTags(IEnumerable<FileTag> tags, int files)
-    {
-        // The first file of each tag, in path order, found in one pass and the others told in a second: no group per tag.
-        var first = new Dictionary<string, (string File, bool Passed)>(files, StringComparer.Ordinal);
-        foreach (var t in tags)
-        {
-            if (!first.TryGetValue(t.Tag, out var f) || string.CompareOrdinal(t.File, f.File) < 0) first[t.Tag] = (t.File, false);
-        }
-        var found = new Dictionary<string, FindingBuilder>(StringComparer.Ordinal);
-        foreach (var t in tags)
-        {
-            var f = first[t.Tag];
-            if (t.File == f.File && !f.Passed)
-            {
-                first[t.Tag] = (f.File, true);
-                continue;
-            }
-            var builder = found.TryGetValue(t.File, out var b) ? b : found[t.File] = new FindingBuilder(t.File);
-            builder.Add(EngineMessages.TagAlreadyUsedBy, t.Span, "tag", ("tag", t.Tag), ("other", f.File));
-        }
-        return found;
-    }
 
     private static void ForEach<T>(bool parallel, IReadOnlyList<T> items, Action<T> action)
     {

@@ -76,7 +76,7 @@ public sealed record Session(string Root, SettingsConfig Config, RuleSet Rules, 
 
     /// <summary>A result with no findings that carries the session's problems (exit 2), or other problems that stop a run.</summary>
     public CheckResult Stopped(Level threshold, ImmutableArray<Notification> problems) =>
-        new(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], problems, 0, [], threshold);
+        new(Root, [], [.. EngineRules.All.Concat(Rules.Descriptors).OrderBy(r => r.Id, StringComparer.Ordinal)], problems, 0, threshold);
 
     /// <summary>
     /// The checker's options under this session's configuration (its include and exclude globs, its root): the one

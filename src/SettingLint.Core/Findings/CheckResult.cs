@@ -8,7 +8,6 @@ namespace SettingLint.Core.Findings;
 /// <param name="Rules">Every rule that can fire in this run, sorted by id.</param>
 /// <param name="Notifications">Configuration and internal notifications.</param>
 /// <param name="FilesChecked">Setting files checked (files without a kind are not counted).</param>
-/// <param name="Motors">Tags (or file paths when there is no tag) of the motors checked, sorted.</param>
 /// <param name="FailOn">The gate's threshold.</param>
 public sealed record CheckResult(
     string RepositoryRoot,
@@ -16,9 +15,17 @@ public sealed record CheckResult(
     ImmutableArray<RuleDescriptor> Rules,
     ImmutableArray<Notification> Notifications,
     int FilesChecked,
-    ImmutableArray<string> Motors,
     Level FailOn)
 {
+    /// <summary>The setting files whose findings are reported, and the motors among them, packed.</summary>
+    public RunFiles Files { get; init; } = RunFiles.Empty;
+
+    /// <summary>Names (tags, or file names when there is no tag) of the motors checked, sorted; made anew on each call (<see cref="RunFiles.MotorNames"/>).</summary>
+    public ImmutableArray<string> Motors => Files.MotorNames();
+
+    /// <summary>How many motors were checked.</summary>
+    public int MotorCount => Files.MotorCount;
+
     /// <summary>The exit code of the gate: 3 internal error, 2 configuration, 1 findings at or above the threshold, else 0.</summary>
     public int ExitCode
     {
@@ -44,20 +51,11 @@ public sealed record CheckResult(
     /// <summary>Baseline entries that no longer match a finding, so that the baseline can be pruned.</summary>
     public ImmutableArray<AbsentResult> Absent { get; init; } = [];
 
-    /// <summary>Root-relative paths of the setting files whose findings are reported, sorted.</summary>
-    public ImmutableArray<string> CheckedFiles { get; init; } = [];
+    /// <summary>Root-relative paths of the setting files whose findings are reported, sorted; made anew on each call (<see cref="RunFiles.Files"/>).</summary>
+    public ImmutableArray<string> CheckedFiles => Files.Files();
 
     /// <summary>Rules that applied to a motor but were not evaluated because input data is missing, in <see cref="CheckNotRun.Order"/>.</summary>
     public ImmutableArray<CheckNotRun> NotRun { get; init; } = [];
-
-    /// <summary>The motors checked, each as its root-relative file and its tag (the file again when it has none), sorted by file.</summary>
-    public ImmutableArray<(string File, string Tag)> MotorFiles { get; init; } = [];
-
-    /// <summary>
-    /// The bus file of each motor of <see cref="MotorFiles"/> (the same order), root-relative; null for a motor with an
-    /// inline bus or none.
-    /// </summary>
-    public ImmutableArray<string?> MotorBuses { get; init; } = [];
 
     /// <summary>What a changed-files run looked at; null for a run over every file.</summary>
     public ChangeScope? Scope { get; init; }

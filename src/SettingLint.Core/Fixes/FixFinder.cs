@@ -213,20 +213,22 @@ internal static class FixFinder
     {
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(files);
-        if (result.MotorFiles.IsEmpty || result.MotorBuses.Length != result.MotorFiles.Length) return null;
+        var run = result.Files;
+        if (run.MotorCount == 0) return null;
         var fixing = files.ToHashSet(StringComparer.Ordinal);
         var buses = new HashSet<string>(StringComparer.Ordinal);
-        for (var i = 0; i < result.MotorFiles.Length; i++)
+        foreach (var file in fixing)
         {
-            if (fixing.Contains(result.MotorFiles[i].File) && result.MotorBuses[i] is { } bus) buses.Add(bus);
+            if (run.MotorIndexOf(file) is >= 0 and var m && run.MotorBus(m) is { } bus) buses.Add(bus);
         }
-        var reach = new List<string>();
-        for (var i = 0; i < result.MotorFiles.Length; i++)
+        var within = new HashSet<string>(fixing.Where(f => run.MotorIndexOf(f) >= 0), StringComparer.Ordinal);
+        for (var m = 0; m < run.MotorCount; m++)
         {
-            var file = result.MotorFiles[i].File;
-            if (fixing.Contains(file) || (result.MotorBuses[i] is { } bus && buses.Contains(bus))) reach.Add(file);
+            // Only a bus-mate's path is made into a string (a motor's bus is one of a few shared strings).
+            if (run.MotorBus(m) is { } bus && buses.Contains(bus)) within.Add(run.MotorFile(m));
         }
-        reach.AddRange(buses.Where(b => result.CheckedFiles.BinarySearch(b, StringComparer.Ordinal) >= 0));
+        within.UnionWith(buses.Where(run.Contains));
+        var reach = within.ToList();
         reach.Sort(StringComparer.Ordinal);
         return reach;
     }
@@ -243,8 +245,8 @@ internal static class FixFinder
         string BusOf(string file)
         {
             if (check is null) return "";
-            var i = check.MotorFiles.BinarySearch((file, ""), FileOrder);
-            return i >= 0 && i < check.MotorBuses.Length && check.MotorBuses[i] is { } bus ? bus : file;
+            var m = check.Files.MotorIndexOf(file);
+            return m >= 0 && check.Files.MotorBus(m) is { } bus ? bus : file;
         }
         var pieces = new List<List<string>>();
         foreach (var bus in files.GroupBy(BusOf, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal))
@@ -255,8 +257,6 @@ internal static class FixFinder
         }
         return pieces;
     }
-
-    private static readonly Comparer<(string File, string Tag)> FileOrder = Comparer<(string File, string Tag)>.Create((a, b) => string.CompareOrdinal(a.File, b.File));
 
     /// <summary>A confirming run: the files as if they had changed, read with what <paramref name="within"/> names (all when null); only they are reported.</summary>
     internal static CheckResult Run(IRuleSet rules, string root, Func<string, bool>? include, IFileSource source, ImmutableSortedSet<string> files, Func<string, string?>? electricalCode, IReadOnlyList<string>? within)

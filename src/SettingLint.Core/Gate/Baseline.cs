@@ -120,9 +120,8 @@ public sealed partial record Baseline(ImmutableArray<BaselineEntry> Entries)
             var known = remaining.TryGetValue(f.Fingerprint, out var queue) && queue.TryDequeue(out _);
             return f with { BaselineState = known ? BaselineState.Unchanged : BaselineState.New };
         }).ToImmutableArray();
-        var checkedFiles = result.CheckedFiles.ToHashSet(StringComparer.Ordinal);
         var absent = remaining.Values.SelectMany(q => q)
-            .Where(e => checkedFiles.Contains(e.File) || !fileExists(e.File))
+            .Where(e => result.Files.Contains(e.File) || !fileExists(e.File))
             .OrderBy(e => e.Line)
             .Select(e => new AbsentResult(e.RuleId, e.File, e.KeyPath, e.Fingerprint, e.Message, e.Line))
             .ToImmutableArray();

@@ -23,7 +23,7 @@ public sealed record ReportData(CheckResult Result, ImmutableArray<MotorProtecti
     }
 
     /// <summary>A run with nothing in it (the other side of a change view when the path did not exist yet).</summary>
-    public static ReportData Empty(string root) => new(new CheckResult(root, [], [], [], 0, [], Level.Error), [], []);
+    public static ReportData Empty(string root) => new(new CheckResult(root, [], [], [], 0, Level.Error), [], []);
 }
 
 /// <summary>Keeps what one check shows a report: the motors and every outcome (calls come from several threads).</summary>
