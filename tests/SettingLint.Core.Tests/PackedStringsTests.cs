@@ -1,5 +1,7 @@
+using CsCheck;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Documents;
+using SettingLint.Tests.Shared;
 
 namespace SettingLint.Core.Tests;
 
@@ -57,6 +59,30 @@ public sealed class PackedStringsTests
                 Assert.Equal(Math.Sign(string.CompareOrdinal(words[i], words[j])), Math.Sign(packed.Compare(i, words[j])));
             }
         }
+    }
+
+    // Characters from the ranges whose order differs between code points and UTF-16 code units, ASCII most often.
+    private static readonly Gen<string> Words = Gen.Frequency(
+        (6, Gen.Char['-', 'z']),
+        (1, Gen.Char['\u0080', '\u00ff']),
+        (1, Gen.Char['\ue000', '\uffff']),
+        (1, Gen.Char['\ud800', '\udfff'])).Array[0, 12].Select(c => new string(c));
+
+    [Fact]
+    public void Random_entries_sort_as_ordinal_strings_do_and_come_back_whole()
+    {
+        // Fixed seeds (SeededSample): the same lists in every run.
+        Words.Array[1, 40].SampleSeeded(words =>
+        {
+            var packed = new PackedStrings();
+            foreach (var w in words) packed.Add(w);
+            Assert.Equal(words, Enumerable.Range(0, words.Length).Select(packed.GetString));
+            var byPacked = Enumerable.Range(0, words.Length).ToArray();
+            Array.Sort(byPacked, (a, b) => packed.Compare(a, b) is var c and not 0 ? c : a.CompareTo(b));
+            var byString = Enumerable.Range(0, words.Length).ToArray();
+            Array.Sort(byString, (a, b) => string.CompareOrdinal(words[a], words[b]) is var c and not 0 ? c : a.CompareTo(b));
+            Assert.Equal(byString, byPacked);
+        }, iter: 200);
     }
 
     [Fact]
