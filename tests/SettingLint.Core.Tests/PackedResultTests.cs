@@ -41,8 +41,8 @@ public sealed class PackedResultTests
         var span = new SourceSpan(3, 6, 3, 9);
         // In the order of keeping, not of path; one file twice (a changed-files run may bind a file as well as report it).
         var tags = TagList.Of([
-            ("motors/b.yaml", "M-1", span), ("motors/a.yaml", "M-1", span), ("motors/c.yaml", "M-2", span),
-            ("motors/d.yaml", "M-1", span), ("motors/c.yaml", "M-2", span), ("motors/\u00e9.yaml", "M-3", span)]);
+            new("motors/b.yaml", "M-1", span), new("motors/a.yaml", "M-1", span), new("motors/c.yaml", "M-2", span),
+            new("motors/d.yaml", "M-1", span), new("motors/c.yaml", "M-2", span), new("motors/\u00e9.yaml", "M-3", span)]);
 
         var reused = tags.Reused();
 

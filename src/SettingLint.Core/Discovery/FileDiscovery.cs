@@ -73,9 +73,6 @@ internal sealed class DiscoveredFiles : IReadOnlyList<DiscoveredFile>
 
     public DiscoveredFile this[int index] => _own.TryGetValue(index, out var full) ? new(full, _paths.GetString(index)) : DiscoveredFile.Under(_root, _paths.GetString(index));
 
-    /// <summary>A file's relative path, without making the file.</summary>
-    public string RelativePath(int index) => _paths.GetString(index);
-
     public IEnumerator<DiscoveredFile> GetEnumerator()
     {
         for (var i = 0; i < Count; i++) yield return this[i];
@@ -107,10 +104,8 @@ internal sealed class DiscoveredFiles : IReadOnlyList<DiscoveredFile>
                 _paths.Trim();
                 return new DiscoveredFiles(root, _paths, _own);
             }
-            var order = new int[_paths.Count];
-            for (var i = 0; i < order.Length; i++) order[i] = i;
             // By path, then the order of adding, so that the first added of two equal paths comes first and is kept.
-            Array.Sort(order, (a, b) => _paths.Compare(a, b) is var c and not 0 ? c : a.CompareTo(b));
+            var order = PackedStrings.Sorted(_paths.Count, (a, b) => _paths.Compare(a, b) is var c and not 0 ? c : a.CompareTo(b));
             var paths = new PackedStrings(order.Length);
             var own = new Dictionary<int, string>();
             for (var i = 0; i < order.Length; i++)

@@ -76,13 +76,6 @@ internal sealed class PackedStrings
         return place < 0 ? _strings[-place - 1] : Encoding.ASCII.GetString(Bytes(place));
     }
 
-    /// <summary>An entry's length in characters.</summary>
-    public int Length(int index)
-    {
-        var place = Place(index);
-        return place < 0 ? _strings[-place - 1].Length : Bytes(place).Length;
-    }
-
     /// <summary>Ordinal comparison of two entries.</summary>
     public int Compare(int a, int b)
     {
@@ -98,6 +91,15 @@ internal sealed class PackedStrings
         ArgumentNullException.ThrowIfNull(b);
         var place = Place(a);
         return place < 0 ? string.CompareOrdinal(_strings[-place - 1], b) : Compare(Bytes(place), b);
+    }
+
+    /// <summary>The numbers 0 to <paramref name="count"/> - 1 in the order <paramref name="compare"/> gives them (entries are sorted by their numbers, not moved).</summary>
+    public static int[] Sorted(int count, Comparison<int> compare)
+    {
+        var order = new int[count];
+        for (var i = 0; i < order.Length; i++) order[i] = i;
+        Array.Sort(order, compare);
+        return order;
     }
 
     /// <summary>Gives back the room left over in the entries' array once adding is over.</summary>

@@ -1,6 +1,5 @@
 using System.Collections.Concurrent;
 using System.Collections.Immutable;
-using System.Runtime.InteropServices;
 using SettingLint.Core.Binding;
 using SettingLint.Core.Discovery;
 using SettingLint.Core.Documents;
@@ -81,9 +80,6 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
         /// <summary>The acceptance comments, found while the tree was there (it tells comments from text and finds blocks).</summary>
         public ImmutableArray<AcceptComment> Acceptances { get; set; } = [];
     }
-
-    /// <summary>A setting file's tag as written, for the rule that a tag names one piece of equipment in the repository.</summary>
-    private readonly record struct FileTag(string File, string Tag, SourceSpan Span);
 
     /// <summary>The work of one run on its files, shared by its ways of dividing them.</summary>
     private sealed class Work(Checker checker, CheckOptions options, IFileSource source, ConcurrentBag<Notification> notifications)
@@ -194,7 +190,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 work.Evaluate(Ordered(reported.Where(s => s.Motor is not null).ToArray()), index, options.Parallel);
                 kept = Keep(reported);
                 // The tags of every file bound, reported or not: a changed file may reuse the tag of one that did not change.
-                tags = TagList.Of(TagsOf(settingFiles).Select(t => (t.File, t.Tag, t.Span)));
+                tags = TagList.Of(TagsOf(settingFiles));
             }
             else
             {
@@ -214,7 +210,7 @@ internal sealed class Checker(IRuleSet rules, SchemaSet? schemas = null)
                 }
                 var bound = new ConcurrentBag<FileTag>();
                 kept = ByBus(work, BusGroups.Of(root, toLoad, refs, unsure), options.Parallel, Choose, bound);
-                tags = TagList.Of(bound.Select(t => (t.File, t.Tag, t.Span)));
+                tags = TagList.Of(bound);
                 selected = ImmutableSortedSet.CreateRange(StringComparer.Ordinal, kept.Paths());
                 if (UnreadTagMate(kept.Tags(), planned, quickTags)) return Run(options, usePlan: false);
                 dependants = selected.Except(changes.Changed);

@@ -91,9 +91,7 @@ internal sealed class KeptFiles(int capacity)
     /// <summary>The kept files sorted by path, with their motors, as a result lists them.</summary>
     public RunFiles ToRunFiles()
     {
-        var order = new int[Count];
-        for (var i = 0; i < order.Length; i++) order[i] = i;
-        Array.Sort(order, (a, b) => _text.Compare(_entries[a].Path, _entries[b].Path));
+        var order = PackedStrings.Sorted(Count, (a, b) => _text.Compare(_entries[a].Path, _entries[b].Path));
         var files = new int[Count];
         var motors = 0;
         for (var i = 0; i < order.Length; i++)
@@ -115,13 +113,16 @@ internal sealed class KeptFiles(int capacity)
     }
 }
 
+/// <summary>A setting file's tag as written, for the rule that a tag names one piece of equipment in the repository.</summary>
+internal readonly record struct FileTag(string File, string Tag, SourceSpan Span);
+
 /// <summary>Tags with their files, packed, for the rule that a tag names one piece of equipment in the repository.</summary>
 /// <param name="text">The packed paths and tags.</param>
 /// <param name="items">Each tag: its file's and its own entry in <paramref name="text"/>, and where it is written.</param>
 internal sealed class TagList(PackedStrings text, List<(int File, int Tag, SourceSpan Span)> items)
 {
     /// <summary>Tags given as strings (those of a changed-files run's bound files).</summary>
-    public static TagList Of(IEnumerable<(string File, string Tag, SourceSpan Span)> tags)
+    public static TagList Of(IEnumerable<FileTag> tags)
     {
         var text = new PackedStrings();
         var items = new List<(int, int, SourceSpan)>();
@@ -136,9 +137,7 @@ internal sealed class TagList(PackedStrings text, List<(int File, int Tag, Sourc
     /// <returns>The findings of the files that reuse a tag, by file.</returns>
     public Dictionary<string, FindingBuilder> Reused()
     {
-        var order = new int[items.Count];
-        for (var i = 0; i < order.Length; i++) order[i] = i;
-        Array.Sort(order, (a, b) =>
+        var order = PackedStrings.Sorted(items.Count, (a, b) =>
         {
             var c = text.Compare(items[a].Tag, items[b].Tag);
             if (c == 0) c = text.Compare(items[a].File, items[b].File);

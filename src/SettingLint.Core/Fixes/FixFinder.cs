@@ -217,11 +217,14 @@ internal static class FixFinder
         if (run.MotorCount == 0) return null;
         var fixing = files.ToHashSet(StringComparer.Ordinal);
         var buses = new HashSet<string>(StringComparer.Ordinal);
+        var within = new HashSet<string>(StringComparer.Ordinal);
         foreach (var file in fixing)
         {
-            if (run.MotorIndexOf(file) is >= 0 and var m && run.MotorBus(m) is { } bus) buses.Add(bus);
+            var m = run.MotorIndexOf(file);
+            if (m < 0) continue;
+            within.Add(file);
+            if (run.MotorBus(m) is { } bus) buses.Add(bus);
         }
-        var within = new HashSet<string>(fixing.Where(f => run.MotorIndexOf(f) >= 0), StringComparer.Ordinal);
         for (var m = 0; m < run.MotorCount; m++)
         {
             // Only a bus-mate's path is made into a string (a motor's bus is one of a few shared strings).
